@@ -1,0 +1,28 @@
+#!/usr/bin/env bash
+# Installs the C toolchains the code-generator verification tests use:
+#   host gcc (compile + run every ADC code), avr-gcc + avr-libc + simavr (8-bit size and cycles),
+#   arm-none-eabi-gcc + newlib (Cortex-M0 size).
+# Idempotent: skips apt entirely when every tool is already present. Needs root (CI runs as root).
+set -euo pipefail
+
+need=()
+command -v gcc >/dev/null 2>&1 || need+=(gcc libc6-dev)
+command -v avr-gcc >/dev/null 2>&1 || need+=(gcc-avr binutils-avr)
+[ -f /usr/lib/avr/include/avr/pgmspace.h ] || need+=(avr-libc)
+command -v simavr >/dev/null 2>&1 || need+=(simavr)
+[ -f /usr/include/simavr/sim_avr.h ] || [ -f /usr/include/simavr/avr/avr_mcu_section.h ] || need+=(libsimavr-dev)
+command -v arm-none-eabi-gcc >/dev/null 2>&1 || need+=(gcc-arm-none-eabi binutils-arm-none-eabi)
+[ -d /usr/lib/arm-none-eabi/newlib ] || need+=(libnewlib-arm-none-eabi)
+
+if [ ${#need[@]} -eq 0 ]; then
+  echo "install-toolchains: all toolchains present"
+  exit 0
+fi
+
+SUDO=""
+if [ "$(id -u)" -ne 0 ]; then SUDO="sudo"; fi
+export DEBIAN_FRONTEND=noninteractive
+echo "install-toolchains: installing ${need[*]}"
+$SUDO apt-get update -q
+$SUDO apt-get install -y -q --no-install-recommends "${need[@]}"
+echo "install-toolchains: done"

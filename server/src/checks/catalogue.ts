@@ -1,0 +1,46 @@
+// Every diagnostic the engine can report: a stable code, its severity and its documentation.
+// Code actions, the CLI exit status and SARIF rule ids key on `code`, never on message text.
+
+export type Severity = 'error' | 'warning' | 'info';
+
+export interface CodeInfo {
+  severity: Severity;
+  title: string;
+  /** What the check means and why; shown in hovers, SARIF rule help and the README. */
+  doc: string;
+}
+
+export const CATALOGUE = {
+  'syntax': { severity: 'error', title: 'Syntax error', doc: 'A line could not be read. The message says what was expected at the marked place.' },
+  'unknown-block': { severity: 'error', title: 'Unknown block kind', doc: 'A block starts with a kind the language does not define (junction, adc, channel).' },
+  'unknown-field': { severity: 'error', title: 'Unknown field', doc: 'The block kind has no field of this name.' },
+  'duplicate-field': { severity: 'error', title: 'Field given twice', doc: 'A field may appear once per block; the second one is ignored.' },
+  'duplicate-name': { severity: 'error', title: 'Name defined twice', doc: 'Two definitions share a name (in this file or in a file it uses).' },
+  'unknown-name': { severity: 'error', title: 'Unknown name', doc: 'A channel refers to a device or ADC that is not defined here or in a used file.' },
+  'wrong-kind': { severity: 'error', title: 'Name of the wrong kind', doc: 'A name refers to a definition of another kind (an ADC where a sensor is expected).' },
+  'missing-field': { severity: 'error', title: 'Required field missing', doc: 'A field without a sound default is missing.' },
+  'bad-value': { severity: 'error', title: 'Value not understood', doc: 'The value does not have the form the field takes.' },
+  'wrong-unit': { severity: 'error', title: 'Wrong unit', doc: 'The unit is not of the dimension the field takes (a resistor given in volts).' },
+  'out-of-domain': { severity: 'error', title: 'Value out of its domain', doc: 'The value is physically meaningless or outside what the engine supports (negative resistance, zero bits, below 0 K).' },
+  'import-missing': { severity: 'error', title: 'Used file not found', doc: 'A `use` names a file that cannot be read.' },
+  'import-cycle': { severity: 'error', title: 'Files use each other in a cycle', doc: 'A chain of `use` lines leads back to a file already being read.' },
+  'import-outside-root': { severity: 'error', title: 'Used file outside the workspace', doc: 'A `use` path leaves the workspace root (for the CLI, the folder given with --root, by default the file\'s own folder) and is refused.' },
+  'import-problems': { severity: 'error', title: 'Used file has errors', doc: 'A file brought in with `use` has errors of its own; they are listed against that file.' },
+  'bias-current-low': { severity: 'warning', title: 'Bias current below the sound window', doc: 'Below the window (default 1 µA) reverse leakage, surface currents and ADC input leakage become a visible share of the bias and noise pickup grows (common practice).' },
+  'bias-current-high': { severity: 'warning', title: 'Bias current above the sound window', doc: 'Above the window (default 1 mA) self-heating of a small-signal part and the drop on its series resistance become visible errors (common practice).' },
+  'clip-high': { severity: 'error', title: 'Sensed voltage above the ADC reference', doc: 'Somewhere in the range the sensed voltage exceeds the reference: the ADC saturates at full scale.' },
+  'clip-low': { severity: 'error', title: 'Sensed voltage below zero', doc: 'Somewhere in the range the sensed voltage is below 0 V: the ADC reads zero.' },
+  'clip-tolerance': { severity: 'warning', title: 'Clips at the low end of the reference tolerance', doc: 'With the reference at the low end of its tolerance the sensed voltage exceeds it.' },
+  'resolution-short': { severity: 'warning', title: 'Resolution worse than required', doc: 'At the worst point of the range one ADC count spans more temperature than the resolution target allows.' },
+  'self-heating': { severity: 'warning', title: 'Self-heating eats the accuracy budget', doc: 'The power dissipated in the sensor times its thermal resistance exceeds a share (default 10 %) of the accuracy target.' },
+  'nonlinearity': { severity: 'warning', title: 'Straight-line conversion misses the accuracy target', doc: 'With `conversion = line`, the deviation of the best-fit straight line from the sensor over the range exceeds the accuracy target.' },
+  'outside-rated': { severity: 'warning', title: 'Range outside the part\'s rated junction range', doc: 'The channel range reaches beyond the junction temperatures the part is rated for.' },
+  'supply-too-low': { severity: 'error', title: 'Supply too low to forward-bias the junction', doc: 'Even with the resistor shorted the supply cannot push the minimum sound current through the junction at the cold end.' },
+  'source-impedance': { severity: 'warning', title: 'Source impedance above the ADC maximum', doc: 'The sensor node\'s source impedance exceeds the maximum the ADC states: the sample capacitor will not settle. Add a capacitor at the ADC input or a buffer.' },
+} satisfies Record<string, CodeInfo>;
+
+export type DiagnosticCode = keyof typeof CATALOGUE;
+
+export function codeInfo(code: DiagnosticCode): CodeInfo {
+  return CATALOGUE[code];
+}

@@ -1,0 +1,21 @@
+// The channel checks, run in this order (supply before bias window, which defers to it).
+import type { CheckContext } from './context';
+import { checkSupply } from './supply';
+import { checkBiasWindow } from './bias-window';
+import { checkClip } from './clip';
+import { checkResolution } from './resolution';
+import { checkSelfHeating } from './self-heating';
+import { checkNonlinearity } from './nonlinearity';
+import { checkRated } from './rated';
+import { checkSourceImpedance } from './source-impedance';
+
+export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
+  checkSupply,
+  checkBiasWindow,
+  checkClip,
+  checkResolution,
+  checkSelfHeating,
+  checkNonlinearity,
+  checkRated,
+  checkSourceImpedance,
+];

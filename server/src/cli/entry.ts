@@ -1,0 +1,3 @@
+// Bundle entry of dist/cli.js.
+import { run } from './main';
+run();

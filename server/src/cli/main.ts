@@ -1,0 +1,54 @@
+// thermoscribe: the command-line face of the engine (check, report, gen, serve).
+import { runCheck, CHECK_USAGE } from './commands/check';
+import { runReport, REPORT_USAGE } from './commands/report';
+import { EXIT, type CliIO } from './io';
+import { VERSION } from './version';
+import { startServer } from '../lsp/start';
+
+const USAGE = `thermoscribe ${VERSION}: design checks for ADC temperature channels
+
+usage:
+  ${CHECK_USAGE}
+  ${REPORT_USAGE}
+  thermoscribe serve --stdio        start the language server on stdin/stdout
+  thermoscribe --version
+`;
+
+export function main(argv: string[], io: CliIO): number | 'serving' {
+  const [verb, ...rest] = argv;
+  switch (verb) {
+    case 'check':
+      return runCheck(rest, io);
+    case 'report':
+      return runReport(rest, io);
+    case 'serve': {
+      const code = startServer();
+      return code === 0 ? 'serving' : code;
+    }
+    case '--version':
+      io.out(VERSION + '\n');
+      return EXIT.clean;
+    case undefined:
+    case 'help':
+    case '--help':
+    case '-h':
+      io.out(USAGE);
+      return verb === undefined ? EXIT.unusable : EXIT.clean;
+    default:
+      io.err(`thermoscribe: unknown command '${verb}'\n${USAGE}`);
+      return EXIT.unusable;
+  }
+}
+
+/** Entry point of the bundled CLI. */
+export function run(): void {
+  const io: CliIO = { out: (t) => process.stdout.write(t), err: (t) => process.stderr.write(t), cwd: process.cwd() };
+  let code: number | 'serving';
+  try {
+    code = main(process.argv.slice(2), io);
+  } catch (err) {
+    io.err(`thermoscribe: internal error: ${err instanceof Error ? err.stack ?? err.message : String(err)}\n`);
+    code = EXIT.unusable;
+  }
+  if (code !== 'serving') process.exitCode = code;
+}

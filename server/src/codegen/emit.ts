@@ -1,0 +1,297 @@
+// C99 text for one channel. Integer-only unless the float variant is asked for; no libm ever.
+// Every constant below comes from a design that was simulated exactly in TypeScript first.
+
+import { GAIN_Q, type TrimDesign } from './calibration';
+import { commentLines } from './names';
+import type { PolyDesign } from './polynomial';
+import type { TableDesign } from './table';
+
+export interface ChannelPlan {
+  name: string;
+  ident: string;
+  bits: number;
+  low: number;
+  high: number;
+  scale: number;
+  dir: 1 | -1;
+  design: TableDesign | PolyDesign;
+  trim: TrimDesign;
+  outBits: 16 | 32;
+  /** The trimmed output can leave the output type's range: clamp in C. */
+  needClamp: boolean;
+  floatVariant: boolean;
+  maxErrorC: number;
+  errorTarget: number;
+  note?: string;
+}
+
+const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
+#define THSC_STATUS_CODES 1
+#define THSC_IN_RANGE      0u /* code inside the designed range */
+#define THSC_CLAMPED_COLD  1u /* colder than the range: output pinned to the coldest end */
+#define THSC_CLAMPED_HOT   2u /* hotter than the range: output pinned to the hottest end */
+#endif`;
+
+const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
+#define THSC_IMPL_HELPERS 1
+#ifdef __AVR__
+#include <avr/pgmspace.h> /* tables stay in flash on 8-bit AVR */
+#define THSC_ROM PROGMEM
+#define THSC_RD16(p) ((int16_t)pgm_read_word(p))
+#define THSC_RD32(p) ((int32_t)pgm_read_dword(p))
+#else
+#define THSC_ROM
+#define THSC_RD16(p) (*(p))
+#define THSC_RD32(p) (*(p))
+#endif
+/* floor(v / 2^k) for any int32 v and 1 <= k <= 31, without the implementation-defined right
+   shift of a negative number (C99 6.5.7p5): bias into uint32, shift, remove the bias. */
+#define THSC_ASR32(v, k) ((int32_t)(((uint32_t)(v) + 0x80000000UL) >> (k)) - (int32_t)(0x80000000UL >> (k)))
+#endif`;
+
+export const CAUTION_LINES = [
+  'CAUTION: generated from a design model, not from measurements of your hardware. Not for',
+  'safety-critical use on its own (heaters, cold chains, batteries, mains). Verify the whole',
+  'channel against a calibrated reference thermometer over the full range, and follow the',
+  'applicable safety standards, local codes and licensed engineering practice.',
+];
+
+function lit32(v: number): string {
+  return v === -2147483648 ? '(-2147483647L - 1)' : `${v}L`;
+}
+
+function lit(v: number, bits: 16 | 32): string {
+  return bits === 32 ? lit32(v) : `${v}`;
+}
+
+function rows(values: string[], perRow: number, indent: string): string {
+  const out: string[] = [];
+  for (let i = 0; i < values.length; i += perRow) out.push(indent + values.slice(i, i + perRow).join(', '));
+  return out.join(',\n');
+}
+
+function names(p: ChannelPlan) {
+  const id = p.ident;
+  return {
+    id,
+    up: id.toUpperCase(),
+    fn: `${id}_code_to_temp`,
+    fnF: `${id}_code_to_celsius_f`,
+    setter: `${id}_set_trim`,
+    type: `${id}_temp_t`,
+    data: p.design.kind === 'table' ? `${id}_points` : `${id}_coefs`,
+    trims: `${id}_trims`,
+  };
+}
+
+function describe(p: ChannelPlan): string[] {
+  const d = p.design;
+  const what =
+    d.kind === 'table'
+      ? d.shift === 0
+        ? `direct table of ${d.entries.length} int${d.entryBits} values, one per code`
+        : `table of ${d.entries.length} int${d.entryBits} points every ${2 ** d.shift} codes, linear interpolation`
+      : `piecewise quadratic, ${d.coefs.length} segment(s) of ${2 ** d.shift} codes, int32 coefficients`;
+  const trim =
+    p.trim.mode === 'none'
+      ? 'no trim'
+      : p.trim.mode === 'offset'
+        ? `offset trim ${p.trim.offsetScaled}/${p.scale} degC${p.trim.runtime ? ' (settable at run time)' : ''}`
+        : `two-point trim: gain ${p.trim.gainQ}/2^${GAIN_Q}, offset ${p.trim.offsetScaled}/${p.scale} degC${p.trim.runtime ? ' (settable at run time)' : ''}`;
+  return [
+    `Channel ${commentLines(p.name, 1)[0] ?? ''}: ${p.bits}-bit ADC code -> temperature in 1/${p.scale} degC.`,
+    `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code).`,
+    `Method: ${what}; ${trim}.`,
+    `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
+    'from an exact simulation of this integer arithmetic.',
+    `${names(p).fn}() returns THSC_IN_RANGE, or THSC_CLAMPED_COLD / THSC_CLAMPED_HOT when the code is`,
+    'outside the range; the output is then pinned to the nearest range end (never wrapped).',
+  ];
+}
+
+function headComment(p: ChannelPlan): string {
+  const lines = describe(p);
+  if (p.note) {
+    lines.push('Note from the spec:');
+    for (const l of commentLines(p.note)) lines.push(`  ${l}`);
+  }
+  lines.push('Caution: verify against a calibrated reference thermometer; see the file header.');
+  return `/*\n${lines.map((l) => (l ? ` * ${l}` : ' *')).join('\n')}\n */`;
+}
+
+function declarations(p: ChannelPlan): string {
+  const n = names(p);
+  const out = [
+    `#define ${n.up}_SCALE ${p.scale} /* output units per degC */`,
+    `typedef int${p.outBits}_t ${n.type};`,
+    `uint8_t ${n.fn}(uint16_t code, ${n.type} *out);`,
+  ];
+  if (p.trim.runtime) {
+    out.push(
+      p.trim.mode === 'offset'
+        ? `void ${n.setter}(int16_t offset_units); /* offset in 1/${p.scale} degC */`
+        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
+    );
+  }
+  if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
+  return out.join('\n');
+}
+
+export function emitHeaderBody(p: ChannelPlan): string {
+  return `${headComment(p)}\n#include <stdint.h>\n${SHARED_STATUS}\n${declarations(p)}\n`;
+}
+
+function clampCode(p: ChannelPlan): string[] {
+  const below = p.dir > 0 ? 'THSC_CLAMPED_COLD' : 'THSC_CLAMPED_HOT';
+  const above = p.dir > 0 ? 'THSC_CLAMPED_HOT' : 'THSC_CLAMPED_COLD';
+  const out: string[] = [];
+  // Comparisons that can never be true are left out (-Wtype-limits under -Wextra).
+  const lowTest = p.low > 0 ? `code < ${p.low}u` : undefined;
+  const highTest = p.high < 65535 ? `code > ${p.high}u` : undefined;
+  if (lowTest) out.push(`    if (${lowTest}) { code = ${p.low}u; status = ${below}; }`);
+  if (highTest) out.push(`    ${lowTest ? 'else ' : ''}if (${highTest}) { code = ${p.high}u; status = ${above}; }`);
+  return out;
+}
+
+/** Statements computing `kernel` (type int16_t or int32_t named by the return) from `code`. */
+function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string[]; body: string[]; wide: boolean } {
+  const d = p.design;
+  if (d.kind === 'polynomial') {
+    const h = 2 ** d.shift;
+    return {
+      wide: true,
+      decl: ['    uint16_t off, idx;', '    int32_t x, c1, c2, acc, kernel;'],
+      body: [
+        `    off = (uint16_t)(code - ${p.low}u);`,
+        `    idx = (uint16_t)(off >> ${d.shift});`,
+        `    x = (int32_t)(off & ${h - 1}u);`,
+        `    c1 = THSC_RD32(&${n.data}[idx][1]);`,
+        `    c2 = THSC_RD32(&${n.data}[idx][2]);`,
+        `    acc = c1 + THSC_ASR32(c2 * x, ${d.k2});`,
+        `    kernel = THSC_RD32(&${n.data}[idx][0]) + THSC_ASR32(x * acc + ${lit32(2 ** (d.k1 - 1))}, ${d.k1});`,
+      ],
+    };
+  }
+  const rd = d.entryBits === 16 ? 'THSC_RD16' : 'THSC_RD32';
+  if (d.shift === 0) {
+    const wide = d.entryBits === 32;
+    return {
+      wide,
+      decl: [`    ${wide ? 'int32_t' : 'int16_t'} kernel;`],
+      body: [`    kernel = ${rd}(&${n.data}[code - ${p.low}u]);`],
+    };
+  }
+  const h = 2 ** d.shift;
+  const wide = d.entryBits === 32 || d.spanMax > 32767;
+  const S = wide ? 'int32_t' : 'int16_t';
+  const U = wide ? 'uint32_t' : 'uint16_t';
+  const mul =
+    d.mulBits === 16 && !wide
+      ? `(uint16_t)((uint16_t)(span * frac + ${h / 2}u) >> ${d.shift})`
+      : `(${U})(((uint32_t)span * frac + ${h / 2}UL) >> ${d.shift})`;
+  const spanExpr = p.dir > 0 ? `(${U})(${rd}(&${n.data}[idx + 1u]) - a)` : `(${U})(a - ${rd}(&${n.data}[idx + 1u]))`;
+  return {
+    wide,
+    decl: ['    uint16_t off, idx, frac;', `    ${U} span, step;`, `    ${S} a, kernel;`],
+    body: [
+      `    off = (uint16_t)(code - ${p.low}u);`,
+      `    idx = (uint16_t)(off >> ${d.shift});`,
+      `    frac = (uint16_t)(off & ${h - 1}u);`,
+      `    a = ${rd}(&${n.data}[idx]);`,
+      `    span = ${spanExpr}; /* >= 0: the points are monotonic */`,
+      `    step = ${mul};`,
+      `    kernel = (${S})(a ${p.dir > 0 ? '+' : '-'} (${S})step);`,
+    ],
+  };
+}
+
+function trimExpr(p: ChannelPlan, n: ReturnType<typeof names>, value: string): string {
+  const off = p.trim.runtime ? `(int32_t)${n.trims}.offset` : lit32(p.trim.offsetScaled);
+  const gain = p.trim.runtime ? `(int32_t)${n.trims}.gain_q${GAIN_Q}` : lit32(p.trim.gainQ);
+  if (p.trim.mode === 'offset') return `(int32_t)${value} + ${off}`;
+  return `THSC_ASR32((int32_t)${value} * ${gain} + ${lit32(2 ** (GAIN_Q - 1))}, ${GAIN_Q}) + ${off}`;
+}
+
+function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
+  const d = p.design;
+  if (d.kind === 'table') {
+    const t = d.entryBits === 16 ? 'int16_t' : 'int32_t';
+    const vals = d.entries.map((v) => lit(v, d.entryBits));
+    return `static const ${t} ${n.data}[${vals.length}] THSC_ROM = {\n${rows(vals, 8, '    ')}\n};`;
+  }
+  const segs = d.coefs.map((c) => `{ ${c.map(lit32).join(', ')} }`);
+  return `static const int32_t ${n.data}[${segs.length}][3] THSC_ROM = {\n${rows(segs, 2, '    ')}\n};`;
+}
+
+export function emitSourceBody(p: ChannelPlan): string {
+  const n = names(p);
+  const k = kernelCode(p, n);
+  const outT = `int${p.outBits}_t`;
+  const parts: string[] = [headComment(p), '#include <stdint.h>', SHARED_STATUS, SHARED_IMPL, declarations(p), dataCode(p, n)];
+  if (p.trim.runtime) {
+    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : `int16_t offset; uint16_t gain_q${GAIN_Q};`;
+    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainQ}u`;
+    parts.push(`static struct { ${fields} } ${n.trims} = { ${init} };`);
+    parts.push(
+      p.trim.mode === 'offset'
+        ? `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`
+        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q})\n{\n    ${n.trims}.offset = offset_units;\n    ${n.trims}.gain_q${GAIN_Q} = gain_q${GAIN_Q};\n}`,
+    );
+  }
+  const lines: string[] = [`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    uint8_t status = THSC_IN_RANGE;', ...k.decl];
+  if (p.trim.mode !== 'none') lines.push('    int32_t trimmed;');
+  lines.push(...clampCode(p), ...k.body);
+  if (p.trim.mode === 'none') {
+    lines.push(`    *out = (${outT})kernel;`);
+  } else {
+    lines.push(`    trimmed = ${trimExpr(p, n, 'kernel')};`);
+    if (p.needClamp && p.outBits === 16) {
+      lines.push('    if (trimmed > 32767L) trimmed = 32767L; /* never wrap */');
+      lines.push('    else if (trimmed < -32768L) trimmed = -32768L;');
+    }
+    lines.push(`    *out = (${outT})trimmed;`);
+  }
+  lines.push('    return status;', '}');
+  parts.push(lines.join('\n'));
+  if (p.floatVariant) parts.push(floatVariant(p, n));
+  return `${parts.join('\n')}\n`;
+}
+
+/** Same points, float interpolation without the integer rounding; no libm. */
+function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
+  const d = p.design;
+  const lines = [`uint8_t ${n.fnF}(uint16_t code, float *celsius)`, '{', '    uint8_t status = THSC_IN_RANGE;'];
+  if (d.kind === 'table' && d.shift > 0) {
+    lines.push('    uint16_t off, idx;', '    float a, b, y;');
+  } else if (d.kind === 'polynomial') {
+    lines.push(`    ${n.type} v;`);
+  } else {
+    lines.push('    float y;');
+  }
+  lines.push(...clampCode(p));
+  const rd = d.kind === 'table' && d.entryBits === 16 ? 'THSC_RD16' : 'THSC_RD32';
+  if (d.kind === 'table' && d.shift > 0) {
+    lines.push(
+      `    off = (uint16_t)(code - ${p.low}u);`,
+      `    idx = (uint16_t)(off >> ${d.shift});`,
+      `    a = (float)${rd}(&${n.data}[idx]);`,
+      `    b = (float)${rd}(&${n.data}[idx + 1u]);`,
+      `    y = a + (b - a) * ((float)(off & ${2 ** d.shift - 1}u) / ${2 ** d.shift}.0f);`,
+    );
+  } else if (d.kind === 'table') {
+    lines.push(`    y = (float)${rd}(&${n.data}[code - ${p.low}u]);`);
+  } else {
+    // The polynomial's integer result already carries the trim; convert and return.
+    lines.push(`    (void)${n.fn}(code, &v);`, `    *celsius = (float)v / ${p.scale}.0f;`, '    return status;', '}');
+    return lines.join('\n');
+  }
+  if (p.trim.mode === 'offset') {
+    lines.push(`    y += (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`);
+  } else if (p.trim.mode === 'two-point') {
+    lines.push(
+      `    y = y * ((float)${p.trim.runtime ? `${n.trims}.gain_q${GAIN_Q}` : p.trim.gainQ} / ${2 ** GAIN_Q}.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
+    );
+  }
+  lines.push(`    *celsius = y / ${p.scale}.0f;`, '    return status;', '}');
+  return lines.join('\n');
+}

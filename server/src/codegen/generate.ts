@@ -1,0 +1,250 @@
+// generateC: validates each channel, samples its model at every in-range code, picks the smallest
+// design (table or piecewise quadratic) that meets the error target in exact integer simulation,
+// and emits marker-wrapped C blocks.
+
+import { INT16_MAX, INT16_MIN } from './arith';
+import { trimDesign } from './calibration';
+import { CAUTION_LINES, emitHeaderBody, emitSourceBody, type ChannelPlan } from './emit';
+import { renderBlock } from './markers';
+import { commentLines, uniqueIdentifiers } from './names';
+import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
+import { finish, makeIdeal, type Samples } from './samples';
+import { designTable, tableKernel, type TableDesign } from './table';
+import {
+  CodegenInputError,
+  type ConversionInput,
+  type GenerateOptions,
+  type GenerateResult,
+  type GeneratedChannel,
+} from './types';
+
+/** Flash bytes of the code around the data, 8-bit AVR at -Os (measured with avr-size; see tests). */
+const CODE_BYTES = {
+  table16: 90,
+  table32: 150,
+  direct: 40,
+  polynomial: 230,
+  offsetTrim: 16,
+  gainTrim: 90,
+  runtimeTrim: 30,
+} as const;
+
+const MAX_CODES = 65536;
+
+function fail(c: ConversionInput, field: string, msg: string): never {
+  throw new CodegenInputError(String(c.channelName), field, msg);
+}
+
+/** Throws CodegenInputError naming the field and the accepted range. */
+export function validateInput(c: ConversionInput): void {
+  if (typeof c.channelName !== 'string') fail(c, 'channelName', 'must be a string');
+  if (!Number.isInteger(c.bits) || c.bits < 1 || c.bits > 16) fail(c, 'bits', `must be an integer 1..16, got ${c.bits}`);
+  const top = 2 ** c.bits - 1;
+  if (!Number.isInteger(c.codeLow) || c.codeLow < 0 || c.codeLow > top)
+    fail(c, 'codeLow', `must be an integer 0..${top}, got ${c.codeLow}`);
+  if (!Number.isInteger(c.codeHigh) || c.codeHigh < c.codeLow || c.codeHigh > top)
+    fail(c, 'codeHigh', `must be an integer ${c.codeLow}..${top} (codeLow..2^bits-1), got ${c.codeHigh}`);
+  if (!Number.isInteger(c.outputScale) || c.outputScale < 1 || c.outputScale > 10000)
+    fail(c, 'outputScale', `must be an integer 1..10000, got ${c.outputScale}`);
+  if (!Number.isFinite(c.errorTarget) || c.errorTarget <= 0 || c.errorTarget > 100)
+    fail(c, 'errorTarget', `must be a number in (0, 100] degC, got ${c.errorTarget}`);
+  if (c.errorTarget * c.outputScale < 0.5)
+    fail(c, 'errorTarget', `${c.errorTarget} degC is below half an output unit (0.5/${c.outputScale} degC); raise outputScale or the target`);
+  if (!['auto', 'table', 'polynomial'].includes(c.method)) fail(c, 'method', `must be auto, table or polynomial, got ${String(c.method)}`);
+  const cal = c.calibration;
+  if (!cal || !['none', 'offset', 'two-point'].includes(cal.mode))
+    fail(c, 'calibration.mode', `must be none, offset or two-point, got ${String(cal?.mode)}`);
+  if (cal.offset !== undefined && (!Number.isFinite(cal.offset) || Math.abs(cal.offset * c.outputScale) > 32767))
+    fail(c, 'calibration.offset', `must be finite with |offset| <= ${(32767 / c.outputScale).toFixed(2)} degC, got ${cal.offset}`);
+  if (cal.gain !== undefined && (!Number.isFinite(cal.gain) || cal.gain < 0.5 || cal.gain > 2))
+    fail(c, 'calibration.gain', `must be in 0.5..2, got ${cal.gain}`);
+  if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
+  if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
+}
+
+function sample(c: ConversionInput): Samples {
+  const n = c.codeHigh - c.codeLow + 1;
+  if (n > MAX_CODES) fail(c, 'codeHigh', `range too wide (${n} codes)`);
+  const f = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    let v: number;
+    try {
+      v = c.celsiusAtCode(c.codeLow + k);
+    } catch (e) {
+      fail(c, 'celsiusAtCode', `threw at code ${c.codeLow + k}: ${(e as Error).message}`);
+    }
+    if (!Number.isFinite(v) || Math.abs(v) > 10000)
+      fail(c, 'celsiusAtCode', `gave ${v} at code ${c.codeLow + k}; expected a finite temperature within +-10000 degC`);
+    f[k] = v * c.outputScale;
+    if (Math.abs(f[k]!) > 2 ** 30) fail(c, 'outputScale', `scaled temperature ${f[k]} at code ${c.codeLow + k} exceeds 2^30`);
+  }
+  const dir: 1 | -1 = n > 1 && f[n - 1]! < f[0]! ? -1 : 1;
+  for (let k = 1; k < n; k++) {
+    if ((f[k]! - f[k - 1]!) * dir < 0)
+      fail(c, 'celsiusAtCode', `not monotonic: ${f[k - 1]! / c.outputScale} degC at code ${c.codeLow + k - 1}, ${f[k]! / c.outputScale} degC at code ${c.codeLow + k}`);
+  }
+  const trim = trimDesign(c.calibration, c.outputScale);
+  let fmax = 0;
+  for (const v of f) fmax = Math.max(fmax, Math.abs(v));
+  const outBits: 16 | 32 = fmax * (trim.mode === 'two-point' ? 2 : 1) + Math.abs(trim.offsetScaled) + 2 <= INT16_MAX ? 16 : 32;
+  if (trim.mode === 'two-point' && outBits === 32)
+    fail(c, 'outputScale', `two-point trim needs |temperature x outputScale| < 16384; got up to ${Math.round(fmax)}`);
+  return {
+    low: c.codeLow,
+    high: c.codeHigh,
+    scale: c.outputScale,
+    f,
+    ideal: makeIdeal(f, trim, c.outputScale),
+    dir,
+    trim,
+    outMin: outBits === 16 ? INT16_MIN : -2147483648,
+    outMax: outBits === 16 ? INT16_MAX : 2147483647,
+  };
+}
+
+type Design = TableDesign | PolyDesign;
+
+function codeBytes(d: Design, s: Samples): number {
+  let b: number = d.kind === 'polynomial' ? CODE_BYTES.polynomial : d.shift === 0 ? CODE_BYTES.direct : d.entryBits === 16 && d.spanMax <= 32767 ? CODE_BYTES.table16 : CODE_BYTES.table32;
+  if (s.trim.mode === 'offset') b += CODE_BYTES.offsetTrim;
+  if (s.trim.mode === 'two-point') b += CODE_BYTES.gainTrim;
+  if (s.trim.runtime) b += CODE_BYTES.runtimeTrim;
+  return b;
+}
+
+function dataBytes(d: Design): number {
+  return d.kind === 'table' ? d.entries.length * (d.entryBits / 8) : d.coefs.length * 12;
+}
+
+export function kernelAt(d: Design, s: Samples, code: number): number {
+  return d.kind === 'table' ? tableKernel(d, s.low, s.dir, code) : polyKernel(d, s.low, code);
+}
+
+interface Choice {
+  design: Design;
+  maxErr: number;
+  bytes: number;
+}
+
+function choose(c: ConversionInput, s: Samples): Choice {
+  const target = c.errorTarget * c.outputScale;
+  const n = s.high - s.low + 1;
+  const maxShift = Math.min(15, Math.max(0, Math.ceil(Math.log2(Math.max(1, n)))));
+  const candidates: Choice[] = [];
+  let bestMissed: Choice | undefined;
+  const consider = (r: { design: Design; maxErr: number } | undefined) => {
+    if (!r) return;
+    const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) };
+    if (r.maxErr <= target + 1e-9) candidates.push(ch);
+    else if (!bestMissed || r.maxErr < bestMissed.maxErr) bestMissed = ch;
+  };
+  if (c.method !== 'polynomial') {
+    // From wide spacing down; stop at the first spacing that meets the target twice in a row
+    // narrower: narrower tables are only bigger.
+    for (let sh = maxShift; sh >= 0; sh--) {
+      const before = candidates.length;
+      consider(designTable(s, sh));
+      if (candidates.length > before && candidates.some((x) => x.design.kind === 'table' && x.design.shift === sh + 1)) break;
+    }
+  }
+  if (c.method !== 'table') {
+    for (let sh = maxShift; sh >= 1; sh--) {
+      const before = candidates.length;
+      consider(designPolynomial(s, sh));
+      if (candidates.length > before && candidates.some((x) => x.design.kind === 'polynomial' && x.design.shift === sh + 1)) break;
+    }
+  }
+  if (candidates.length === 0) {
+    const best = bestMissed ? ` (best reached: ${(bestMissed.maxErr / c.outputScale).toFixed(4)} degC)` : '';
+    fail(c, 'errorTarget', `${c.errorTarget} degC cannot be met by the ${c.method} method${best}; raise the target or outputScale`);
+  }
+  // Fewest bytes; ties: smaller error, then table before polynomial, then wider spacing.
+  candidates.sort((a, b) => a.bytes - b.bytes || a.maxErr - b.maxErr || (a.design.kind === 'table' ? -1 : 1) - (b.design.kind === 'table' ? -1 : 1) || b.design.shift - a.design.shift);
+  return candidates[0]!;
+}
+
+const FILE_HEADER = (stem: string, header: boolean) => {
+  const lines = [
+    `${commentLines(stem, 1)[0] ?? ''}${header ? '.h' : '.c'}: ADC code -> temperature conversions generated by Thermoscribe.`,
+    'Only the text between each channel\'s begin/end markers is regenerated; code outside them is yours.',
+    '',
+    ...CAUTION_LINES,
+  ];
+  return `/*\n${lines.map((l) => (l ? ` * ${l}` : ' *')).join('\n')}\n */\n`;
+};
+
+function guardName(stem: string): string {
+  const g = stem.normalize('NFKD').replace(/[^A-Za-z0-9]+/g, '_').replace(/^_+|_+$/g, '').toUpperCase();
+  return `THSC_${g || 'CONVERSIONS'}_H`;
+}
+
+/** Plans (validated and designed) for each input, in order; shared by generateC and the tests. */
+export function planChannels(inputs: readonly ConversionInput[]): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
+  for (const c of inputs) validateInput(c);
+  const seen = new Set<string>();
+  for (const c of inputs) {
+    if (seen.has(c.channelName)) fail(c, 'channelName', 'two channels have this name; markers need unique names');
+    seen.add(c.channelName);
+  }
+  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName));
+  const plans: ChannelPlan[] = [];
+  const samples: Samples[] = [];
+  const bytes: number[] = [];
+  inputs.forEach((c, i) => {
+    const s = sample(c);
+    const ch = choose(c, s);
+    let lo = Infinity;
+    let hi = -Infinity;
+    let worst = 0;
+    for (let code = s.low; code <= s.high; code++) {
+      const k = kernelAt(ch.design, s, code);
+      const t = s.trim.mode === 'none' ? k : s.trim.mode === 'offset' ? k + s.trim.offsetScaled : (k * s.trim.gainQ) / 16384 + s.trim.offsetScaled;
+      lo = Math.min(lo, t);
+      hi = Math.max(hi, t);
+      worst = Math.max(worst, Math.abs(finish(s, k) - s.ideal[code - s.low]!));
+    }
+    const outBits: 16 | 32 = s.outMax === INT16_MAX ? 16 : 32;
+    plans.push({
+      name: c.channelName,
+      ident: ids[i]!,
+      bits: c.bits,
+      low: c.codeLow,
+      high: c.codeHigh,
+      scale: c.outputScale,
+      dir: s.dir,
+      design: ch.design,
+      trim: s.trim,
+      outBits,
+      needClamp: s.trim.runtime || lo - 1 < s.outMin || hi + 1 > s.outMax,
+      floatVariant: c.floatVariant,
+      maxErrorC: worst / c.outputScale,
+      errorTarget: c.errorTarget,
+      note: c.note,
+    });
+    samples.push(s);
+    bytes.push(ch.bytes + (c.floatVariant ? 120 : 0));
+  });
+  return { plans, samples, bytes };
+}
+
+export function generateC(inputs: ConversionInput[], options: GenerateOptions): GenerateResult {
+  const { plans, bytes } = planChannels(inputs);
+  const header = options.header === true;
+  const channels: GeneratedChannel[] = plans.map((p, i) => ({
+    identifier: p.ident,
+    code: header ? emitHeaderBody(p) : emitSourceBody(p),
+    bytesEstimate: bytes[i]!,
+    maxErrorC: p.maxErrorC,
+    method: p.design.kind,
+    entries: p.design.kind === 'table' ? p.design.entries.length : p.design.coefs.length,
+  }));
+  const blocks = channels.map((ch, i) => renderBlock({ channel: inputs[i]!.channelName, hash: inputs[i]!.specHash, text: ch.code }));
+  let text = FILE_HEADER(options.fileStem, header);
+  if (header) {
+    const g = guardName(options.fileStem);
+    text += `#ifndef ${g}\n#define ${g}\n#ifdef __cplusplus\nextern "C" {\n#endif\n\n${blocks.join('\n')}\n#ifdef __cplusplus\n}\n#endif\n#endif /* ${g} */\n`;
+  } else {
+    text += `\n${blocks.join('\n')}`;
+  }
+  return { text, channels };
+}

@@ -1,0 +1,46 @@
+// The model sampled at every in-range code, and the error measure every design is judged by.
+
+import { clamp } from './arith';
+import { applyTrim, idealTrimmed, type TrimDesign } from './calibration';
+
+export interface Samples {
+  low: number;
+  high: number;
+  scale: number;
+  /** scale * celsiusAtCode(code) for code = low..high. */
+  f: Float64Array;
+  /** What the trimmed output should be at each code (output units). */
+  ideal: Float64Array;
+  /** +1 when temperature rises with code, -1 when it falls. */
+  dir: 1 | -1;
+  trim: TrimDesign;
+  /** Output type range the C clamps to. */
+  outMin: number;
+  outMax: number;
+}
+
+/** Scaled model value at any (possibly out-of-range, fractional) code: linear extrapolation outside. */
+export function modelAt(s: Samples, code: number): number {
+  const n = s.f.length;
+  if (n === 1) return s.f[0]!;
+  const i = clamp(Math.floor(code - s.low), 0, n - 2);
+  const a = s.f[i]!;
+  const b = s.f[i + 1]!;
+  return a + (b - a) * (code - s.low - i);
+}
+
+/** Final output (trim + clamp) from a kernel value. */
+export function finish(s: Samples, kernel: number): number {
+  return clamp(applyTrim(s.trim, kernel), s.outMin, s.outMax);
+}
+
+/** |output - ideal| in output units at in-range code index k. */
+export function errAt(s: Samples, k: number, kernel: number): number {
+  return Math.abs(finish(s, kernel) - s.ideal[k]!);
+}
+
+export function makeIdeal(f: Float64Array, trim: TrimDesign, scale: number): Float64Array {
+  const out = new Float64Array(f.length);
+  for (let k = 0; k < f.length; k++) out[k] = idealTrimmed(trim, f[k]!, scale);
+  return out;
+}

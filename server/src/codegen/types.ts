@@ -1,0 +1,97 @@
+// Contract of the conversion-code generator. Pure data in, C text out: no file IO, no editor APIs.
+
+export interface ConversionInput {
+  /** Channel name from the spec; the generator derives a valid, unique C identifier from it. */
+  channelName: string;
+  /** ADC resolution, bits (1..16). */
+  bits: number;
+  /** Inclusive in-range ADC codes (the channel's designed temperature range). */
+  codeLow: number;
+  codeHigh: number;
+  /**
+   * Exact model inverse, degC, at the centre of a code (code + 0.5 LSB). Accepts fractional codes.
+   * Monotonic (rising or falling) on [codeLow, codeHigh].
+   */
+  celsiusAtCode(code: number): number;
+  /** Fixed-point unit of the output: 100 => signed hundredths of a degC. */
+  outputScale: number;
+  /** degC, max error allowed vs the model over every in-range code (callers default it to 0.02). */
+  errorTarget: number;
+  method: 'auto' | 'table' | 'polynomial';
+  calibration: {
+    mode: 'none' | 'offset' | 'two-point';
+    /** degC added after the conversion (offset and two-point modes). */
+    offset?: number;
+    /** Dimensionless slope correction (two-point mode), 0.5..2. */
+    gain?: number;
+    /** true: the trims live in a small struct the firmware can set at run time. */
+    runtime: boolean;
+  };
+  /** Also emit a float function (uses float arithmetic but no libm). */
+  floatVariant: boolean;
+  /** Hash of the channel's spec text; written into the block markers. */
+  specHash: string;
+  /** Free text from the spec, written into a comment after sanitising. */
+  note?: string;
+}
+
+export interface GeneratedChannel {
+  /** C identifier prefix of everything emitted for this channel. */
+  identifier: string;
+  /** The block body (text between the channel's markers), as given to spliceGenerated. */
+  code: string;
+  /** Estimated flash bytes (table + code) on an 8-bit AVR at -Os. */
+  bytesEstimate: number;
+  /** Max |output - model| over every in-range code, degC, from simulating the exact C integer arithmetic. */
+  maxErrorC: number;
+  /** 'table' or 'polynomial' (the one chosen). */
+  method: string;
+  /** Table entries (table) or segments (polynomial). */
+  entries: number;
+}
+
+export interface GenerateOptions {
+  /** File name without extension; used for the include guard of the header. */
+  fileStem: string;
+  /** true: emit the header (declarations); false/absent: the C source (definitions). */
+  header?: boolean;
+}
+
+export interface GenerateResult {
+  text: string;
+  channels: GeneratedChannel[];
+}
+
+export interface SpliceBlock {
+  /** Channel name as written in the spec (the marker carries it, encoded). */
+  channel: string;
+  hash: string;
+  /** Block body: GeneratedChannel.code. */
+  text: string;
+}
+
+export type SpliceResult = { ok: true; text: string } | { ok: false; message: string; offset: number };
+
+export interface FoundBlock {
+  channel: string;
+  hash: string;
+  /** UTF-16 offset of the first character of the begin marker line. */
+  start: number;
+  /** UTF-16 offset just past the end marker line (including its newline when present). */
+  end: number;
+  /** Offsets of the body between the marker lines. */
+  bodyStart: number;
+  bodyEnd: number;
+}
+
+/** Thrown by generateC for input outside the documented ranges; `field` names the offending input. */
+export class CodegenInputError extends Error {
+  constructor(
+    readonly channel: string,
+    readonly field: string,
+    message: string,
+  ) {
+    super(`channel "${channel}": ${field}: ${message}`);
+    this.name = 'CodegenInputError';
+  }
+}

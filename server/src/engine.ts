@@ -1,0 +1,82 @@
+// The engine's façade: the whole API that the CLI and the language server call.
+// Text in, syntax tree + model + per-channel results + diagnostics out. No IO, no editor types.
+import * as path from 'node:path';
+import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
+import { CHANNEL_CHECKS } from './checks/index';
+import { analyseChannel } from './analysis/sweep';
+import type { ChannelResult } from './analysis/types';
+import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
+import { resolveModel, type Resolution } from './model/resolve';
+
+export type { Diagnostic } from './checks/diagnostic';
+export type { SourceHost, LoadedFile } from './model/workspace';
+export type { ChannelResult, SweepPoint, ChannelSummary } from './analysis/types';
+export type { ChannelDef, JunctionDef, AdcDef } from './model/types';
+export { CATALOGUE, type DiagnosticCode, type Severity } from './checks/catalogue';
+export { LineIndex } from './syntax/line-index';
+
+export interface AnalyseInput {
+  /** Absolute path of the spec (for an unsaved buffer, any absolute path in its folder). */
+  path: string;
+  text: string;
+  /** Workspace root: `use` may not leave it. Defaults to the file's own folder. */
+  root?: string;
+  /** Reads files brought in with `use`. Defaults to a host that reads nothing. */
+  host?: SourceHost;
+}
+
+export interface Analysis {
+  path: string;
+  /** The entry file first, then every file it uses. */
+  files: LoadedFile[];
+  model: Resolution;
+  channels: ChannelResult[];
+  /** Every diagnostic, of the entry file and of used files (see `file`). */
+  diagnostics: Diagnostic[];
+}
+
+const NO_FILES: SourceHost = { read: () => undefined };
+
+export function analyse(input: AnalyseInput): Analysis {
+  const entry = path.resolve(input.path);
+  const root = path.resolve(input.root ?? path.dirname(entry));
+  const sink = new DiagnosticSink();
+  const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink);
+  const model = resolveModel(files, sink);
+  const channels: ChannelResult[] = [];
+  for (const c of model.channels) {
+    try {
+      const result = analyseChannel(c);
+      channels.push(result);
+      const reported = new Set<string>();
+      for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink, reported });
+    } catch (err) {
+      // The resolver checks domains first; a physics guard firing here is still reported, not thrown.
+      sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}' cannot be analysed: ${err instanceof Error ? err.message : String(err)}`);
+    }
+  }
+  reportUsedFileProblems(files, sink);
+  const diagnostics = sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1));
+  return { path: entry, files, model, channels, diagnostics };
+}
+
+/** One diagnostic on each `use` line whose file (or a file it uses) has errors. */
+function reportUsedFileProblems(files: LoadedFile[], sink: DiagnosticSink): void {
+  const errorsIn = new Map<string, number>();
+  for (const d of sink.items) if (d.severity === 'error') errorsIn.set(d.file, (errorsIn.get(d.file) ?? 0) + 1);
+  const byPath = new Map(files.map((f) => [f.path, f]));
+  const countBelow = (file: string, seen: Set<string>): number => {
+    if (seen.has(file)) return 0;
+    seen.add(file);
+    let n = errorsIn.get(file) ?? 0;
+    for (const u of byPath.get(file)?.uses ?? []) if (u.target) n += countBelow(u.target, seen);
+    return n;
+  };
+  for (const f of files) {
+    for (const u of f.uses) {
+      if (!u.target || !byPath.has(u.target)) continue;
+      const n = countBelow(u.target, new Set([f.path]));
+      if (n > 0) sink.report('import-problems', f.path, u.node.path.span, `'${u.node.path.text}' has ${n} error${n === 1 ? '' : 's'} of its own`);
+    }
+  }
+}

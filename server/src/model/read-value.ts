@@ -1,0 +1,180 @@
+// Readers that turn a field's terms into numbers in base SI units, reporting every problem
+// with the span of the offending term. They return null when the value is unusable.
+import type { QuantityTerm, Span, Term } from '../syntax/ast';
+import type { DiagnosticSink } from '../checks/diagnostic';
+import { DIMENSION_WORDS, readUnit, type Dimension, type UnitInfo } from './units';
+import type { FieldForm } from './schema';
+import type { Toleranced } from './types';
+
+export interface ReadContext {
+  file: string;
+  sink: DiagnosticSink;
+  field: string;
+}
+
+type QuantityForm = Extract<FieldForm, { form: 'quantity' }>;
+
+export function spanOf(terms: Term[]): Span {
+  return { start: terms[0]!.span.start, end: terms[terms.length - 1]!.span.end };
+}
+
+/** Formats a base-unit value for messages: 4700 ohm -> "4.7 kΩ". */
+export function formatSI(value: number, unit: string, digits = 3): string {
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return `0 ${unit}`;
+  const prefixes: [number, string][] = [[1e9, 'G'], [1e6, 'M'], [1e3, 'k'], [1, ''], [1e-3, 'm'], [1e-6, 'µ'], [1e-9, 'n'], [1e-12, 'p'], [1e-15, 'f'], [1e-18, 'a']];
+  const abs = Math.abs(value);
+  for (const [scale, p] of prefixes) {
+    if (abs >= scale * 0.9995) return `${trimNumber(value / scale, digits)} ${p}${unit}`;
+  }
+  return `${value.toExponential(digits - 1)} ${unit}`;
+}
+
+export function trimNumber(v: number, digits: number): string {
+  return String(Number(v.toPrecision(digits)));
+}
+
+function unitOf(term: QuantityTerm, ctx: ReadContext): UnitInfo | null {
+  if (!term.unit) return null;
+  const u = readUnit(term.unit.text);
+  if (typeof u === 'string') {
+    ctx.sink.report('wrong-unit', ctx.file, term.unit.span, `${ctx.field}: ${u}`);
+    return null;
+  }
+  return u;
+}
+
+/**
+ * Reads one quantity in the given dimension. Resistances may omit the unit or give only a
+ * prefix (the resistor code of IEC 60062: 4k7, 10k); plain numbers need no unit.
+ */
+export function readQuantityValue(term: QuantityTerm, dimension: Dimension, ctx: ReadContext, difference = false): number | null {
+  const raw = term.number.value;
+  if (!Number.isFinite(raw)) {
+    ctx.sink.report('out-of-domain', ctx.file, term.number.span, `${ctx.field}: '${term.number.text}' is too large to be a number`);
+    return null;
+  }
+  const unit = term.unit ? unitOf(term, ctx) : undefined;
+  if (unit === null) return null;
+  if (unit === undefined || unit.prefixOnly) {
+    const scale = unit ? unit.scale : 1;
+    if (dimension === 'dimensionless' || dimension === 'resistance' || dimension === 'count') return raw * scale;
+    ctx.sink.report('wrong-unit', ctx.file, term.span, `${ctx.field} takes ${DIMENSION_WORDS[dimension]}: add a unit, e.g. ${exampleUnit(dimension)}`);
+    return null;
+  }
+  if (unit.dimension !== dimension) {
+    ctx.sink.report('wrong-unit', ctx.file, term.unit!.span, `${ctx.field} takes ${DIMENSION_WORDS[dimension]}, but '${term.unit!.text}' is ${DIMENSION_WORDS[unit.dimension]}`);
+    return null;
+  }
+  if (dimension === 'temperature') {
+    return difference ? raw * unit.scale : raw * unit.scale + unit.offset;
+  }
+  return raw * unit.scale;
+}
+
+function exampleUnit(d: Dimension): string {
+  const ex: Record<Dimension, string> = {
+    voltage: '3.3 V', current: '100 uA', resistance: '4k7', capacitance: '100 nF', temperature: '25 °C', energy: '1.11 eV',
+    power: '10 mW', 'thermal-resistance': '350 K/W', ratio: '1 %', count: '8 counts', dimensionless: '3',
+  };
+  return ex[d];
+}
+
+/** Relative tolerance from `± 1 %` (ratio) or `± 0.1 V` (absolute, divided by the value). */
+export function readTolerance(tol: QuantityTerm, nominal: number, dimension: Dimension, ctx: ReadContext): number | null {
+  const unit = tol.unit ? readUnit(tol.unit.text) : null;
+  if (typeof unit === 'string') {
+    ctx.sink.report('wrong-unit', ctx.file, tol.unit!.span, `${ctx.field}: ${unit}`);
+    return null;
+  }
+  let rel: number;
+  if (unit && unit.dimension === 'ratio') rel = tol.number.value * unit.scale;
+  else {
+    const abs = readQuantityValue(tol, dimension, ctx, true);
+    if (abs === null) return null;
+    if (nominal === 0) {
+      ctx.sink.report('bad-value', ctx.file, tol.span, `${ctx.field}: give the tolerance of a zero value in % or ppm`);
+      return null;
+    }
+    rel = Math.abs(abs / nominal);
+  }
+  if (!(rel >= 0) || rel >= 1) {
+    ctx.sink.report('out-of-domain', ctx.file, tol.span, `${ctx.field}: a tolerance must be from 0 % to below 100 % (found ${trimNumber(rel * 100, 4)} %)`);
+    return null;
+  }
+  return rel;
+}
+
+/** Checks the domain of a quantity field and reports a precise range when it is outside. */
+export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: string): boolean {
+  const lowOk = form.min === undefined || (form.minInclusive ? value >= form.min : value > form.min);
+  const highOk = form.max === undefined || value <= form.max;
+  const intOk = !form.integer || Number.isInteger(value);
+  if (lowOk && highOk && intOk) return true;
+  const parts: string[] = [];
+  if (form.min !== undefined) parts.push(form.minInclusive ? `at least ${form.min}` : `above ${form.min}`);
+  if (form.max !== undefined) parts.push(`at most ${form.max}`);
+  const kind = form.integer ? 'a whole number ' : '';
+  const base = form.dimension === 'temperature' ? ' K' : '';
+  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${shown})`);
+  return false;
+}
+
+/** Reads a quantity field, with its optional tolerance. */
+export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadContext): Toleranced | null {
+  const first = terms[0];
+  if (!first || first.kind !== 'quantity') {
+    ctx.sink.report('bad-value', ctx.file, spanOf(terms), `${ctx.field} takes ${DIMENSION_WORDS[form.dimension]}, e.g. ${exampleUnit(form.dimension)}`);
+    return null;
+  }
+  if (!noExtra(terms, 1, ctx)) return null;
+  const value = readQuantityValue(first, form.dimension, ctx, form.difference ?? false);
+  if (value === null) return null;
+  if (!checkDomain(value, form, first.span, ctx, showValue(value, first))) return null;
+  let tolerance = 0;
+  if (first.tolerance) {
+    if (!form.tolerance) {
+      ctx.sink.report('bad-value', ctx.file, first.tolerance.span, `${ctx.field} takes no tolerance`);
+      return null;
+    }
+    const t = readTolerance(first.tolerance, value, form.dimension, ctx);
+    if (t === null) return null;
+    tolerance = t;
+  }
+  return { value, tolerance, span: first.span };
+}
+
+function showValue(value: number, term: QuantityTerm): string {
+  const text = term.number.text + (term.unit ? ` ${term.unit.text}` : '');
+  return value === term.number.value ? text : `${text} = ${trimNumber(value, 6)}`;
+}
+
+export function noExtra(terms: Term[], used: number, ctx: ReadContext): boolean {
+  if (terms.length <= used) return true;
+  const extra = spanOf(terms.slice(used));
+  ctx.sink.report('bad-value', ctx.file, extra, `${ctx.field}: unexpected text after the value`);
+  return false;
+}
+
+/** Reads `low .. high` in a dimension; the low end may borrow the high end's unit (-40 .. 125 °C). */
+export function readRange(terms: Term[], dimension: Dimension, ctx: ReadContext): { low: number; high: number; span: Span } | null {
+  const t = terms[0];
+  if (!t || t.kind !== 'range') {
+    ctx.sink.report('bad-value', ctx.file, spanOf(terms), `${ctx.field} takes a range such as ${dimension === 'temperature' ? '-40 °C .. 125 °C' : `${exampleUnit(dimension)} .. ${exampleUnit(dimension)}`}`);
+    return null;
+  }
+  if (!noExtra(terms, 1, ctx)) return null;
+  const lowTerm: QuantityTerm = t.low.unit || !t.high.unit ? t.low : { ...t.low, unit: t.high.unit };
+  const low = readQuantityValue(lowTerm, dimension, ctx);
+  const high = readQuantityValue(t.high, dimension, ctx);
+  if (low === null || high === null) return null;
+  if (dimension === 'temperature' && low <= 0) {
+    ctx.sink.report('out-of-domain', ctx.file, t.low.span, `${ctx.field}: a temperature must be above 0 K (absolute zero); found ${trimNumber(low, 6)} K`);
+    return null;
+  }
+  if (!(high > low)) {
+    ctx.sink.report('out-of-domain', ctx.file, t.span, `${ctx.field}: the upper end must be above the lower end`);
+    return null;
+  }
+  return { low, high, span: t.span };
+}

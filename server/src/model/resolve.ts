@@ -1,0 +1,368 @@
+// Resolves parsed blocks into typed definitions (base SI units, defaults applied), reporting
+// unknown blocks and fields, duplicates, missing fields, wrong units and out-of-domain values.
+import type { BlockNode, FieldNode, Span, Term } from '../syntax/ast';
+import type { DiagnosticSink } from '../checks/diagnostic';
+import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
+import type { LoadedFile } from './workspace';
+import type { AdcDef, BiasDef, ChannelDef, JunctionDef, Toleranced } from './types';
+import { noExtra, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
+import { readUnit } from './units';
+import { closest } from './suggest';
+
+export interface BlockRef {
+  kind: BlockKind;
+  file: string;
+  node: BlockNode;
+}
+
+export interface Resolution {
+  blocks: Map<string, BlockRef>;
+  junctions: Map<string, JunctionDef>;
+  adcs: Map<string, AdcDef>;
+  channels: ChannelDef[];
+}
+
+const ZERO_C = 273.15;
+
+export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolution {
+  const entry = files[0]!;
+  const blocks = new Map<string, BlockRef>();
+  const res: Resolution = { blocks, junctions: new Map(), adcs: new Map(), channels: [] };
+  // Entry file first so that a duplicate is reported where the user is typing.
+  for (const file of files) {
+    for (const item of file.parse.tree.items) {
+      if (item.kind !== 'block') continue;
+      const spec = blockSpec(item.keyword.text);
+      if (!spec) {
+        const near = closest(item.keyword.text, Object.keys(BLOCKS));
+        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${item.keyword.text}'; expected junction, adc or channel${near ? ` (did you mean '${near}'?)` : ''}`);
+        continue;
+      }
+      const prior = blocks.get(item.name.text);
+      if (prior) {
+        sink.report('duplicate-name', file.path, item.name.span, `'${item.name.text}' is already defined${prior.file === file.path ? '' : ` in ${prior.file}`}`);
+        continue;
+      }
+      blocks.set(item.name.text, { kind: spec.kind, file: file.path, node: item });
+    }
+  }
+  for (const ref of blocks.values()) {
+    if (ref.kind === 'junction') {
+      const j = readJunction(ref, sink);
+      if (j) res.junctions.set(j.name, j);
+    } else if (ref.kind === 'adc') {
+      const a = readAdc(ref, sink);
+      if (a) res.adcs.set(a.name, a);
+    }
+  }
+  for (const ref of blocks.values()) {
+    if (ref.kind !== 'channel' || ref.file !== entry.path) continue;
+    const c = readChannel(ref, res, sink);
+    if (c) res.channels.push(c);
+  }
+  return res;
+}
+
+/** Fields of a block by canonical name; reports unknown and repeated fields. */
+function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<string, { spec: FieldSpec; node: FieldNode }> {
+  const out = new Map<string, { spec: FieldSpec; node: FieldNode }>();
+  for (const f of ref.node.fields) {
+    if (f.kind !== 'field') continue;
+    const fs = fieldSpec(spec, f.key.text);
+    if (!fs) {
+      const near = closest(f.key.text, spec.fields.map((x) => x.name));
+      sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${f.key.text}'${near ? ` (did you mean '${near}'?)` : ''}; fields: ${spec.fields.map((x) => x.name).join(', ')}`);
+      continue;
+    }
+    if (out.has(fs.name)) {
+      sink.report('duplicate-field', ref.file, f.key.span, `'${fs.name}' is already given in this ${spec.kind}; this one is ignored`);
+      continue;
+    }
+    out.set(fs.name, { spec: fs, node: f });
+  }
+  return out;
+}
+
+class BlockReader {
+  readonly fields: Map<string, { spec: FieldSpec; node: FieldNode }>;
+  readonly fieldSpans: Record<string, Span> = {};
+  ok = true;
+  constructor(readonly ref: BlockRef, readonly spec: BlockSpec, readonly sink: DiagnosticSink) {
+    this.fields = fieldsOf(ref, spec, sink);
+    for (const [name, f] of this.fields) this.fieldSpans[name] = spanOf(f.node.value);
+  }
+  ctx(name: string): ReadContext {
+    return { file: this.ref.file, sink: this.sink, field: name };
+  }
+  terms(name: string): Term[] | undefined {
+    return this.fields.get(name)?.node.value;
+  }
+  missing(name: string): void {
+    const fs = this.spec.fields.find((f) => f.name === name)!;
+    this.sink.report('missing-field', this.ref.file, this.ref.node.name.span, `${this.spec.kind} '${this.ref.node.name.text}' needs '${name}', e.g. \`${fs.example}\``);
+    this.ok = false;
+  }
+  /** A quantity field in base units, its default when absent, or null (and not ok) when bad. */
+  quantity(name: string, fallback?: number): Toleranced | null {
+    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const terms = this.terms(name);
+    if (!terms) {
+      if (fallback === undefined) {
+        this.missing(name);
+        return null;
+      }
+      return { value: fallback, tolerance: 0, span: this.ref.node.name.span };
+    }
+    if (fs.form.form !== 'quantity') throw new Error(`field ${name} is not a quantity`);
+    const q = readQuantityField(terms, fs.form, this.ctx(name));
+    if (!q) this.ok = false;
+    return q;
+  }
+  choice(name: string, fallback: string): string {
+    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const terms = this.terms(name);
+    if (!terms || fs.form.form !== 'choice') return fallback;
+    const t = terms[0]!;
+    const options = fs.form.options;
+    if (t.kind !== 'word' || !options.includes(t.text)) {
+      this.sink.report('bad-value', this.ref.file, spanOf(terms), `${name} is one of ${options.join(', ')}`);
+      this.ok = false;
+      return fallback;
+    }
+    if (!noExtra(terms, 1, this.ctx(name))) this.ok = false;
+    return t.text;
+  }
+  range(name: string, fallback?: [number, number]): { low: number; high: number } | null {
+    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const terms = this.terms(name);
+    if (!terms) {
+      if (!fallback) {
+        this.missing(name);
+        return null;
+      }
+      return { low: fallback[0], high: fallback[1] };
+    }
+    if (fs.form.form !== 'range') throw new Error(`field ${name} is not a range`);
+    const r = readRange(terms, fs.form.dimension, this.ctx(name));
+    if (!r) this.ok = false;
+    return r;
+  }
+}
+
+function base(ref: BlockRef, r: BlockReader) {
+  return {
+    name: ref.node.name.text,
+    file: ref.file,
+    nameSpan: ref.node.name.span,
+    span: ref.node.span,
+    fieldSpans: r.fieldSpans,
+    given: [...r.fields.keys()],
+  };
+}
+
+function readJunction(ref: BlockRef, sink: DiagnosticSink): JunctionDef | null {
+  const r = new BlockReader(ref, BLOCKS.junction, sink);
+  const kind = r.choice('kind', 'npn') as JunctionDef['params']['kind'];
+  const IS = r.quantity('IS');
+  const N = r.quantity('N', 1);
+  const BF = r.quantity('BF', 100);
+  const EG = r.quantity('EG', 1.11);
+  const XTI = r.quantity('XTI', 3);
+  const XTB = r.quantity('XTB', 0);
+  const TNOM = r.quantity('TNOM', 27 + ZERO_C);
+  const RS = r.quantity('RS', 0);
+  const rated = r.range('rated', [-55 + ZERO_C, 150 + ZERO_C]);
+  const theta = r.quantity('theta_ja', 500);
+  if (!r.ok || !IS || !N || !BF || !EG || !XTI || !XTB || !TNOM || !RS || !rated || !theta) return null;
+  return {
+    kind: 'junction',
+    ...base(ref, r),
+    params: { kind, IS: IS.value, N: N.value, BF: BF.value, EG: EG.value, XTI: XTI.value, XTB: XTB.value, TNOM: TNOM.value, RS: RS.value },
+    isTolerance: IS.tolerance,
+    ratedLowK: rated.low,
+    ratedHighK: rated.high,
+    thetaJA: theta.value,
+  };
+}
+
+function readAdc(ref: BlockRef, sink: DiagnosticSink): AdcDef | null {
+  const r = new BlockReader(ref, BLOCKS.adc, sink);
+  const bits = r.quantity('bits');
+  const reference = r.quantity('reference');
+  const maxSource = r.terms('max_source') ? r.quantity('max_source') : null;
+  const sampleCap = r.terms('sample_cap') ? r.quantity('sample_cap') : null;
+  if (!r.ok || !bits || !reference) return null;
+  return { kind: 'adc', ...base(ref, r), bits: bits.value, reference, maxSourceOhms: maxSource?.value ?? null, sampleFarads: sampleCap?.value ?? null };
+}
+
+function readRef<K extends 'junction' | 'adc'>(r: BlockReader, name: string, target: K, res: Resolution): (K extends 'junction' ? JunctionDef : AdcDef) | null {
+  const terms = r.terms(name);
+  if (!terms) {
+    r.missing(name);
+    return null;
+  }
+  const t = terms[0]!;
+  if (t.kind !== 'word') {
+    r.sink.report('bad-value', r.ref.file, spanOf(terms), `${name} takes the name of ${target === 'junction' ? 'a junction' : 'an adc'} definition`);
+    r.ok = false;
+    return null;
+  }
+  if (!noExtra(terms, 1, r.ctx(name))) r.ok = false;
+  const block = res.blocks.get(t.text);
+  if (!block) {
+    const pool = [...res.blocks.values()].filter((b) => b.kind === target).map((b) => b.node.name.text);
+    const near = closest(t.text, pool);
+    r.sink.report('unknown-name', r.ref.file, t.span, `no ${target} named '${t.text}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
+    r.ok = false;
+    return null;
+  }
+  if (block.kind !== target) {
+    r.sink.report('wrong-kind', r.ref.file, t.span, `'${t.text}' is ${block.kind === 'adc' ? 'an adc' : `a ${block.kind}`}, but ${name} needs ${target === 'adc' ? 'an adc' : `a ${target}`}`);
+    r.ok = false;
+    return null;
+  }
+  const def = target === 'junction' ? res.junctions.get(t.text) : res.adcs.get(t.text);
+  // The definition exists but has its own errors (reported there): skip the channel quietly.
+  if (!def) r.ok = false;
+  return (def ?? null) as (K extends 'junction' ? JunctionDef : AdcDef) | null;
+}
+
+function readBias(r: BlockReader): BiasDef | null {
+  const terms = r.terms('bias');
+  if (!terms) {
+    r.missing('bias');
+    return null;
+  }
+  const ctx = r.ctx('bias');
+  const span = spanOf(terms);
+  const bad = () => {
+    r.sink.report('bad-value', r.ref.file, span, 'bias takes `resistor R from V` (e.g. `resistor 47k ± 1 % from 3.3 V`) or `current I` (e.g. `current 100 uA`)');
+    r.ok = false;
+    return null;
+  };
+  const head = terms[0]!;
+  if (head.kind !== 'word') return bad();
+  const tol = (q: import('../syntax/ast').QuantityTerm, value: number, dim: 'resistance' | 'voltage' | 'current'): number | null =>
+    q.tolerance ? readTolerance(q.tolerance, value, dim, ctx) : 0;
+  if (head.text === 'current') {
+    const q = terms[1];
+    if (!q || q.kind !== 'quantity' || !noExtra(terms, 2, ctx)) return bad();
+    const amps = readQuantityValue(q, 'current', ctx);
+    if (amps === null) return (r.ok = false), null;
+    if (!(amps > 0)) {
+      r.sink.report('out-of-domain', r.ref.file, q.span, `bias current must be above 0 A (found ${q.number.text}${q.unit ? ' ' + q.unit.text : ''})`);
+      r.ok = false;
+      return null;
+    }
+    const t = tol(q, amps, 'current');
+    if (t === null) return (r.ok = false), null;
+    return { kind: 'current', amps: { value: amps, tolerance: t, span: q.span }, span };
+  }
+  if (head.text === 'resistor') {
+    const rq = terms[1];
+    const from = terms[2];
+    const vq = terms[3];
+    if (!rq || rq.kind !== 'quantity' || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, 4, ctx)) return bad();
+    const ohms = readQuantityValue(rq, 'resistance', ctx);
+    const volts = readQuantityValue(vq, 'voltage', ctx);
+    if (ohms === null || volts === null) return (r.ok = false), null;
+    if (!(ohms > 0)) {
+      r.sink.report('out-of-domain', r.ref.file, rq.span, `bias resistor must be above 0 Ω (found ${rq.number.text})`);
+      return (r.ok = false), null;
+    }
+    if (!(volts > 0) || volts > 1000) {
+      r.sink.report('out-of-domain', r.ref.file, vq.span, `bias supply must be above 0 V and at most 1000 V (found ${vq.number.text} V)`);
+      return (r.ok = false), null;
+    }
+    const rt = tol(rq, ohms, 'resistance');
+    const vt = tol(vq, volts, 'voltage');
+    if (rt === null || vt === null) return (r.ok = false), null;
+    return { kind: 'resistor', ohms: { value: ohms, tolerance: rt, span: rq.span }, supply: { value: volts, tolerance: vt, span: vq.span }, span };
+  }
+  return bad();
+}
+
+/** `0.1 °C per count`, `10 counts per °C`: returns kelvin per count. */
+function readResolution(r: BlockReader): number | null {
+  const terms = r.terms('resolution');
+  if (!terms) return null;
+  const span = spanOf(terms);
+  const bad = () => {
+    r.sink.report('bad-value', r.ref.file, span, 'resolution takes `0.1 °C per count` or `10 counts per °C`');
+    r.ok = false;
+    return null;
+  };
+  const [q, per, what] = terms;
+  if (!q || q.kind !== 'quantity' || !per || per.kind !== 'word' || per.text !== 'per' || !what || (what.kind !== 'word' && what.kind !== 'unit')) return bad();
+  if (!noExtra(terms, 3, r.ctx('resolution'))) return bad();
+  if (!(q.number.value > 0)) {
+    r.sink.report('out-of-domain', r.ref.file, q.span, 'resolution must be above 0');
+    return (r.ok = false), null;
+  }
+  const whatUnit = readUnit(what.text);
+  if (typeof whatUnit === 'string') return bad();
+  if (whatUnit.dimension === 'count') {
+    const k = readQuantityValue(q, 'temperature', r.ctx('resolution'), true);
+    return k === null ? ((r.ok = false), null) : k;
+  }
+  if (whatUnit.dimension === 'temperature') {
+    const qUnit = q.unit ? readUnit(q.unit.text) : null;
+    if (qUnit !== null && (typeof qUnit === 'string' || qUnit.dimension !== 'count')) return bad();
+    return whatUnit.scale / q.number.value;
+  }
+  return bad();
+}
+
+function readAccuracy(r: BlockReader): number | null {
+  const terms = r.terms('accuracy');
+  if (!terms) return null;
+  const t = terms[0]!;
+  const q = t.kind === 'tolerance' ? t.amount : t.kind === 'quantity' ? t : null;
+  if (!q || !noExtra(terms, 1, r.ctx('accuracy'))) {
+    r.sink.report('bad-value', r.ref.file, spanOf(terms), 'accuracy takes a temperature difference such as `± 0.5 °C`');
+    r.ok = false;
+    return null;
+  }
+  const k = readQuantityValue(q, 'temperature', r.ctx('accuracy'), true);
+  if (k === null) return (r.ok = false), null;
+  if (!(k > 0)) {
+    r.sink.report('out-of-domain', r.ref.file, q.span, 'accuracy must be above 0');
+    return (r.ok = false), null;
+  }
+  return k;
+}
+
+function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
+  const r = new BlockReader(ref, BLOCKS.channel, sink);
+  const sensor = readRef(r, 'sensor', 'junction', res);
+  const adc = readRef(r, 'adc', 'adc', res);
+  const bias = readBias(r);
+  const range = r.range('range');
+  const step = r.quantity('step', 1);
+  const resolution = readResolution(r);
+  const accuracy = readAccuracy(r);
+  const conversion = r.choice('conversion', 'table') as 'table' | 'line';
+  const window = r.range('current_window', [1e-6, 1e-3]);
+  const theta = r.terms('theta_ja') ? r.quantity('theta_ja') : null;
+  if (range && step && step.value > 0 && (range.high - range.low) / step.value > 100_000) {
+    sink.report('out-of-domain', ref.file, r.fieldSpans['step'] ?? ref.node.name.span, `step gives ${Math.ceil((range.high - range.low) / step.value)} sweep points; at most 100000 are allowed (use a step of at least ${((range.high - range.low) / 100_000).toPrecision(2)} K)`);
+    r.ok = false;
+  }
+  if (!r.ok || !sensor || !adc || !bias || !range || !step || !window) return null;
+  return {
+    kind: 'channel',
+    ...base(ref, r),
+    sensor,
+    adc,
+    bias,
+    lowK: range.low,
+    highK: range.high,
+    stepK: step.value,
+    resolutionKPerCount: resolution,
+    accuracyK: accuracy,
+    thetaJA: theta?.value ?? sensor.thetaJA,
+    conversion,
+    windowLowA: window.low,
+    windowHighA: window.high,
+  };
+}

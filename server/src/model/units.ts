@@ -1,0 +1,110 @@
+// Units of the spec language: each unit text maps to a dimension and a conversion to base SI.
+// Temperatures are absolute (kelvin, with an offset) or differences (kelvin, scale only);
+// the field decides which reading applies.
+
+export type Dimension =
+  | 'voltage'
+  | 'current'
+  | 'resistance'
+  | 'capacitance'
+  | 'temperature'
+  | 'energy'
+  | 'power'
+  | 'thermal-resistance'
+  | 'ratio'
+  | 'count'
+  | 'dimensionless';
+
+export const DIMENSION_WORDS: Record<Dimension, string> = {
+  voltage: 'a voltage (V)',
+  current: 'a current (A)',
+  resistance: 'a resistance (Ω or ohm)',
+  capacitance: 'a capacitance (pF, nF, uF)',
+  temperature: 'a temperature (°C, K or °F)',
+  energy: 'an energy (eV)',
+  power: 'a power (W)',
+  'thermal-resistance': 'a thermal resistance (K/W)',
+  ratio: 'a ratio (% or ppm)',
+  count: 'a count of ADC codes',
+  dimensionless: 'a plain number',
+};
+
+export interface UnitInfo {
+  dimension: Dimension;
+  /** Multiply by this to get base SI (for temperature: kelvin per unit). */
+  scale: number;
+  /** Added after scaling for absolute temperatures (K); 0 otherwise. */
+  offset: number;
+  /** True when the text was a bare SI prefix such as `k` in `10k`. */
+  prefixOnly: boolean;
+}
+
+const PREFIX: Record<string, number> = {
+  a: 1e-18, f: 1e-15, p: 1e-12, n: 1e-9, u: 1e-6, 'µ': 1e-6, 'μ': 1e-6, m: 1e-3, k: 1e3, M: 1e6, G: 1e9,
+};
+
+const ZERO_C = 273.15;
+
+interface Core { dimension: Dimension; scale: number; offset: number; prefixable: boolean }
+
+const CORE: Record<string, Core> = {
+  V: { dimension: 'voltage', scale: 1, offset: 0, prefixable: true },
+  A: { dimension: 'current', scale: 1, offset: 0, prefixable: true },
+  ohm: { dimension: 'resistance', scale: 1, offset: 0, prefixable: true },
+  ohms: { dimension: 'resistance', scale: 1, offset: 0, prefixable: true },
+  Ohm: { dimension: 'resistance', scale: 1, offset: 0, prefixable: true },
+  'Ω': { dimension: 'resistance', scale: 1, offset: 0, prefixable: true },
+  W: { dimension: 'power', scale: 1, offset: 0, prefixable: true },
+  eV: { dimension: 'energy', scale: 1, offset: 0, prefixable: true },
+  K: { dimension: 'temperature', scale: 1, offset: 0, prefixable: true },
+  C: { dimension: 'temperature', scale: 1, offset: ZERO_C, prefixable: false },
+  '°C': { dimension: 'temperature', scale: 1, offset: ZERO_C, prefixable: false },
+  '℃': { dimension: 'temperature', scale: 1, offset: ZERO_C, prefixable: false },
+  // Fahrenheit: T[K] = (T[°F] + 459.67) * 5/9.
+  F: { dimension: 'temperature', scale: 5 / 9, offset: 459.67 * (5 / 9), prefixable: false },
+  '°F': { dimension: 'temperature', scale: 5 / 9, offset: 459.67 * (5 / 9), prefixable: false },
+  '℉': { dimension: 'temperature', scale: 5 / 9, offset: 459.67 * (5 / 9), prefixable: false },
+  '%': { dimension: 'ratio', scale: 1e-2, offset: 0, prefixable: false },
+  ppm: { dimension: 'ratio', scale: 1e-6, offset: 0, prefixable: false },
+  count: { dimension: 'count', scale: 1, offset: 0, prefixable: false },
+  counts: { dimension: 'count', scale: 1, offset: 0, prefixable: false },
+  LSB: { dimension: 'count', scale: 1, offset: 0, prefixable: false },
+  s: { dimension: 'dimensionless', scale: 1, offset: 0, prefixable: true },
+  Hz: { dimension: 'dimensionless', scale: 1, offset: 0, prefixable: true },
+};
+
+/** Reads a unit text such as `kΩ`, `mV/K`, `°C`, `k`. Returns a message when unknown. */
+export function readUnit(text: string): UnitInfo | string {
+  const slash = text.indexOf('/');
+  if (slash >= 0) {
+    const num = readSimple(text.slice(0, slash));
+    const den = readSimple(text.slice(slash + 1));
+    if (typeof num === 'string') return num;
+    if (typeof den === 'string') return den;
+    if (num.dimension === 'temperature' && den.dimension === 'power') {
+      return { dimension: 'thermal-resistance', scale: num.scale / den.scale, offset: 0, prefixOnly: false };
+    }
+    return `unit '${text}' is not one the spec language knows; for a thermal resistance write K/W`;
+  }
+  return readSimple(text);
+}
+
+function readSimple(text: string): UnitInfo | string {
+  const core = CORE[text];
+  if (core) return { dimension: core.dimension, scale: core.scale, offset: core.offset, prefixOnly: false };
+  const prefix = PREFIX[text[0] ?? ''];
+  if (prefix !== undefined) {
+    const rest = text.slice(1);
+    if (rest === '') return { dimension: 'dimensionless', scale: prefix, offset: 0, prefixOnly: true };
+    // A prefixed F is the farad (10 nF); plain F stays Fahrenheit.
+    if (rest === 'F') return { dimension: 'capacitance', scale: prefix, offset: 0, prefixOnly: false };
+    const c = CORE[rest];
+    if (c && c.prefixable) return { dimension: c.dimension, scale: c.scale * prefix, offset: 0, prefixOnly: false };
+  }
+  return `unknown unit '${text}'`;
+}
+
+/** Converts a temperature given in a unit to kelvin: absolute or as a difference. */
+export function temperatureToKelvin(value: number, unit: UnitInfo, asDifference: boolean): number {
+  return asDifference ? value * unit.scale : value * unit.scale + unit.offset;
+}

@@ -1,0 +1,97 @@
+// parse(): text -> syntax tree plus every syntax problem. Never throws.
+//
+// The grammar turns each line it cannot read into an error node and carries on. For each such
+// node we re-parse just that line with a narrower start rule to get peggy's own account of what
+// was expected and where, shifted back to document offsets.
+
+import * as generated from './parser.generated.js';
+import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
+
+export function parse(text: string): ParseResult {
+  let tree: DocumentNode;
+  try {
+    tree = generated.parse(text, { startRule: 'Document' }) as DocumentNode;
+  } catch (err) {
+    // The grammar has catch-all rules, so this is a bug; still report instead of crashing.
+    const span = errorSpan(err, 0, text.length);
+    return {
+      tree: { kind: 'document', items: [], span: { start: 0, end: text.length } },
+      problems: [{ message: `internal parser failure: ${errorMessage(err)}`, span }],
+    };
+  }
+  const problems: SyntaxProblem[] = [];
+  for (const item of tree.items) collectProblems(item, text, problems);
+  problems.sort((a, b) => a.span.start - b.span.start);
+  return { tree, problems };
+}
+
+function collectProblems(item: TopItem, text: string, out: SyntaxProblem[]): void {
+  if (item.kind === 'error') {
+    out.push(explainBadLine(item, text));
+    return;
+  }
+  if (item.kind !== 'block') return;
+  for (const f of item.fields) if (f.kind === 'error') out.push(explainBadLine(f, text));
+  if (!item.closed) {
+    const at = item.span.end;
+    out.push({
+      message: `block '${item.name.text}' is not closed: add '}' after its last field`,
+      span: { start: item.name.span.start, end: item.name.span.end },
+    });
+    void at;
+  }
+}
+
+function explainBadLine(node: ErrorNode, text: string): SyntaxProblem {
+  const line = text.slice(node.span.start, node.span.end);
+  const trimmed = line.trim();
+  if (node.context === 'top') {
+    if (trimmed.startsWith('}')) return { message: "unmatched '}': no block is open here", span: node.span };
+    if (tryParse(line, 'FieldLine') === null) {
+      return { message: 'a field must stand inside a block such as `channel name { ... }`', span: node.span };
+    }
+  }
+  const err = tryParse(line, node.context === 'top' ? 'TopLine' : 'FieldLine');
+  if (err === null) return { message: `cannot read '${clip(trimmed)}'`, span: node.span };
+  const span = errorSpan(err, node.span.start, node.span.end);
+  return { message: plainMessage(err, line), span };
+}
+
+/** Returns null when the line parses, else the error peggy raised. */
+function tryParse(line: string, rule: 'FieldLine' | 'TopLine'): unknown {
+  try {
+    generated.parse(line, { startRule: rule });
+    return null;
+  } catch (err) {
+    return err;
+  }
+}
+
+function errorSpan(err: unknown, base: number, limit: number): Span {
+  if (err instanceof generated.SyntaxError) {
+    const start = Math.min(base + err.location.start.offset, limit);
+    let end = Math.min(base + err.location.end.offset, limit);
+    if (end <= start) end = Math.min(start + 1, limit);
+    return { start: Math.min(start, end), end: Math.max(start, end) };
+  }
+  return { start: base, end: limit };
+}
+
+/** Turns peggy's "Expected a, b, or c but "x" found." into plain words. */
+function plainMessage(err: unknown, line: string): string {
+  if (!(err instanceof generated.SyntaxError)) return errorMessage(err);
+  const m = /^Expected (.*) but (.*) found\.$/s.exec(err.message);
+  if (!m) return err.message;
+  const found = m[2] === 'end of input' ? 'the end of the line' : m[2];
+  const expected = m[1].replace(/end of input/g, 'the end of the line');
+  void line;
+  return `expected ${expected}, found ${found}`;
+}
+
+function errorMessage(err: unknown): string {
+  return err instanceof Error ? err.message : String(err);
+}
+
+function clip(s: string): string {
+  return s.length > 40 ? s.slice(0, 37) + '...' : s;
+}
