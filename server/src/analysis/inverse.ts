@@ -1,17 +1,15 @@
 // Exact model inverse: the temperature at which the channel's sensed voltage equals a value.
 // Used by code generation and calibration as the reference every conversion is checked against.
-import { operatingPoint } from '../physics/junction';
 import type { ChannelDef } from '../model/types';
-import { nominalBias } from './sweep';
+import { sense } from './sense';
 
 /**
- * Kelvin at which the sensed voltage is `volts`, searched in [lowK, highK] (monotonic in T for a
- * forward-biased junction). Bisection to bracket, then secant refinement; returns NaN only when
+ * Kelvin at which the sensed voltage is `volts`, searched in [lowK, highK] (the sensed voltage is
+ * monotonic in T for every sensor kind). Bisection to bracket, then secant refinement; returns NaN only when
  * the voltage lies outside the bracket (callers clamp codes to the range first).
  */
 export function kelvinAtVolts(c: ChannelDef, volts: number, lowK = c.lowK, highK = c.highK): number {
-  const bias = nominalBias(c);
-  const f = (k: number) => operatingPoint(c.sensor.params, bias, k).volts - volts;
+  const f = (k: number) => sense(c, k).volts - volts;
   let a = lowK;
   let b = highK;
   let fa = f(a);

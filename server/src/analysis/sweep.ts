@@ -1,16 +1,9 @@
 // Sweeps a channel over its range: operating point, ADC code and resolution at each step.
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { operatingPoint } from '../physics/junction';
-import type { Bias, OperatingPoint } from '../physics/types';
+import { sense } from './sense';
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult, ChannelSummary, SweepPoint } from './types';
 import { nonlinearity } from './nonlinearity';
-
-export function nominalBias(c: ChannelDef): Bias {
-  return c.bias.kind === 'current'
-    ? { kind: 'current', amps: c.bias.amps.value }
-    : { kind: 'resistor', ohms: c.bias.ohms.value, supply: c.bias.supply.value };
-}
 
 /** Temperatures of the sweep, K: from low to high by step, the high end always included. */
 export function sweepKelvins(c: ChannelDef): number[] {
@@ -28,35 +21,25 @@ export function adcCode(volts: number, vref: number, bits: number): number {
   return Math.min(full - 1, Math.max(0, code));
 }
 
-export function pointAt(c: ChannelDef, kelvin: number, bias: Bias = nominalBias(c)): SweepPoint {
-  const op: OperatingPoint = operatingPoint(c.sensor.params, bias, kelvin);
-  const vref = c.adc.reference.value;
-  const perVolt = 2 ** c.adc.bits / vref;
-  const countsPerKelvin = Math.abs(op.slope) * perVolt;
-  // Power in the sensor: terminal voltage times current (junction plus RS).
-  const selfHeatingK = op.volts * op.amps * c.thetaJA;
-  const sourceOhms = bias.kind === 'resistor' ? parallel(bias.ohms, op.dynamicOhms) : op.dynamicOhms;
+export function pointAt(c: ChannelDef, kelvin: number): SweepPoint {
+  const p = sense(c, kelvin);
+  const countsPerKelvin = (Math.abs(p.slope) * 2 ** c.adc.bits) / c.adc.reference.value;
   return {
     celsius: kelvin - ZERO_CELSIUS_K,
     kelvin,
-    volts: op.volts,
-    amps: op.amps,
-    code: adcCode(op.volts, vref, c.adc.bits),
-    slope: op.slope,
+    volts: p.volts,
+    amps: p.amps,
+    code: adcCode(p.volts, c.adc.reference.value, c.adc.bits),
+    slope: p.slope,
     countsPerKelvin,
     celsiusPerCount: countsPerKelvin > 0 ? 1 / countsPerKelvin : Infinity,
-    selfHeatingK,
-    sourceOhms,
+    selfHeatingK: p.powerW * c.thetaJA,
+    sourceOhms: p.sourceOhms,
   };
 }
 
-function parallel(a: number, b: number): number {
-  return (a * b) / (a + b);
-}
-
 export function analyseChannel(c: ChannelDef): ChannelResult {
-  const bias = nominalBias(c);
-  const sweep = sweepKelvins(c).map((k) => pointAt(c, k, bias));
+  const sweep = sweepKelvins(c).map((k) => pointAt(c, k));
   return { channel: c, sweep, summary: summarise(c, sweep) };
 }
 
