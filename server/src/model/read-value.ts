@@ -58,7 +58,7 @@ export function readQuantityValue(term: QuantityTerm, dimension: Dimension, ctx:
   if (unit === null) return null;
   if (unit === undefined || unit.prefixOnly) {
     const scale = unit ? unit.scale : 1;
-    if (dimension === 'dimensionless' || dimension === 'resistance' || dimension === 'count') return raw * scale;
+    if (dimension === 'dimensionless' || dimension === 'resistance' || dimension === 'count') return scaleBy(raw, scale);
     ctx.sink.report('wrong-unit', ctx.file, term.span, `${ctx.field} takes ${DIMENSION_WORDS[dimension]}: add a unit, e.g. ${exampleUnit(dimension)}`);
     return null;
   }
@@ -67,9 +67,18 @@ export function readQuantityValue(term: QuantityTerm, dimension: Dimension, ctx:
     return null;
   }
   if (dimension === 'temperature') {
-    return difference ? raw * unit.scale : raw * unit.scale + unit.offset;
+    return difference ? scaleBy(raw, unit.scale) : scaleBy(raw, unit.scale) + unit.offset;
   }
-  return raw * unit.scale;
+  return scaleBy(raw, unit.scale);
+}
+
+/** value * scale, dividing by 10^n for sub-unit prefixes so that 20 u gives exactly 2e-5. */
+export function scaleBy(value: number, scale: number): number {
+  if (scale < 1) {
+    const inv = Math.round(1 / scale);
+    if (Math.abs(inv * scale - 1) < 1e-12) return value / inv;
+  }
+  return value * scale;
 }
 
 function exampleUnit(d: Dimension): string {
@@ -88,7 +97,7 @@ export function readTolerance(tol: QuantityTerm, nominal: number, dimension: Dim
     return null;
   }
   let rel: number;
-  if (unit && unit.dimension === 'ratio') rel = tol.number.value * unit.scale;
+  if (unit && unit.dimension === 'ratio') rel = scaleBy(tol.number.value, unit.scale);
   else {
     const abs = readQuantityValue(tol, dimension, ctx, true);
     if (abs === null) return null;
@@ -105,6 +114,11 @@ export function readTolerance(tol: QuantityTerm, nominal: number, dimension: Dim
   return rel;
 }
 
+const BASE_UNIT: Record<Dimension, string> = {
+  voltage: 'V', current: 'A', resistance: 'Ω', capacitance: 'F', temperature: 'K', energy: 'eV', power: 'W',
+  'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
+};
+
 /** Checks the domain of a quantity field and reports a precise range when it is outside. */
 export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: string): boolean {
   const lowOk = form.min === undefined || (form.minInclusive ? value >= form.min : value > form.min);
@@ -115,7 +129,7 @@ export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: 
   if (form.min !== undefined) parts.push(form.minInclusive ? `at least ${form.min}` : `above ${form.min}`);
   if (form.max !== undefined) parts.push(`at most ${form.max}`);
   const kind = form.integer ? 'a whole number ' : '';
-  const base = form.dimension === 'temperature' ? ' K' : '';
+  const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
   ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${shown})`);
   return false;
 }

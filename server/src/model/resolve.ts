@@ -8,6 +8,7 @@ import type { AdcDef, BiasDef, ChannelDef, JunctionDef, Toleranced } from './typ
 import { noExtra, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
+import { isTwoCurrentBias, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
 
 export interface BlockRef {
   kind: BlockKind;
@@ -71,7 +72,7 @@ function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<str
     const fs = fieldSpec(spec, f.key.text);
     if (!fs) {
       const near = closest(f.key.text, spec.fields.map((x) => x.name));
-      sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${f.key.text}'${near ? ` (did you mean '${near}'?)` : ''}; fields: ${spec.fields.map((x) => x.name).join(', ')}`);
+      sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${f.key.text}'${near ? ` (did you mean '${near}'?)` : `; its fields are ${spec.fields.map((x) => x.name).join(', ')}`}`);
       continue;
     }
     if (out.has(fs.name)) {
@@ -179,6 +180,8 @@ function readJunction(ref: BlockRef, sink: DiagnosticSink): JunctionDef | null {
     ...base(ref, r),
     params: { kind, IS: IS.value, N: N.value, BF: BF.value, EG: EG.value, XTI: XTI.value, XTB: XTB.value, TNOM: TNOM.value, RS: RS.value },
     isTolerance: IS.tolerance,
+    nTolerance: N.tolerance,
+    bfTolerance: BF.tolerance,
     ratedLowK: rated.low,
     ratedHighK: rated.high,
     thetaJA: theta.value,
@@ -192,7 +195,23 @@ function readAdc(ref: BlockRef, sink: DiagnosticSink): AdcDef | null {
   const maxSource = r.terms('max_source') ? r.quantity('max_source') : null;
   const sampleCap = r.terms('sample_cap') ? r.quantity('sample_cap') : null;
   if (!r.ok || !bits || !reference) return null;
-  return { kind: 'adc', ...base(ref, r), bits: bits.value, reference, maxSourceOhms: maxSource?.value ?? null, sampleFarads: sampleCap?.value ?? null };
+  // Error-budget fields (budget/read-spec.ts); a bad one drops the ADC like any other bad field.
+  const extra = (name: string, read: (t: Term[]) => number | null): number | undefined => {
+    const t = r.terms(name);
+    if (!t) return undefined;
+    const v = read(t);
+    if (v === null) r.ok = false;
+    return v ?? undefined;
+  };
+  const offsetLsb = extra('offset_error', (t) => readLsbBound(t, r.ctx('offset_error')));
+  const gainError = extra('gain_error', (t) => readRelativeBound(t, r.ctx('gain_error')));
+  const inlLsb = extra('inl', (t) => readLsbBound(t, r.ctx('inl')));
+  const noise = extra('noise', (t) => readNoise(t, r.ctx('noise'), reference.value / 2 ** bits.value));
+  if (!r.ok) return null;
+  return {
+    kind: 'adc', ...base(ref, r), bits: bits.value, reference, maxSourceOhms: maxSource?.value ?? null, sampleFarads: sampleCap?.value ?? null,
+    offsetLsb: offsetLsb ?? 0, gainError: gainError ?? 0, inlLsb: inlLsb ?? 0, noiseLsbRms: noise ?? null,
+  };
 }
 
 function readRef<K extends 'junction' | 'adc'>(r: BlockReader, name: string, target: K, res: Resolution): (K extends 'junction' ? JunctionDef : AdcDef) | null {
@@ -336,7 +355,10 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const r = new BlockReader(ref, BLOCKS.channel, sink);
   const sensor = readRef(r, 'sensor', 'junction', res);
   const adc = readRef(r, 'adc', 'adc', res);
-  const bias = readBias(r);
+  const biasTerms = r.terms('bias');
+  const twin = isTwoCurrentBias(biasTerms) ? readTwoCurrentBias(biasTerms!, r.ctx('bias')) : undefined;
+  if (twin === null) r.ok = false;
+  const bias = twin === undefined ? readBias(r) : twin?.first ?? null;
   const range = r.range('range');
   const step = r.quantity('step', 1);
   const resolution = readResolution(r);
@@ -348,8 +370,25 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
     sink.report('out-of-domain', ref.file, r.fieldSpans['step'] ?? ref.node.name.span, `step gives ${Math.ceil((range.high - range.low) / step.value)} sweep points; at most 100000 are allowed (use a step of at least ${((range.high - range.low) / 100_000).toPrecision(2)} K)`);
     r.ok = false;
   }
+  // Error-budget fields (budget/read-spec.ts).
+  const phrase = <T>(name: string, read: (t: Term[]) => T | null): T | undefined => {
+    const t = r.terms(name);
+    if (!t) return undefined;
+    const v = read(t);
+    if (v === null) r.ok = false;
+    return v ?? undefined;
+  };
+  const calibration = range ? phrase('calibration', (t) => readCalibration(t, r.ctx('calibration'), range.low, range.high)) : undefined;
+  const measured = adc ? phrase('measured', (t) => readMeasured(t, r.ctx('measured'), adc.bits)) : undefined;
+  const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
+  const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
   if (!r.ok || !sensor || !adc || !bias || !range || !step || !window) return null;
   return {
+    ...(twin ? { secondBias: twin.second } : {}),
+    ...(calibration ? { calibration } : {}),
+    ...(measured ? { measured } : {}),
+    ...(monteCarlo ? { monteCarlo } : {}),
+    ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),
     kind: 'channel',
     ...base(ref, r),
     sensor,

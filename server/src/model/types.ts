@@ -26,6 +26,9 @@ export interface JunctionDef extends DefBase {
   params: JunctionParams;
   /** Relative spread of IS when given (IS = 10 fA ± 50 %). */
   isTolerance: number;
+  /** Relative spreads of N and BF when given (error budget); absent or 0 when none. */
+  nTolerance?: number;
+  bfTolerance?: number;
   ratedLowK: number;
   ratedHighK: number;
   thetaJA: number;
@@ -37,6 +40,12 @@ export interface AdcDef extends DefBase {
   reference: Toleranced;
   maxSourceOhms: number | null;
   sampleFarads: number | null;
+  /** Error-budget figures of the converter (absent = 0): offset and INL in LSB, gain error relative. */
+  offsetLsb?: number;
+  gainError?: number;
+  inlLsb?: number;
+  /** Noise at the input, LSB rms, or null when not stated. */
+  noiseLsbRms?: number | null;
 }
 
 export type BiasDef =
@@ -59,6 +68,36 @@ export interface ChannelDef extends DefBase {
   conversion: 'table' | 'line';
   windowLowA: number;
   windowHighA: number;
+  /** Two-current (delta-VBE) method: the second bias; the channel reads V(larger I) - V(smaller I). */
+  secondBias?: BiasDef;
+  /** Calibration done on each board (absent = none). */
+  calibration?: CalibrationSpec;
+  /** ADC codes measured on a real board at known temperatures. */
+  measured?: MeasuredPoint[];
+  /** Monte Carlo settings of the error budget (absent = defaults). */
+  monteCarlo?: MonteCarloSpec;
+  /** Extra bits by oversampling and decimation (absent = 0). */
+  oversamplingBits?: number;
+}
+
+export interface CalibrationSpec {
+  mode: 'none' | 'one-point' | 'two-point';
+  /** Calibration temperatures, K (one for one-point, two for two-point). */
+  kelvins: number[];
+  span: Span;
+}
+
+export interface MeasuredPoint {
+  kelvin: number;
+  /** ADC code read at that temperature (a fractional code is an average of readings). */
+  code: number;
+  span: Span;
+}
+
+export interface MonteCarloSpec {
+  runs: number;
+  seed: number;
+  distribution: 'uniform' | 'normal';
 }
 
 export type Definition = JunctionDef | AdcDef | ChannelDef;

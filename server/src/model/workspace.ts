@@ -40,7 +40,7 @@ export function loadWorkspace(entry: string, entryText: string, root: string, ho
         continue;
       }
       if (rel.startsWith('..') || path.isAbsolute(rel)) {
-        sink.report('import-outside-root', file, item.path.span, `'${item.path.text}' leaves the workspace root ${rootAbs}; keep used files inside it`);
+        sink.report('import-outside-root', file, item.path.span, `'${item.path.text}' leaves the workspace root (the folder '${path.basename(rootAbs)}'); keep used files inside it`);
         loaded.uses.push({ node: item, target: null });
         continue;
       }
@@ -54,7 +54,7 @@ export function loadWorkspace(entry: string, entryText: string, root: string, ho
       if (files.has(target)) continue;
       const child = host.read(target);
       if (child === undefined) {
-        sink.report('import-missing', file, item.path.span, `cannot read '${item.path.text}' (looked for ${target})`);
+        sink.report('import-missing', file, item.path.span, `cannot read '${item.path.text}' (looked for ${path.relative(rootAbs, target)} in the folder '${path.basename(rootAbs)}')`);
         continue;
       }
       visit(target, child, [...stack, target]);

@@ -42,6 +42,9 @@ function collectProblems(item: TopItem, text: string, out: SyntaxProblem[]): voi
   }
 }
 
+/** Words that may start a top-level line; peggy's own message is precise after them. */
+const TOP_WORDS = ['use', 'junction', 'adc', 'channel', 'thermistor', 'rtd'];
+
 function explainBadLine(node: ErrorNode, text: string): SyntaxProblem {
   const line = text.slice(node.span.start, node.span.end);
   const trimmed = line.trim();
@@ -49,6 +52,10 @@ function explainBadLine(node: ErrorNode, text: string): SyntaxProblem {
     if (trimmed.startsWith('}')) return { message: "unmatched '}': no block is open here", span: node.span };
     if (tryParse(line, 'FieldLine') === null) {
       return { message: 'a field must stand inside a block such as `channel name { ... }`', span: node.span };
+    }
+    const first = /^[A-Za-z_]\w*/.exec(trimmed)?.[0];
+    if (first === undefined || !TOP_WORDS.includes(first)) {
+      return { message: 'expected `use "file.tsense"` or a block header such as `channel name {`', span: node.span };
     }
   }
   const err = tryParse(line, node.context === 'top' ? 'TopLine' : 'FieldLine');
