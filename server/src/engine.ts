@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
 import { CHANNEL_CHECKS } from './checks/index';
 import { analyseChannel } from './analysis/sweep';
+import { SweepCache } from './analysis/cache';
 import type { ChannelResult } from './analysis/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel, type Resolution } from './model/resolve';
@@ -14,6 +15,7 @@ export type { ChannelResult, SweepPoint, ChannelSummary } from './analysis/types
 export type { ChannelDef, JunctionDef, AdcDef } from './model/types';
 export { CATALOGUE, type DiagnosticCode, type Severity } from './checks/catalogue';
 export { LineIndex } from './syntax/line-index';
+export { SweepCache } from './analysis/cache';
 
 export interface AnalyseInput {
   /** Absolute path of the spec (for an unsaved buffer, any absolute path in its folder). */
@@ -23,6 +25,8 @@ export interface AnalyseInput {
   root?: string;
   /** Reads files brought in with `use`. Defaults to a host that reads nothing. */
   host?: SourceHost;
+  /** Sweeps kept from earlier analyses of the same document (optional). */
+  cache?: SweepCache;
 }
 
 export interface Analysis {
@@ -46,7 +50,7 @@ export function analyse(input: AnalyseInput): Analysis {
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {
-      const result = analyseChannel(c);
+      const result = input.cache ? input.cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
       channels.push(result);
       const reported = new Set<string>();
       for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink, reported });

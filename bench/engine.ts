@@ -1,0 +1,74 @@
+// Engine benchmark: parse+analyse time for the samples and a 200-channel spec, and
+// operating-point solves per second. Prints medians; asserts nothing.
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import { analyse, SweepCache } from '../server/src/engine';
+import { parse } from '../server/src/syntax/parse';
+import { DiskHost } from '../server/src/cli/io';
+import { junctionAtTemperature, operatingPointAt, solveResistorBiasAmps } from '../server/src/physics/junction';
+import { generateSpec } from './generate';
+import { median, timeRuns, verdict } from './stats';
+
+const ROOT = path.resolve(__dirname, '..');
+
+export async function benchEngine(): Promise<void> {
+  console.log('== engine: parse + analyse (median of repeated runs)');
+  const host = new DiskHost();
+  for (const f of fs.readdirSync(path.join(ROOT, 'samples')).filter((x) => x.endsWith('.tsense'))) {
+    const p = path.join(ROOT, 'samples', f);
+    const text = host.read(p)!;
+    const t = median(timeRuns(() => analyse({ path: p, text, host }), 30));
+    console.log(`  samples/${f.padEnd(34)} ${t.toFixed(2)} ms`);
+  }
+  const big = generateSpec(200);
+  const lines = big.split('\n').length;
+  const tp = median(timeRuns(() => parse(big), 15));
+  const ta = median(timeRuns(() => analyse({ path: '/bench/big.tsense', text: big }), 15));
+  const channels = analyse({ path: '/bench/big.tsense', text: big }).channels.length;
+  console.log(`  generated spec: ${channels} channels, ${lines} lines`);
+  console.log(`    parse alone                                  ${tp.toFixed(2)} ms`);
+  console.log(`    parse + analyse, cold (no cache)             ${ta.toFixed(2)} ms  (target <= 20 ms: ${verdict(ta <= 20)})`);
+  // The language server keeps a SweepCache per document: after an edit to one channel only that
+  // channel is swept again. Alternate two versions that differ in one channel's bias.
+  const cache = new SweepCache();
+  const edited = big.replace('current 10 uA ± 1 %', 'current 11 uA ± 1 %');
+  analyse({ path: '/bench/big.tsense', text: big, cache });
+  let flip = false;
+  const tw = median(timeRuns(() => analyse({ path: '/bench/big.tsense', text: (flip = !flip) ? edited : big, cache }), 15));
+  console.log(`    parse + analyse after a one-channel edit     ${tw.toFixed(2)} ms  (with the per-document sweep cache)`);
+
+  console.log('== engine: operating-point solves per second (resistor bias, Lambert W)');
+  const params = { kind: 'npn' as const, IS: 1e-14, N: 1, BF: 200, EG: 1.11, XTI: 3, XTB: 0, TNOM: 300.15, RS: 2 };
+  const temps = Array.from({ length: 166 }, (_, i) => 233.15 + i);
+  const at = temps.map((k) => junctionAtTemperature(params, k));
+  const n = 2_000_000;
+  const rawRate = rate(() => {
+    let acc = 0;
+    for (let i = 0; i < n; i++) {
+      const j = at[i % at.length]!;
+      acc += solveResistorBiasAmps(j.isx, 100e3 + j.seriesOhms, j.nVt, 3.3);
+    }
+    return acc;
+  }, n);
+  const bias = { kind: 'resistor' as const, ohms: 100e3, supply: 3.3 };
+  const fullRate = rate(() => {
+    let acc = 0;
+    for (let i = 0; i < n; i++) acc += operatingPointAt(at[i % at.length]!, bias).volts;
+    return acc;
+  }, n);
+  console.log(`  current only (solveResistorBiasAmps): ${(rawRate / 1e6).toFixed(2)} M solves/s  (target >= 2 M/s: ${verdict(rawRate >= 2e6)})`);
+  console.log(`  full operating point with exact slope: ${(fullRate / 1e6).toFixed(2)} M solves/s`);
+}
+
+function rate(fn: () => number, n: number): number {
+  fn(); // warm-up
+  const runs: number[] = [];
+  for (let r = 0; r < 5; r++) {
+    const t0 = process.hrtime.bigint();
+    fn();
+    runs.push(Number(process.hrtime.bigint() - t0) / 1e9);
+  }
+  return n / median(runs);
+}
+
+if (require.main === module) void benchEngine();

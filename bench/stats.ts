@@ -1,0 +1,25 @@
+// Small statistics helpers for benchmarks: medians and percentiles of repeated timings.
+export function percentile(values: number[], p: number): number {
+  const s = [...values].sort((a, b) => a - b);
+  if (s.length === 0) return NaN;
+  const idx = Math.min(s.length - 1, Math.max(0, Math.ceil((p / 100) * s.length) - 1));
+  return s[idx]!;
+}
+
+export const median = (v: number[]) => percentile(v, 50);
+
+/** Runs fn `runs` times after `warmup` runs; returns the durations in ms. */
+export function timeRuns(fn: () => void, runs: number, warmup = 3): number[] {
+  for (let i = 0; i < warmup; i++) fn();
+  const out: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = process.hrtime.bigint();
+    fn();
+    out.push(Number(process.hrtime.bigint() - t0) / 1e6);
+  }
+  return out;
+}
+
+export function verdict(ok: boolean): string {
+  return ok ? 'PASS' : 'MISS';
+}

@@ -1,0 +1,26 @@
+// Reuse of channel sweeps between analyses of the same document: a keystroke usually changes one
+// channel, so the others' sweeps are taken from the cache. The key is every input of the channel
+// except where it was written (spans, file), so a moved or reformatted channel is still a hit.
+import type { ChannelDef } from '../model/types';
+import type { ChannelResult } from './types';
+
+const POSITIONAL = new Set(['span', 'nameSpan', 'fieldSpans', 'file', 'given', 'closeSpan']);
+
+export function channelKey(c: ChannelDef): string {
+  return JSON.stringify(c, (k, v) => (POSITIONAL.has(k) ? undefined : v));
+}
+
+/** A bounded cache of sweeps by channel key; keep one per open document. */
+export class SweepCache {
+  private map = new Map<string, Omit<ChannelResult, 'channel'>>();
+  constructor(private readonly limit = 2000) {}
+  get(c: ChannelDef, compute: () => ChannelResult): ChannelResult {
+    const key = channelKey(c);
+    const hit = this.map.get(key);
+    if (hit) return { channel: c, sweep: hit.sweep, summary: hit.summary };
+    const r = compute();
+    if (this.map.size >= this.limit) this.map.clear();
+    this.map.set(key, { sweep: r.sweep, summary: r.summary });
+    return r;
+  }
+}
