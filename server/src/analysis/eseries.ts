@@ -10,7 +10,8 @@ export function nearestE24(ohms: number): number {
   let bestErr = Infinity;
   for (const d of [decade - 1, decade, decade + 1]) {
     for (const m of E24) {
-      const v = Number((m * 10 ** d).toPrecision(3));
+      // Round to 3 significant digits so that 4.7 * 10^3 is exactly 4700.
+      const v = d >= 1 ? Math.round(m * 10) * 10 ** (d - 1) : Math.round(m * 10) / 10 ** (1 - d);
       const err = Math.abs(Math.log(v / ohms));
       if (err < bestErr) {
         bestErr = err;
