@@ -47,6 +47,13 @@ const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
 /* floor(v / 2^k) for any int32 v and 1 <= k <= 31, without the implementation-defined right
    shift of a negative number (C99 6.5.7p5): bias into uint32, shift, remove the bias. */
 #define THSC_ASR32(v, k) ((int32_t)(((uint32_t)(v) + 0x80000000UL) >> (k)) - (int32_t)(0x80000000UL >> (k)))
+/* floor((s * f + 128) / 256) for 16-bit s and 8-bit f. avr-gcc's 24-bit integer (a GNU extension,
+   hence __extension__) lets it use two 8x8 multiplies instead of a 32-bit library multiply. */
+#if defined(__AVR__) && defined(__GNUC__) && defined(__UINT24_MAX__)
+#define THSC_MUL_HI8(s, f) ((uint16_t)((__extension__((__uint24)(s) * (uint8_t)(f) + 128u)) >> 8))
+#else
+#define THSC_MUL_HI8(s, f) ((uint16_t)(((uint32_t)(s) * (uint8_t)(f) + 128UL) >> 8))
+#endif
 #endif`;
 
 export const CAUTION_LINES = [
@@ -183,6 +190,28 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
   }
   const h = 2 ** d.shift;
   const wide = d.entryBits === 32 || d.spanMax > 32767;
+  if (!wide && d.shift <= 8 && p.high < 2 ** (8 + d.shift)) {
+    // Byte-split form for 8-bit MCUs: w = code << (8 - shift) holds the point index in its high
+    // byte and the fraction (scaled to /256) in its low byte, so neither needs a shift of its own;
+    // the first point sits at a multiple of 2^shift, so the index offset folds into the address.
+    // floor((span * f + 128) / 256) with f = frac * 2^(8 - shift) equals
+    // floor((span * frac + 2^(shift-1)) / 2^shift), which table.ts simulates.
+    const up = 8 - d.shift;
+    const first = d.base / h;
+    return {
+      wide,
+      decl: ['    uint16_t w, span, step;', '    uint8_t f;', `    const int16_t *p;`, '    int16_t a, kernel;'],
+      body: [
+        up > 0 ? `    w = (uint16_t)(code << ${up});` : '    w = code;',
+        '    f = (uint8_t)(w & 0xFFu);',
+        `    p = &${n.data}[(w >> 8)${first > 0 ? ` - ${first}u` : ''}];`,
+        `    a = ${rd}(p);`,
+        `    span = (uint16_t)(${p.dir > 0 ? `${rd}(p + 1) - a` : `a - ${rd}(p + 1)`}); /* >= 0: the points are monotonic */`,
+        '    step = THSC_MUL_HI8(span, f);',
+        `    kernel = (int16_t)(a ${p.dir > 0 ? '+' : '-'} (int16_t)step);`,
+      ],
+    };
+  }
   const S = wide ? 'int32_t' : 'int16_t';
   const U = wide ? 'uint32_t' : 'uint16_t';
   const mul =
@@ -194,7 +223,7 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
     wide,
     decl: ['    uint16_t off, idx, frac;', `    ${U} span, step;`, `    ${S} a, kernel;`],
     body: [
-      `    off = (uint16_t)(code - ${p.low}u);`,
+      `    off = (uint16_t)(code - ${d.base}u);`,
       `    idx = (uint16_t)(off >> ${d.shift});`,
       `    frac = (uint16_t)(off & ${h - 1}u);`,
       `    a = ${rd}(&${n.data}[idx]);`,
@@ -272,7 +301,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
   const rd = d.kind === 'table' && d.entryBits === 16 ? 'THSC_RD16' : 'THSC_RD32';
   if (d.kind === 'table' && d.shift > 0) {
     lines.push(
-      `    off = (uint16_t)(code - ${p.low}u);`,
+      `    off = (uint16_t)(code - ${d.base}u);`,
       `    idx = (uint16_t)(off >> ${d.shift});`,
       `    a = (float)${rd}(&${n.data}[idx]);`,
       `    b = (float)${rd}(&${n.data}[idx + 1u]);`,

@@ -11,6 +11,9 @@ import { errAt, modelAt, type Samples } from './samples';
 export interface TableDesign {
   kind: 'table';
   shift: number;
+  /** Code of the first point: the in-range low code rounded down to a multiple of 2^shift, so the
+   *  point index is the code's high bits and the C needs no subtraction before the shift. */
+  base: number;
   entries: number[];
   entryBits: 16 | 32;
   /** Width of the unsigned span * fraction product. */
@@ -20,8 +23,8 @@ export interface TableDesign {
 }
 
 /** Kernel value (before trim) for in-range code, exactly as the C computes it. */
-export function tableKernel(d: TableDesign, low: number, dir: 1 | -1, code: number): number {
-  const off = code - low;
+export function tableKernel(d: TableDesign, dir: 1 | -1, code: number): number {
+  const off = code - d.base;
   if (d.shift === 0) return d.entries[off]!;
   const h = 2 ** d.shift;
   const i = Math.floor(off / h);
@@ -32,15 +35,16 @@ export function tableKernel(d: TableDesign, low: number, dir: 1 | -1, code: numb
   return a + dir * step;
 }
 
-function segmentError(s: Samples, e: number[], shift: number, seg: number): number {
+function segmentError(s: Samples, e: number[], shift: number, base: number, seg: number): number {
   const h = 2 ** shift;
-  const first = seg * h;
-  const last = Math.min(s.high - s.low, first + h - 1);
+  const start = base + seg * h;
+  const first = Math.max(0, start - s.low);
+  const last = Math.min(s.high - s.low, start + h - 1 - s.low);
   const a = e[seg]!;
   const span = Math.abs(e[seg + 1]! - a);
   let worst = 0;
   for (let k = first; k <= last; k++) {
-    const frac = k - first;
+    const frac = s.low + k - start;
     const y = a + s.dir * Math.floor((span * frac + h / 2) / h);
     const err = errAt(s, k, y);
     if (err > worst) worst = err;
@@ -76,14 +80,15 @@ export function designTable(s: Samples, shift: number): { design: TableDesign; m
     let maxErr = 0;
     for (let k = 0; k < n; k++) maxErr = Math.max(maxErr, errAt(s, k, entries[k]!));
     const entryBits = entries.every(fitsInt16) ? 16 : 32;
-    return { design: { kind: 'table', shift, entries, entryBits, mulBits: 16, spanMax: 0 }, maxErr };
+    return { design: { kind: 'table', shift, base: s.low, entries, entryBits, mulBits: 16, spanMax: 0 }, maxErr };
   }
   const h = 2 ** shift;
-  const segs = Math.floor((s.high - s.low) / h) + 1;
+  const base = Math.floor(s.low / h) * h;
+  const segs = Math.floor((s.high - base) / h) + 1;
   const e: number[] = [];
-  for (let i = 0; i <= segs; i++) e.push(Math.round(modelAt(s, s.low + i * h)));
+  for (let i = 0; i <= segs; i++) e.push(Math.round(modelAt(s, base + i * h)));
   if (!e.every(fitsInt32)) return undefined;
-  const err = Array.from({ length: segs }, (_, i) => segmentError(s, e, shift, i));
+  const err = Array.from({ length: segs }, (_, i) => segmentError(s, e, shift, base, i));
   // Coordinate search: move one entry while the worse of its two segments improves.
   for (let pass = 0; pass < 60; pass++) {
     let improved = false;
@@ -95,8 +100,8 @@ export function designTable(s: Samples, shift: number): { design: TableDesign; m
           const cur = Math.max(left, right);
           e[j]! += step;
           if (!monotoneOk(e, j, s.dir) || !fitsInt32(e[j]!)) { e[j]! -= step; break; }
-          const nl = j > 0 ? segmentError(s, e, shift, j - 1) : 0;
-          const nr = j < segs ? segmentError(s, e, shift, j) : 0;
+          const nl = j > 0 ? segmentError(s, e, shift, base, j - 1) : 0;
+          const nr = j < segs ? segmentError(s, e, shift, base, j) : 0;
           if (Math.max(nl, nr) < cur - 1e-9) {
             if (j > 0) err[j - 1] = nl;
             if (j < segs) err[j] = nr;
@@ -116,5 +121,5 @@ export function designTable(s: Samples, shift: number): { design: TableDesign; m
   const entryBits = e.every((v) => v >= INT16_MIN && v <= INT16_MAX) ? 16 : 32;
   const mulBits = spanMax * (h - 1) + h / 2 <= 0xffff ? 16 : 32;
   const maxErr = Math.max(0, ...err);
-  return { design: { kind: 'table', shift, entries: e, entryBits, mulBits, spanMax }, maxErr };
+  return { design: { kind: 'table', shift, base, entries: e, entryBits, mulBits, spanMax }, maxErr };
 }

@@ -1,0 +1,72 @@
+// Cross-compiles generated code for an 8-bit AVR (atmega328p) and a Cortex-M0 at -Os, runs the
+// AVR build in simavr, and compares the 12-bit junction channel with two float baselines.
+// Skips (does not fail) when a toolchain is missing; CI installs them with
+// scripts/install-toolchains.sh. Speed figures are printed here; the targets live in the bench.
+
+import { describe, expect, it } from 'vitest';
+import { generateC } from '../../../server/src/codegen';
+import { junctionChannel, loadOperatingPoint, rtdChannel, syntheticDiodeChannel } from '../../fixtures/codegen/channels';
+import { compareOnTargets, formatComparison } from '../../fixtures/codegen/measure';
+import { AVR_FLAGS, M0_FLAGS, WorkDir, missingTools, run } from '../../fixtures/codegen/toolchain';
+
+const missAvr = missingTools(['avr-gcc', 'avr-size']);
+const missM0 = missingTools(['arm-none-eabi-gcc', 'arm-none-eabi-size']);
+const missSim = missingTools(['simavr']);
+for (const [what, miss] of [['AVR', missAvr], ['Cortex-M0', missM0], ['simavr', missSim]] as const) {
+  if (miss.length) console.log(`codegen targets: ${what} checks skipped, missing ${miss.join(', ')} (run scripts/install-toolchains.sh)`);
+}
+
+describe('generated C on cross compilers', () => {
+  const inputs = [
+    syntheticDiodeChannel({ floatVariant: true }),
+    rtdChannel({ channelName: 'rtd poly', method: 'polynomial', outputScale: 20, calibration: { mode: 'two-point', offset: 1, gain: 1.01, runtime: true } }),
+    rtdChannel({ channelName: 'rtd milli', outputScale: 1000, errorTarget: 0.01 }),
+  ];
+
+  it.skipIf(missAvr.length > 0)('compiles warning-free for atmega328p with the table in flash', () => {
+    const dir = new WorkDir();
+    try {
+      dir.write('conv.c', generateC(inputs, { fileStem: 'conv' }).text);
+      run('avr-gcc', [...AVR_FLAGS, '-pedantic', '-c', 'conv.c', '-o', 'conv.o'], dir.path);
+      // Tables must land in .progmem (flash), not .data (copied to RAM at start-up).
+      const sections = run('avr-objdump', ['-h', 'conv.o'], dir.path).stdout;
+      expect(sections).toMatch(/\.progmem/);
+      expect(sections).not.toMatch(/\.data\s+0*[1-9a-f]/);
+    } finally {
+      dir.dispose();
+    }
+  });
+
+  it.skipIf(missM0.length > 0)('compiles warning-free for Cortex-M0', () => {
+    const dir = new WorkDir();
+    try {
+      dir.write('conv.c', generateC(inputs, { fileStem: 'conv' }).text);
+      run('arm-none-eabi-gcc', [...M0_FLAGS, '-pedantic', '-c', 'conv.c', '-o', 'conv.o'], dir.path);
+    } finally {
+      dir.dispose();
+    }
+  });
+
+  it('12-bit junction channel -40..125 degC vs float baselines (figures printed)', async () => {
+    const op = await loadOperatingPoint();
+    if (!op) {
+      console.log('codegen targets: junction channel skipped, server/src/physics/junction.ts not present');
+      return;
+    }
+    const r = compareOnTargets(junctionChannel(op));
+    console.log(formatComparison(r, false));
+    // Outside check: the model is the physics module's SPICE Gummel-Poon temperature law (ngspice
+    // bjttemp.c); our integer result must stay within the 0.02 degC target over every in-range code.
+    expect(r.ours.maxErrorC).toBeLessThanOrEqual(0.02);
+    // Baseline (b) solves the same published equation in float; it must agree to well under our error.
+    expect(r.newton.maxErrorC).toBeLessThan(0.01);
+    // A straight line cannot follow the junction's curvature (common practice, no source: about 1 degC).
+    expect(r.line.maxErrorC).toBeGreaterThan(0.1);
+    if (missSim.length === 0 && missAvr.length === 0) {
+      expect(r.avrMismatches).toBe(0);
+      expect(r.ours.avrCyclesMean).toBeGreaterThan(0);
+    }
+    if (missAvr.length === 0) expect(r.ours.avrBytes).toBeGreaterThan(0);
+    if (missM0.length === 0) expect(r.ours.m0Bytes).toBeGreaterThan(0);
+  });
+});
