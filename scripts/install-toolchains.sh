@@ -10,7 +10,6 @@ command -v gcc >/dev/null 2>&1 || need+=(gcc libc6-dev)
 command -v avr-gcc >/dev/null 2>&1 || need+=(gcc-avr binutils-avr)
 [ -f /usr/lib/avr/include/avr/pgmspace.h ] || need+=(avr-libc)
 command -v simavr >/dev/null 2>&1 || need+=(simavr)
-[ -f /usr/include/simavr/sim_avr.h ] || [ -f /usr/include/simavr/avr/avr_mcu_section.h ] || need+=(libsimavr-dev)
 command -v arm-none-eabi-gcc >/dev/null 2>&1 || need+=(gcc-arm-none-eabi binutils-arm-none-eabi)
 [ -d /usr/lib/arm-none-eabi/newlib ] || need+=(libnewlib-arm-none-eabi)
 
