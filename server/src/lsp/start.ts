@@ -1,5 +1,13 @@
-// Placeholder until the language server lands: `thermoscribe serve` reports it is unavailable.
+// `thermoscribe serve --stdio`: the language server over stdin/stdout. Returns 0 and keeps serving
+// (the connection holds the process open until the client sends exit).
+import { createConnection, ProposedFeatures } from 'vscode-languageserver/node';
+import { createServer } from './server';
+
 export function startServer(): number {
-  process.stderr.write('thermoscribe serve: the language server is not built into this version\n');
-  return 2;
+  const connection = createConnection(ProposedFeatures.all, process.stdin, process.stdout);
+  // Anything written to stdout would corrupt the protocol stream: route console output to stderr.
+  console.log = (...args: unknown[]) => process.stderr.write(args.map(String).join(' ') + '\n');
+  createServer(connection);
+  connection.listen();
+  return 0;
 }

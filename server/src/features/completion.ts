@@ -1,0 +1,195 @@
+// Completion by context, read from the text before the cursor (which is usually not valid yet):
+// block keywords at top level; the fields of the enclosing block not yet given; after `key =`
+// the names, options or forms the field takes; after a number the units of its dimension.
+import type { Analysis } from '../engine';
+import type { BlockNode, Span } from '../syntax/ast';
+import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
+import type { Dimension } from '../model/units';
+import { blockAt } from './locate';
+import { formatSI, trimNumber } from './figures';
+
+export type CompletionKind = 'keyword' | 'field' | 'unit' | 'reference' | 'option' | 'form';
+
+export interface CompletionItem {
+  label: string;
+  kind: CompletionKind;
+  detail?: string;
+  /** Markdown. */
+  documentation?: string;
+  /** Text inserted; a snippet (`${1:x}` placeholders) when `snippet` is true. */
+  insertText?: string;
+  snippet?: boolean;
+  /** Text replaced by the item (the partial word before the cursor). */
+  replace: Span;
+}
+
+const NUMBER_AT_END = /([+-]?(?:\d+[RrkKMG]\d+|\d*\.?\d+(?:[eE][+-]?\d+)?))([ \t]*)([^\s\d.+-][^\s]*)?$/;
+
+export function completion(a: Analysis, offset: number): CompletionItem[] {
+  const file = a.files[0];
+  if (!file) return [];
+  const text = file.text;
+  const lineStart = Math.max(text.lastIndexOf('\n', offset - 1), text.lastIndexOf('\r', offset - 1)) + 1;
+  const prefix = text.slice(lineStart, offset);
+  if (prefix.includes('#')) return [];
+  const word = /[A-Za-z_][A-Za-z0-9_]*$/.exec(prefix)?.[0] ?? '';
+  const wordSpan = { start: offset - word.length, end: offset };
+  const block = blockAt(file.parse.tree, offset);
+  const headerEnd = block ? text.indexOf('{', block.span.start) : -1;
+  if (!block || offset <= headerEnd) {
+    return /^[ \t]*[A-Za-z_]*$/.test(prefix) ? topLevel(wordSpan) : [];
+  }
+  const spec = blockSpec(block.keyword.text);
+  if (!spec) return [];
+  const assign = /^[ \t]*([A-Za-z_][A-Za-z0-9_]*)[ \t]*=[ \t]*(.*)$/.exec(prefix);
+  if (!assign) {
+    return /^[ \t]*[A-Za-z_]*$/.test(prefix) ? fieldNames(spec.kind, block, lineStart, wordSpan) : [];
+  }
+  const fs = fieldSpec(spec, assign[1]!);
+  if (!fs) return [];
+  return valueItems(a, fs, assign[2]!, offset, wordSpan);
+}
+
+function topLevel(replace: Span): CompletionItem[] {
+  const block = (kind: BlockKind, body: string): CompletionItem => ({
+    label: kind,
+    kind: 'keyword',
+    detail: `${kind} block`,
+    documentation: BLOCKS[kind].doc,
+    insertText: `${kind} \${1:name} {\n${body}\n}`,
+    snippet: true,
+    replace,
+  });
+  return [
+    block('junction', '  kind = ${2:npn}\n  IS   = ${3:10 fA}'),
+    block('adc', '  bits      = ${2:12}\n  reference = ${3:3.3 V}'),
+    block('channel', '  sensor = ${2:sensor}\n  adc    = ${3:adc}\n  bias   = ${4:current 10 uA}\n  range  = ${5:-40 °C .. 85 °C}'),
+    { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: 'Brings in the junction and ADC definitions of another spec file, e.g. `use "parts.tsense"`. The path is relative to this file and may not leave the workspace.', insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
+  ];
+}
+
+function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replace: Span): CompletionItem[] {
+  const spec = BLOCKS[kind];
+  const given = new Set<string>();
+  for (const fl of block.fields) {
+    if (fl.kind !== 'field' || (fl.span.start >= lineStart && fl.span.start <= replace.end)) continue;
+    const fs = fieldSpec(spec, fl.key.text);
+    if (fs) given.add(fs.name);
+  }
+  return spec.fields.filter((fs) => !given.has(fs.name)).map((fs) => ({
+    label: fs.name,
+    kind: 'field' as const,
+    detail: fs.defaultText !== undefined ? `default ${fs.defaultText}` : REQUIRED.has(`${kind}.${fs.name}`) ? 'required' : 'optional',
+    documentation: `${fs.doc}\n\nExample: \`${fs.example}\``,
+    insertText: `${fs.name} = \${1:${escapeSnippet(fs.example.slice(fs.example.indexOf('=') + 1).trim())}}`,
+    snippet: true,
+    replace,
+  }));
+}
+
+/** Fields the resolver reports missing when absent (server/src/model/resolve.ts). */
+const REQUIRED = new Set(['junction.IS', 'adc.bits', 'adc.reference', 'channel.sensor', 'channel.adc', 'channel.bias', 'channel.range']);
+
+function escapeSnippet(s: string): string {
+  return s.replace(/[$}\\]/g, (c) => `\\${c}`);
+}
+
+function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, wordSpan: Span): CompletionItem[] {
+  const form = fs.form;
+  const onlyWord = /^[A-Za-z_]*$/.test(value);
+  if (form.form === 'ref') {
+    if (!onlyWord) return [];
+    return [...a.model.blocks.values()].filter((b) => b.kind === form.target).map((b) => ({
+      label: b.node.name.text,
+      kind: 'reference' as const,
+      detail: `${form.target}${b.file === a.path ? '' : ` from ${b.file.split(/[\\/]/).pop()}`}`,
+      documentation: referenceDoc(a, b.kind, b.node.name.text),
+      replace: wordSpan,
+    }));
+  }
+  if (form.form === 'choice') {
+    if (!onlyWord) return [];
+    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: OPTION_DOCS[o] ?? fs.doc, replace: wordSpan }));
+  }
+  if (form.form === 'bias' && onlyWord) {
+    return [
+      { label: 'resistor', kind: 'form', detail: 'resistor R from V', documentation: 'A resistor from a supply rail; each value may carry a tolerance, e.g. `resistor 47k ± 1 % from 3.3 V ± 2 %`.', insertText: 'resistor ${1:47k} from ${2:3.3 V}', snippet: true, replace: wordSpan },
+      { label: 'current', kind: 'form', detail: 'current I', documentation: 'A constant-current source, e.g. `current 100 uA ± 2 %`.', insertText: 'current ${1:100 uA}', snippet: true, replace: wordSpan },
+    ];
+  }
+  if (form.form === 'bias' && /^resistor[ \t]+\S+[ \t]+[A-Za-z]*$/.test(value) && !NUMBER_AT_END.test(value)) {
+    return [{ label: 'from', kind: 'keyword', detail: 'from a supply', documentation: 'Names the supply the resistor is tied to: `from 3.3 V`.', replace: wordSpan }];
+  }
+  if (form.form === 'accuracy' && value.trim() === '') {
+    return [{ label: '± 0.5 °C', kind: 'form', detail: 'accuracy target', documentation: fs.doc, insertText: '± ${1:0.5} °C', snippet: true, replace: wordSpan }];
+  }
+  const num = NUMBER_AT_END.exec(value);
+  if (!num) return [];
+  const partial = num[3] ?? '';
+  const replace = { start: offset - partial.length, end: offset };
+  const before = value.slice(0, value.length - num[0].length);
+  if (form.form === 'resolution') {
+    return [
+      { label: '°C per count', kind: 'unit', detail: 'kelvin per ADC count', documentation: 'The value is the largest temperature step one count may span.', replace },
+      { label: 'counts per °C', kind: 'unit', detail: 'ADC counts per kelvin', documentation: 'The value is the fewest counts one kelvin must give.', replace },
+    ];
+  }
+  const dim = numberDimension(fs, before);
+  if (!dim) return [];
+  return unitsFor(dim).map(([label, doc]) => ({ label, kind: 'unit' as const, detail: doc, replace }));
+}
+
+/** Dimension of a number being typed in a field, from its place in the value. */
+function numberDimension(fs: FieldSpec, before: string): Dimension | null {
+  if (/(±|\+\/-|\+-)[ \t]*$/.test(before)) return 'ratio';
+  const form = fs.form;
+  switch (form.form) {
+    case 'quantity':
+    case 'range':
+      return form.dimension;
+    case 'accuracy':
+      return 'temperature';
+    case 'bias':
+      if (/^[ \t]*current\b/.test(before)) return 'current';
+      if (/\bfrom[ \t]*$/.test(before)) return 'voltage';
+      if (/^[ \t]*resistor[ \t]*$/.test(before)) return 'resistance';
+      return null;
+    default:
+      return null;
+  }
+}
+
+const UNITS: Record<Dimension, [string, string][]> = {
+  voltage: [['V', 'volt'], ['mV', 'millivolt, 1e-3 V'], ['uV', 'microvolt, 1e-6 V']],
+  current: [['mA', 'milliampere, 1e-3 A'], ['uA', 'microampere, 1e-6 A'], ['µA', 'microampere, 1e-6 A'], ['nA', 'nanoampere, 1e-9 A'], ['pA', 'picoampere, 1e-12 A'], ['fA', 'femtoampere, 1e-15 A'], ['A', 'ampere']],
+  resistance: [['Ω', 'ohm'], ['kΩ', 'kilohm, 1e3 Ω'], ['MΩ', 'megohm, 1e6 Ω'], ['ohm', 'ohm'], ['kohm', 'kilohm, 1e3 Ω'], ['k', 'kilohm as in the resistor code 10k'], ['M', 'megohm as in the resistor code 1M']],
+  capacitance: [['pF', 'picofarad, 1e-12 F'], ['nF', 'nanofarad, 1e-9 F'], ['uF', 'microfarad, 1e-6 F']],
+  temperature: [['°C', 'degree Celsius'], ['K', 'kelvin'], ['°F', 'degree Fahrenheit']],
+  energy: [['eV', 'electronvolt']],
+  power: [['mW', 'milliwatt, 1e-3 W'], ['W', 'watt']],
+  'thermal-resistance': [['K/W', 'kelvin per watt']],
+  ratio: [['%', 'percent, 1e-2'], ['ppm', 'parts per million, 1e-6']],
+  count: [['counts', 'ADC counts']],
+  dimensionless: [],
+};
+
+function unitsFor(d: Dimension): [string, string][] {
+  return UNITS[d];
+}
+
+const OPTION_DOCS: Record<string, string> = {
+  npn: 'Diode-connected NPN transistor (base tied to collector).',
+  pnp: 'Diode-connected PNP transistor (base tied to collector).',
+  diode: 'A plain junction diode.',
+  table: 'Firmware converts codes through a generated table (model-exact).',
+  line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.',
+};
+
+function referenceDoc(a: Analysis, kind: BlockKind, name: string): string {
+  if (kind === 'junction') {
+    const j = a.model.junctions.get(name);
+    return j ? `${j.params.kind}, IS ${formatSI(j.params.IS, 'A')}, N ${trimNumber(j.params.N, 4)}` : 'junction (has errors)';
+  }
+  const adc = a.model.adcs.get(name);
+  return adc ? `${adc.bits} bits, reference ${formatSI(adc.reference.value, 'V')}` : 'adc (has errors)';
+}

@@ -1,0 +1,36 @@
+// Formatting of computed figures for hovers, inlay hints and fix titles: SI prefixes and
+// sensible precision (3 significant digits), temperatures in °C, small rises in mK.
+import { formatSI, trimNumber } from '../model/read-value';
+import { ZERO_CELSIUS_K } from '../physics/constants';
+import type { Analysis } from '../engine';
+import type { ChannelResult } from '../analysis/types';
+
+export { formatSI, trimNumber };
+
+export const volts = (v: number) => formatSI(v, 'V');
+export const amps = (a: number) => formatSI(a, 'A');
+export const ohms = (r: number) => formatSI(r, 'Ω');
+export const celsius = (c: number) => `${trimNumber(c, 4)} °C`;
+export const kelvinToCelsius = (k: number) => celsius(k - ZERO_CELSIUS_K);
+export const slopeMv = (voltsPerKelvin: number) => `${trimNumber(voltsPerKelvin * 1000, 3)} mV/K`;
+export const perCount = (cPerCount: number) => (Number.isFinite(cPerCount) ? `${trimNumber(cPerCount, 3)} °C/count` : 'no counts per kelvin');
+export const countsPerK = (n: number) => `${trimNumber(n, 3)} counts/K`;
+export const percent = (ratio: number) => `${trimNumber(ratio * 100, 3)} %`;
+
+/** A temperature rise: mK below 1 K, else K. */
+export function rise(k: number): string {
+  return Math.abs(k) < 1 ? `${trimNumber(k * 1000, 3)} mK` : `${trimNumber(k, 3)} K`;
+}
+
+/** A temperature difference or error in K (3 significant digits). */
+export const kelvinDelta = (k: number) => `${trimNumber(k, 3)} K`;
+
+/** The analysed channel of this name in the entry file, if it could be analysed. */
+export function channelResult(a: Analysis, name: string): ChannelResult | undefined {
+  return a.channels.find((r) => r.channel.name === name);
+}
+
+/** Channels (analysed) that use a junction or ADC definition. */
+export function channelsUsing(a: Analysis, name: string, as: 'sensor' | 'adc'): ChannelResult[] {
+  return a.channels.filter((r) => (as === 'sensor' ? r.channel.sensor.name : r.channel.adc.name) === name);
+}

@@ -1,0 +1,286 @@
+// Hover: computed figures for a channel, its bias, a junction or an ADC; a number's value in
+// base units; a field's documentation and default. Offsets in, markdown and a span out.
+import type { Analysis } from '../engine';
+import type { ChannelResult, SweepPoint } from '../analysis/types';
+import type { AdcDef, JunctionDef } from '../model/types';
+import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
+import { BLOCKS, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
+import { DiagnosticSink } from '../checks/diagnostic';
+import { readQuantityValue } from '../model/read-value';
+import { readUnit, type Dimension } from '../model/units';
+import { pointAt } from '../analysis/sweep';
+import { operatingPoint } from '../physics/junction';
+import { ZERO_CELSIUS_K } from '../physics/constants';
+import { locate, type Located } from './locate';
+import * as f from './figures';
+
+export interface HoverResult {
+  markdown: string;
+  span: Span;
+}
+
+const ROOM_K = 25 + ZERO_CELSIUS_K;
+const SHORT_CAUTION = '_Model figures, not a safety assessment: verify the built channel against a calibrated reference thermometer._';
+
+export function hover(a: Analysis, offset: number): HoverResult | null {
+  const tree = a.files[0]?.parse.tree;
+  if (!tree) return null;
+  const at = locate(tree, offset);
+  if (!at) return null;
+  switch (at.kind) {
+    case 'use':
+      return { markdown: useHover(a, at.node.path.text), span: at.node.path.span };
+    case 'block-keyword':
+    case 'block-name': {
+      const span = at.kind === 'block-name' ? at.block.name.span : at.block.keyword.span;
+      const md = blockHover(a, at.block);
+      return md ? { markdown: md, span } : null;
+    }
+    case 'field-key': {
+      const md = fieldDocHover(at.block, at.field);
+      return md ? { markdown: md, span: at.field.key.span } : null;
+    }
+    case 'term':
+      return termHover(a, at);
+  }
+}
+
+function useHover(a: Analysis, rel: string): string {
+  const used = a.files[0]!.uses.find((u) => u.node.path.text === rel);
+  const file = used?.target ? a.files.find((x) => x.path === used.target) : undefined;
+  if (!file) return `\`use "${rel}"\`: not loaded`;
+  const names = file.parse.tree.items.filter((i): i is BlockNode => i.kind === 'block').map((b) => `${b.keyword.text} \`${b.name.text}\``);
+  return `**${rel}** brings in ${names.length ? names.join(', ') : 'no definitions'}`;
+}
+
+function blockHover(a: Analysis, block: BlockNode): string | null {
+  const spec = blockSpec(block.keyword.text);
+  if (!spec) return null;
+  const name = block.name.text;
+  if (spec.kind === 'channel') {
+    const r = f.channelResult(a, name);
+    return r ? channelHover(r) : `**channel ${name}**\n\n${spec.doc}\n\nNo figures: the channel has errors (see the problems list).`;
+  }
+  if (spec.kind === 'junction') {
+    const j = a.model.junctions.get(name);
+    return j ? junctionHover(a, j) : `**junction ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
+  }
+  const adc = a.model.adcs.get(name);
+  return adc ? adcHover(a, adc) : `**adc ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
+}
+
+function biasText(r: ChannelResult): string {
+  const b = r.channel.bias;
+  return b.kind === 'current'
+    ? `constant current ${f.amps(b.amps.value)}`
+    : `resistor ${f.ohms(b.ohms.value)} from ${f.volts(b.supply.value)}`;
+}
+
+/** Low end, 25 °C (when inside the range) and high end of a channel. */
+function keyPoints(r: ChannelResult): { low: SweepPoint; room: SweepPoint | null; high: SweepPoint } {
+  const c = r.channel;
+  const low = r.sweep[0]!;
+  const high = r.sweep[r.sweep.length - 1]!;
+  const room = ROOM_K >= c.lowK && ROOM_K <= c.highK ? pointAt(c, ROOM_K) : null;
+  return { low, room, high };
+}
+
+function roomNote(r: ChannelResult): string {
+  const c = r.channel;
+  return ROOM_K >= c.lowK && ROOM_K <= c.highK ? '' : `\n\n25 °C lies outside the range (${f.kelvinToCelsius(c.lowK)} .. ${f.kelvinToCelsius(c.highK)}).`;
+}
+
+function pointTable(r: ChannelResult, rows: ('amps' | 'volts' | 'slope' | 'counts' | 'perCount' | 'heat')[]): string {
+  const { low, room, high } = keyPoints(r);
+  const pts = room ? [low, room, high] : [low, high];
+  const worst = r.summary.worst;
+  const isWorst = (p: SweepPoint) => p.kelvin === worst.kelvin;
+  const head = `| | ${pts.map((p) => f.celsius(p.celsius)).join(' | ')} |\n|---|${pts.map(() => '---:').join('|')}|`;
+  const line = (label: string, cell: (p: SweepPoint) => string) => `| ${label} | ${pts.map(cell).join(' | ')} |`;
+  const out = [head];
+  for (const row of rows) {
+    if (row === 'amps') out.push(line('bias current', (p) => f.amps(p.amps)));
+    if (row === 'volts') out.push(line('sensed voltage', (p) => f.volts(p.volts)));
+    if (row === 'slope') out.push(line('slope', (p) => f.slopeMv(p.slope)));
+    if (row === 'counts') out.push(line('counts per kelvin', (p) => f.trimNumber(p.countsPerKelvin, 3)));
+    if (row === 'perCount') out.push(line('°C per count', (p) => f.trimNumber(p.celsiusPerCount, 3) + (isWorst(p) ? ' ◀ worst' : '')));
+    if (row === 'heat') out.push(line('self-heating', (p) => f.rise(p.selfHeatingK)));
+  }
+  return out.join('\n');
+}
+
+export function channelHover(r: ChannelResult): string {
+  const c = r.channel;
+  const s = r.summary;
+  const spanV = s.voltsMax - s.voltsMin;
+  const vref = c.adc.reference.value;
+  const nl = s.nonlinearity;
+  return [
+    `**channel ${c.name}**: junction \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.volts(vref)})`,
+    pointTable(r, ['amps', 'volts', 'slope', 'counts', 'perCount']) + roomNote(r),
+    `Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** (${f.countsPerK(s.worst.countsPerKelvin)}) at ${f.celsius(s.worst.celsius)}` +
+      (c.resolutionKPerCount !== null ? `; required ${f.perCount(c.resolutionKPerCount)}` : ''),
+    `Sensed voltage: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)}, a span of ${f.volts(spanV)} = ${f.percent(spanV / vref)} of the ${f.volts(vref)} reference (peak at ${f.percent(s.voltsMax / vref)}); codes ${s.codeMin} .. ${s.codeMax}`,
+    `Self-heating: up to ${f.rise(s.selfHeatingMaxK)} (θJA ${f.trimNumber(c.thetaJA, 4)} K/W)`,
+    `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
+    SHORT_CAUTION,
+  ].join('\n\n');
+}
+
+export function biasHover(r: ChannelResult): string {
+  const c = r.channel;
+  const s = r.summary;
+  const b = c.bias;
+  const tol = b.kind === 'current'
+    ? (b.amps.tolerance ? `current ± ${f.percent(b.amps.tolerance)}` : '')
+    : [b.ohms.tolerance ? `resistor ± ${f.percent(b.ohms.tolerance)}` : '', b.supply.tolerance ? `supply ± ${f.percent(b.supply.tolerance)}` : ''].filter(Boolean).join(', ');
+  const inWindow = s.ampsMin >= c.windowLowA && s.ampsMax <= c.windowHighA;
+  return [
+    `**bias of ${c.name}**: ${biasText(r)}${tol ? ` (${tol}; figures at nominal values)` : ''}`,
+    pointTable(r, ['amps', 'volts', 'heat']) + roomNote(r),
+    `Current ${f.amps(s.ampsMin)} .. ${f.amps(s.ampsMax)}: ${inWindow ? 'inside' : '**outside**'} the sound window ${f.amps(c.windowLowA)} .. ${f.amps(c.windowHighA)}`,
+    `Self-heating: up to ${f.rise(s.selfHeatingMaxK)}`,
+  ].join('\n\n');
+}
+
+function junctionHover(a: Analysis, j: JunctionDef): string {
+  const p = j.params;
+  // A reference operating point, 10 µA at 25 °C, so parts can be compared at a glance.
+  const op = operatingPoint(p, { kind: 'current', amps: 10e-6 }, ROOM_K);
+  const users = f.channelsUsing(a, j.name, 'sensor').map((r) => `\`${r.channel.name}\``);
+  return [
+    `**junction ${j.name}** (${p.kind})`,
+    `IS ${f.amps(p.IS)}${j.isTolerance ? ` ± ${f.percent(j.isTolerance)}` : ''}, N ${f.trimNumber(p.N, 4)}, EG ${f.trimNumber(p.EG, 4)} eV, XTI ${f.trimNumber(p.XTI, 4)}` +
+      (p.kind === 'diode' ? '' : `, BF ${f.trimNumber(p.BF, 4)}, XTB ${f.trimNumber(p.XTB, 4)}`) +
+      `, TNOM ${f.kelvinToCelsius(p.TNOM)}, RS ${f.ohms(p.RS)}`,
+    `At 10 µA and 25 °C: ${f.volts(op.volts)}, slope ${f.slopeMv(op.slope)}`,
+    `Rated ${f.kelvinToCelsius(j.ratedLowK)} .. ${f.kelvinToCelsius(j.ratedHighK)}; θJA ${f.trimNumber(j.thetaJA, 4)} K/W`,
+    users.length ? `Used by ${users.join(', ')}` : 'Used by no channel in this file',
+  ].join('\n\n');
+}
+
+function adcHover(a: Analysis, adc: AdcDef): string {
+  const vref = adc.reference.value;
+  const lsb = vref / 2 ** adc.bits;
+  const lines = f.channelsUsing(a, adc.name, 'adc').map((r) => {
+    const s = r.summary;
+    return `- \`${r.channel.name}\`: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)} (${f.percent((s.voltsMax - s.voltsMin) / vref)} of the reference), codes ${s.codeMin} .. ${s.codeMax}, worst ${f.perCount(s.worst.celsiusPerCount)}`;
+  });
+  return [
+    `**adc ${adc.name}**: ${adc.bits} bits, reference ${f.volts(vref)}${adc.reference.tolerance ? ` ± ${f.percent(adc.reference.tolerance)}` : ''}`,
+    `LSB ${f.volts(lsb)}; ${2 ** adc.bits} codes; ${f.trimNumber(2 ** adc.bits / vref / 1000, 4)} counts per mV`,
+    (adc.maxSourceOhms !== null ? `Source impedance at most ${f.ohms(adc.maxSourceOhms)}` : 'Source impedance unchecked') +
+      (adc.sampleFarads !== null ? `; sampling capacitance ${f.formatSI(adc.sampleFarads, 'F')}` : ''),
+    lines.length ? `Channels on this ADC:\n${lines.join('\n')}` : 'No channel in this file reads this ADC',
+  ].join('\n\n');
+}
+
+function fieldDocHover(block: BlockNode, field: FieldNode): string | null {
+  const spec = blockSpec(block.keyword.text);
+  const fs = spec ? fieldSpec(spec, field.key.text) : undefined;
+  if (!spec || !fs) return null;
+  return fieldDoc(spec.kind, fs.name);
+}
+
+/** Fields the resolver reports missing when absent (server/src/model/resolve.ts). */
+const REQUIRED = new Set(['junction.IS', 'adc.bits', 'adc.reference', 'channel.sensor', 'channel.adc', 'channel.bias', 'channel.range']);
+
+/** Documentation of a field from the schema: doc, default and an example. */
+export function fieldDoc(kind: BlockKind, name: string): string {
+  const fs = BLOCKS[kind].fields.find((x) => x.name === name)!;
+  const alias = fs.aliases?.length ? ` (also ${fs.aliases.join(', ')})` : '';
+  return [
+    `**${fs.name}**${alias}, in ${kind}`,
+    fs.doc,
+    fs.defaultText !== undefined ? `Default: \`${fs.defaultText}\`` : REQUIRED.has(`${kind}.${fs.name}`) ? 'Required.' : 'Optional: unchecked when absent.',
+    `Example: \`${fs.example}\``,
+  ].join('\n\n');
+}
+
+function termHover(a: Analysis, at: Extract<Located, { kind: 'term' }>): HoverResult | null {
+  const { block, field, term, quantity } = at;
+  const kind = blockSpec(block.keyword.text)?.kind;
+  const key = kind ? fieldSpec(BLOCKS[kind], field.key.text)?.name : undefined;
+  const r = kind === 'channel' ? f.channelResult(a, block.name.text) : undefined;
+  // A reference to a junction or an ADC: that definition's figures.
+  if (term.kind === 'word' && kind === 'channel' && (key === 'sensor' || key === 'adc')) {
+    const j = key === 'sensor' ? a.model.junctions.get(term.text) : undefined;
+    const adc = key === 'adc' ? a.model.adcs.get(term.text) : undefined;
+    if (j) return { markdown: junctionHover(a, j), span: term.span };
+    if (adc) return { markdown: adcHover(a, adc), span: term.span };
+    return null;
+  }
+  const biasPart = key === 'bias' && r ? biasHover(r) : null;
+  if (quantity && kind && key) {
+    const meaning = quantityMeaning(kind, key, field, at.index, quantity);
+    const value = meaning ? valueText(quantity, meaning) : null;
+    if (value) return { markdown: biasPart ? `${value}\n\n---\n\n${biasPart}` : value, span: quantity.span };
+  }
+  if (biasPart) return { markdown: biasPart, span: term.span };
+  return null;
+}
+
+interface Meaning {
+  dimension: Dimension;
+  difference: boolean;
+}
+
+/** The dimension a quantity has in its place: field form, bias slot, tolerance or resolution. */
+function quantityMeaning(kind: BlockKind, key: string, field: FieldNode, index: number, q: QuantityTerm): Meaning | null {
+  const u = q.unit ? readUnit(q.unit.text) : null;
+  if (u && typeof u !== 'string' && u.dimension === 'ratio') return { dimension: 'ratio', difference: false };
+  const isTolerance = field.value.some((t) => (t.kind === 'quantity' && t.tolerance === q) || (t.kind === 'tolerance' && t.amount === q));
+  const fs = BLOCKS[kind].fields.find((x) => x.name === key);
+  if (!fs) return null;
+  const form = fs.form;
+  switch (form.form) {
+    case 'quantity':
+      return { dimension: form.dimension, difference: (form.difference ?? false) || isTolerance };
+    case 'range':
+      return { dimension: form.dimension, difference: isTolerance };
+    case 'accuracy':
+      return { dimension: 'temperature', difference: true };
+    case 'resolution': {
+      const next = field.value[index + 2];
+      return next && (next.kind === 'word' || next.kind === 'unit') && /count|LSB/.test(next.text) ? { dimension: 'temperature', difference: true } : { dimension: 'count', difference: false };
+    }
+    case 'bias': {
+      const head = field.value[0];
+      if (head?.kind === 'word' && head.text === 'current') return { dimension: 'current', difference: false };
+      return { dimension: index >= 3 ? 'voltage' : 'resistance', difference: false };
+    }
+    default:
+      return null;
+  }
+}
+
+const BASE_UNIT: Record<Dimension, string> = {
+  voltage: 'V', current: 'A', resistance: 'Ω', capacitance: 'F', temperature: 'K', energy: 'eV', power: 'W',
+  'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
+};
+
+function valueText(q: QuantityTerm, m: Meaning): string | null {
+  const sink = new DiagnosticSink();
+  const written = q.number.text + (q.unit ? (q.unit.span.start === q.number.span.end ? '' : ' ') + q.unit.text : '');
+  if (m.dimension === 'ratio') {
+    const u = q.unit ? readUnit(q.unit.text) : null;
+    const scale = u && typeof u !== 'string' ? u.scale : 1;
+    return `\`${written}\` = ${f.trimNumber(q.number.value * scale, 6)} (relative)`;
+  }
+  const v = readQuantityValue(q, m.dimension, { file: '', sink, field: 'value' }, m.difference);
+  if (v === null) return sink.items[0] ? `\`${written}\`: ${sink.items[0].message.replace(/^value: /, '')}` : null;
+  const unit = BASE_UNIT[m.dimension];
+  const plain = `${baseNumber(v)}${unit ? ' ' + unit : ''}`;
+  if (m.dimension === 'temperature') {
+    return m.difference ? `\`${written}\` = ${plain} (a temperature difference)` : `\`${written}\` = ${plain} = ${f.kelvinToCelsius(v)}`;
+  }
+  const pretty = unit && unit !== 'counts' && unit !== 'K/W' && unit !== 'eV' ? f.formatSI(v, unit) : plain;
+  return pretty === plain ? `\`${written}\` = ${plain}` : `\`${written}\` = ${plain} = ${pretty}`;
+}
+
+/** A base-unit number: plain for moderate magnitudes, exponent form (1e-4) otherwise. */
+function baseNumber(v: number): string {
+  const abs = Math.abs(v);
+  if (v === 0 || (abs >= 1e-3 && abs < 1e7)) return String(Number(v.toPrecision(6)));
+  return Number(v.toPrecision(6)).toExponential().replace('e+', 'e');
+}

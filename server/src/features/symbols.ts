@@ -1,0 +1,37 @@
+// Document outline: each block (with its keyword as detail) and its fields as children.
+import type { Analysis } from '../engine';
+import type { Span } from '../syntax/ast';
+import { spanOf } from '../model/read-value';
+
+export type SymbolKind = 'junction' | 'adc' | 'channel' | 'unknown-block' | 'field' | 'use';
+
+export interface OutlineSymbol {
+  name: string;
+  detail: string;
+  kind: SymbolKind;
+  span: Span;
+  selection: Span;
+  children: OutlineSymbol[];
+}
+
+export function documentSymbols(a: Analysis): OutlineSymbol[] {
+  const file = a.files[0];
+  if (!file) return [];
+  const out: OutlineSymbol[] = [];
+  for (const item of file.parse.tree.items) {
+    if (item.kind === 'use') {
+      out.push({ name: `use "${item.path.text}"`, detail: '', kind: 'use', span: item.span, selection: item.path.span, children: [] });
+    } else if (item.kind === 'block') {
+      const k = item.keyword.text;
+      const kind: SymbolKind = k === 'junction' || k === 'adc' || k === 'channel' ? k : 'unknown-block';
+      const children: OutlineSymbol[] = [];
+      for (const f of item.fields) {
+        if (f.kind !== 'field') continue;
+        const value = f.value.length ? file.text.slice(spanOf(f.value).start, spanOf(f.value).end) : '';
+        children.push({ name: f.key.text, detail: value, kind: 'field', span: f.span, selection: f.key.span, children: [] });
+      }
+      out.push({ name: item.name.text, detail: k, kind, span: item.span, selection: item.name.span, children });
+    }
+  }
+  return out;
+}

@@ -1,0 +1,62 @@
+// Diagnostics on open and on every change, debounced per document. A change to a file re-checks
+// every open spec that uses it. A timer reset by a newer change is the cancellation of stale work;
+// before publishing, the document version is checked again, so results for an old version are
+// never published. Each document gets only the diagnostics of its own file (problems in a used
+// file show on its `use` line through the engine's import-problems).
+import type { TextDocument } from 'vscode-languageserver-textdocument';
+import type { ServerContext } from './context';
+import { toDiagnostic } from './convert';
+import { uriToPath } from './documents';
+
+export class DiagnosticScheduler {
+  private readonly timers = new Map<string, NodeJS.Timeout>();
+
+  constructor(private readonly ctx: ServerContext) {}
+
+  /** The document changed (or opened): re-check it and every open document that uses it. */
+  changed(doc: TextDocument): void {
+    this.schedule(doc.uri);
+    const p = uriToPath(doc.uri, this.ctx.documents.roots);
+    for (const other of this.ctx.documents.docs.all()) {
+      if (other.uri === doc.uri) continue;
+      const a = this.ctx.analyses.peek(other.uri);
+      if (a && a.files.some((f, i) => i > 0 && f.path === p)) this.schedule(other.uri);
+    }
+  }
+
+  /** Re-check every open document (settings or files on disk changed). */
+  all(): void {
+    for (const d of this.ctx.documents.docs.all()) this.schedule(d.uri);
+  }
+
+  closed(uri: string): void {
+    const t = this.timers.get(uri);
+    if (t) clearTimeout(t);
+    this.timers.delete(uri);
+    this.ctx.analyses.drop(uri);
+    void this.ctx.connection.sendDiagnostics({ uri, diagnostics: [] });
+  }
+
+  private schedule(uri: string): void {
+    const prior = this.timers.get(uri);
+    if (prior) clearTimeout(prior);
+    this.timers.set(uri, setTimeout(() => this.run(uri), this.ctx.settings.debounceMs));
+  }
+
+  private run(uri: string): void {
+    this.timers.delete(uri);
+    const doc = this.ctx.documents.get(uri);
+    if (!doc) return;
+    const version = doc.version;
+    try {
+      const analysis = this.ctx.analyses.get(doc);
+      const current = this.ctx.documents.get(uri);
+      if (!current || current.version !== version) return;
+      const own = analysis.path;
+      const diagnostics = analysis.diagnostics.filter((d) => d.file === own).map((d) => toDiagnostic(doc, d));
+      void this.ctx.connection.sendDiagnostics({ uri, version, diagnostics });
+    } catch (err) {
+      this.ctx.connection.console.error(`thermoscribe: checking ${uri} (version ${version}) failed: ${err instanceof Error ? err.stack ?? err.message : String(err)}`);
+    }
+  }
+}

@@ -1,0 +1,72 @@
+// Open documents and file access for the engine: a SourceHost that reads open documents first
+// (so a `use`d file being edited is seen as typed), then the disk. Also maps URIs to paths.
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { TextDocuments } from 'vscode-languageserver/node';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import type { SourceHost } from '../engine';
+
+export class OpenDocuments {
+  readonly docs = new TextDocuments(TextDocument);
+  /** Folders of the workspace (absolute paths); `use` may not leave the one holding a file. */
+  roots: string[] = [];
+
+  get(uri: string): TextDocument | undefined {
+    return this.docs.get(uri);
+  }
+
+  /** The open document whose path is `absPath`, if any. */
+  byPath(absPath: string): TextDocument | undefined {
+    for (const d of this.docs.all()) if (uriToPath(d.uri, this.roots) === absPath) return d;
+    return undefined;
+  }
+
+  /** Workspace root for a file: the innermost workspace folder holding it, else its own folder. */
+  rootFor(absPath: string): string {
+    let best: string | undefined;
+    for (const r of this.roots) {
+      const rel = path.relative(r, absPath);
+      if (!rel.startsWith('..') && !path.isAbsolute(rel) && (!best || r.length > best.length)) best = r;
+    }
+    return best ?? path.dirname(absPath);
+  }
+
+  /** Reads open documents first, then the disk. */
+  host(overrides?: Map<string, string>): SourceHost {
+    return {
+      read: (absPath: string) => {
+        const o = overrides?.get(absPath);
+        if (o !== undefined) return o;
+        const open = this.byPath(absPath);
+        if (open) return open.getText();
+        return readDisk(absPath);
+      },
+    };
+  }
+}
+
+export function readDisk(absPath: string): string | undefined {
+  try {
+    return fs.statSync(absPath).isFile() ? fs.readFileSync(absPath, 'utf8') : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/** Absolute path for a URI; an unsaved buffer gets a path in the first workspace folder. */
+export function uriToPath(uri: string, roots: string[] = []): string {
+  if (uri.startsWith('file:')) {
+    try {
+      return path.resolve(fileURLToPath(uri));
+    } catch {
+      // fall through to the synthetic path
+    }
+  }
+  const base = roots[0] ?? process.cwd();
+  return path.join(base, `untitled-${uri.replace(/[^A-Za-z0-9_-]+/g, '_')}.tsense`);
+}
+
+export function pathToUri(absPath: string): string {
+  return pathToFileURL(absPath).toString();
+}

@@ -1,0 +1,96 @@
+// textDocument/codeAction and codeAction/resolve: the engine's quick fixes for diagnostics in the
+// range, and "Generate conversion code for <channel>" on a channel (its edit is computed lazily in
+// resolve when the client supports that, since generation takes a moment).
+import {
+  CodeActionKind,
+  type CodeAction,
+  type CodeActionParams,
+  type TextDocumentEdit,
+  type CreateFile,
+  type WorkspaceEdit,
+  type TextEdit,
+} from 'vscode-languageserver/node';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { quickFixes, type FixEdit } from '../../features/quickfix';
+import { conversionFilePath, generatableChannels, generateForChannel } from '../../features/generate-code';
+import { blockAt } from '../../features/locate';
+import type { ServerContext } from '../context';
+import { docForFile, toDiagnostic, toRange, toSpan } from '../convert';
+import { pathToUri, readDisk } from '../documents';
+
+export const GENERATE_KIND = `${CodeActionKind.Refactor}.generateConversion`;
+
+interface GenerateData {
+  uri: string;
+  channel: string;
+}
+
+export function onCodeActions(ctx: ServerContext, params: CodeActionParams, lazy: boolean): CodeAction[] {
+  const doc = ctx.documents.get(params.textDocument.uri);
+  if (!doc) return [];
+  const a = ctx.analyses.get(doc);
+  const range = toSpan(doc, params.range);
+  const only = params.context.only;
+  const wants = (kind: string) => !only || only.some((k) => kind === k || kind.startsWith(`${k}.`));
+  const out: CodeAction[] = [];
+  if (wants(CodeActionKind.QuickFix)) {
+    const fixes = quickFixes({ analysis: a, range, reanalyse: (overrides) => ctx.analyses.run(doc, overrides) });
+    for (const fix of fixes) {
+      out.push({
+        title: fix.title,
+        kind: CodeActionKind.QuickFix,
+        diagnostics: [toDiagnostic(doc, fix.diagnostic)],
+        ...(fix.preferred ? { isPreferred: true } : {}),
+        edit: fixEdit(ctx, a, doc, fix.edits),
+      });
+    }
+  }
+  const block = blockAt(a.files[0]!.parse.tree, range.start);
+  if (block && block.keyword.text === 'channel' && wants(GENERATE_KIND) && generatableChannels(a).includes(block.name.text)) {
+    const data: GenerateData = { uri: doc.uri, channel: block.name.text };
+    const action: CodeAction = { title: `Generate conversion code for ${block.name.text}`, kind: GENERATE_KIND, data };
+    out.push(lazy ? action : onResolveCodeAction(ctx, action));
+  }
+  return out;
+}
+
+function fixEdit(ctx: ServerContext, a: ReturnType<ServerContext['analyses']['get']>, doc: TextDocument, edits: FixEdit[]): WorkspaceEdit {
+  const changes: Record<string, TextEdit[]> = {};
+  for (const e of edits) {
+    const open = e.file === a.path ? doc : ctx.documents.byPath(e.file);
+    const target = docForFile(a, e.file, open);
+    if (!target) continue;
+    const uri = open?.uri ?? pathToUri(e.file);
+    (changes[uri] ??= []).push({ range: toRange(target, e.span), newText: e.newText });
+  }
+  return { changes };
+}
+
+export function onResolveCodeAction(ctx: ServerContext, action: CodeAction): CodeAction {
+  const data = action.data as GenerateData | undefined;
+  if (action.kind !== GENERATE_KIND || !data) return action;
+  const doc = ctx.documents.get(data.uri);
+  if (!doc) return action;
+  const a = ctx.analyses.get(doc);
+  const target = conversionFilePath(a.path);
+  const open = ctx.documents.byPath(target);
+  const existing = open?.getText() ?? readDisk(target);
+  const g = generateForChannel(a, data.channel, existing);
+  if (!g.ok) {
+    ctx.connection.console.warn(`thermoscribe: ${g.message}`);
+    void ctx.connection.window.showWarningMessage(g.message);
+    return { ...action, disabled: { reason: g.message } };
+  }
+  const uri = open?.uri ?? pathToUri(target);
+  const old = TextDocument.create(uri, 'c', 0, existing ?? '');
+  const replace: TextEdit = { range: { start: { line: 0, character: 0 }, end: old.positionAt(old.getText().length) }, newText: g.result.text };
+  let edit: WorkspaceEdit;
+  if (existing === undefined && ctx.client.resourceCreate) {
+    const create: CreateFile = { kind: 'create', uri, options: { ignoreIfExists: true } };
+    const write: TextDocumentEdit = { textDocument: { uri, version: null }, edits: [replace] };
+    edit = { documentChanges: [create, write] };
+  } else {
+    edit = { changes: { [uri]: [replace] } };
+  }
+  return { ...action, edit };
+}

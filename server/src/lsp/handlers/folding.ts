@@ -1,0 +1,16 @@
+// textDocument/foldingRange: blocks and comment runs.
+import { FoldingRangeKind, type FoldingRange, type FoldingRangeParams } from 'vscode-languageserver/node';
+import { foldingRanges } from '../../features/folding';
+import type { ServerContext } from '../context';
+
+export function onFoldingRanges(ctx: ServerContext, params: FoldingRangeParams): FoldingRange[] {
+  const doc = ctx.documents.get(params.textDocument.uri);
+  if (!doc) return [];
+  const out: FoldingRange[] = [];
+  for (const f of foldingRanges(ctx.analyses.get(doc))) {
+    const startLine = doc.positionAt(f.span.start).line;
+    const endLine = doc.positionAt(f.span.end).line;
+    if (endLine > startLine) out.push({ startLine, endLine, kind: f.kind === 'comment' ? FoldingRangeKind.Comment : FoldingRangeKind.Region });
+  }
+  return out;
+}
