@@ -1,0 +1,132 @@
+// Drives code-server's page with Debian's chromium through playwright-core: (1) the in-editor suite
+// through the smoke-test driver's payload, (2) a user's path through the workbench.
+import * as path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { CHROMIUM } from './paths';
+
+export interface Outcome {
+  name: string;
+  ok: boolean;
+  detail?: string;
+}
+
+export async function launch(profileDir: string): Promise<BrowserContext> {
+  return chromium.launchPersistentContext(profileDir, {
+    executablePath: CHROMIUM,
+    headless: true,
+    viewport: { width: 1400, height: 900 },
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+}
+
+/**
+ * Opens the workbench with a payload naming the extension under test and the compiled suite; the
+ * workbench runs the suite's `run()` in the extension host and reports its exit code through
+ * `codeAutomationExit` (0 passed, 1 failed). Resolves with that code, or null on time-out.
+ */
+export async function runSuiteThroughPayload(
+  context: BrowserContext, baseUrl: string, workspace: string, extensionDir: string, suiteIndex: string,
+  timeoutMs: number, onLine: (line: string) => void,
+): Promise<number | null> {
+  const page = await context.newPage();
+  const authority = new URL(baseUrl).host;
+  let finish: (code: number | null) => void = () => undefined;
+  const exited = new Promise<number | null>((resolve) => { finish = resolve; });
+  await page.exposeFunction('codeAutomationExit', (code: number) => finish(code));
+  page.on('console', (msg) => {
+    const text = msg.text();
+    if (text.includes('[thermoscribe-e2e]')) onLine(text.slice(text.indexOf('[thermoscribe-e2e]')));
+  });
+  const payload = JSON.stringify([
+    ['extensionDevelopmentPath', `vscode-remote://${authority}${extensionDir}`],
+    ['extensionTestsPath', `vscode-remote://${authority}${suiteIndex}`],
+  ]);
+  const timer = setTimeout(() => finish(null), timeoutMs);
+  try {
+    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}&payload=${encodeURIComponent(payload)}`);
+    return await exited;
+  } finally {
+    clearTimeout(timer);
+    await page.close().catch(() => undefined);
+  }
+}
+
+const LIMIT = 60_000;
+
+/** The user's path: open the sample, see squiggles, open Problems, hover a channel name. */
+export async function walkAsUser(context: BrowserContext, baseUrl: string, workspace: string, outDir: string): Promise<Outcome[]> {
+  const outcomes: Outcome[] = [];
+  const page = await context.newPage();
+  const step = async (name: string, fn: () => Promise<string | void>): Promise<boolean> => {
+    const t0 = Date.now();
+    const took = (): string => `${((Date.now() - t0) / 1000).toFixed(1)} s`;
+    try {
+      const detail = await fn();
+      outcomes.push({ name, ok: true, detail: `${took()}${detail ? `; ${detail}` : ''}` });
+      return true;
+    } catch (err) {
+      outcomes.push({ name, ok: false, detail: `${took()}; ${err instanceof Error ? err.message.split('\n')[0] : String(err)}` });
+      return false;
+    }
+  };
+  try {
+    const opened = await step('workbench loads and Ctrl+P opens cold-chain-problems.tsense', async () => {
+      await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`);
+      await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: LIMIT });
+      await quickOpen(page, 'cold-chain-problems.tsense');
+      await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).waitFor({ timeout: LIMIT });
+    });
+    if (!opened) return outcomes;
+
+    await step('a squiggle appears in the editor', async () => {
+      const squiggle = page.locator('.monaco-editor .squiggly-error, .monaco-editor .squiggly-warning').first();
+      await squiggle.waitFor({ state: 'attached', timeout: 120_000 });
+      const errors = await page.locator('.monaco-editor .squiggly-error').count();
+      const warnings = await page.locator('.monaco-editor .squiggly-warning').count();
+      return `${errors} error and ${warnings} warning squiggles in view`;
+    });
+
+    await step('the Problems panel (Ctrl+Shift+M) lists diagnostics', async () => {
+      await page.keyboard.press('Control+Shift+M');
+      const rows = page.locator('.markers-panel .monaco-list-row');
+      await rows.first().waitFor({ state: 'visible', timeout: LIMIT });
+      const texts = await rows.allInnerTexts();
+      const codes = [...new Set(texts.join('\n').match(/\b[a-z]+(?:-[a-z]+)+\b/g) ?? [])].filter((c) => !c.startsWith('cold-chain'));
+      await page.screenshot({ path: path.join(outDir, 'problems.png') });
+      if (!texts.some((t) => t.includes('bias-current-low'))) throw new Error(`rows listed but none mention bias-current-low: ${texts.slice(0, 3).join(' | ')}`);
+      return `${texts.length} rows visible; codes seen: ${codes.join(', ')}`;
+    });
+
+    await step('hovering the channel name door_seal shows a hover', async () => {
+      // Close the panel so that the line is in view, then point at the name.
+      await page.keyboard.press('Control+Shift+M');
+      const name = page.locator('.monaco-editor .view-line span', { hasText: /^door_seal$/ }).first();
+      await name.waitFor({ state: 'visible', timeout: LIMIT });
+      await name.hover();
+      // The widget shows "Loading..." until the server answers; wait for real content.
+      // (A string: this runs in the page, and the project compiles without DOM types.)
+      await page.waitForFunction(`(() => {
+        const el = document.querySelector('.monaco-hover:not(.hidden)');
+        const text = el ? el.innerText : '';
+        return text.trim().length > 0 && !/Loading/.test(text);
+      })()`, undefined, { timeout: LIMIT });
+      const text = (await page.locator('.monaco-hover:not(.hidden)').first().innerText()).replace(/\s+/g, ' ').trim();
+      await page.screenshot({ path: path.join(outDir, 'hover.png') });
+      if (text.length === 0) throw new Error('hover is empty');
+      return text.slice(0, 160);
+    });
+  } finally {
+    await page.screenshot({ path: path.join(outDir, 'last.png') }).catch(() => undefined);
+    await page.close().catch(() => undefined);
+  }
+  return outcomes;
+}
+
+async function quickOpen(page: Page, fileName: string): Promise<void> {
+  await page.keyboard.press('Control+P');
+  const input = page.locator('.quick-input-widget input');
+  await input.waitFor({ state: 'visible', timeout: LIMIT });
+  await input.fill(fileName);
+  await page.locator('.quick-input-list .monaco-list-row', { hasText: fileName }).first().waitFor({ timeout: LIMIT });
+  await page.keyboard.press('Enter');
+}
