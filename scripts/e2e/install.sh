@@ -8,14 +8,19 @@ set -euo pipefail
 cd "$(dirname "$0")/../.."
 ROOT=$PWD
 E2E="$ROOT/.e2e"
-NODE_VERSION=$(node -p "require('./scripts/e2e/versions.json').node")
-CS_VERSION=$(node -p "require('./scripts/e2e/versions.json').codeServer")
+pinned() { sed -n "s/^ *\"$1\": *\"\([^\"]*\)\".*/\1/p" scripts/e2e/versions.json; }
+NODE_VERSION=$(pinned node)
+CS_VERSION=$(pinned codeServer)
+[ -n "$NODE_VERSION" ] && [ -n "$CS_VERSION" ] || { echo "e2e-install: cannot read scripts/e2e/versions.json" >&2; exit 1; }
 mkdir -p "$E2E"
 
 log() { echo "e2e-install: $*"; }
 
-# 1. Debian packages.
+# 1. Debian packages: the browser, kerberos headers and a C++ toolchain for code-server's native modules.
 need=()
+command -v g++ >/dev/null 2>&1 || need+=(g++)
+command -v make >/dev/null 2>&1 || need+=(make)
+command -v python3 >/dev/null 2>&1 || need+=(python3)
 [ -x /usr/bin/chromium ] || need+=(chromium)
 dpkg-query -W -f='${Status}' libkrb5-dev 2>/dev/null | grep -q 'ok installed' || need+=(libkrb5-dev)
 if [ ${#need[@]} -gt 0 ]; then
@@ -26,7 +31,7 @@ if [ ${#need[@]} -gt 0 ]; then
   $SUDO apt-get update -q
   $SUDO apt-get install -y -q "${need[@]}"
 else
-  log "chromium and libkrb5-dev present"
+  log "chromium, libkrb5-dev and build tools present"
 fi
 
 # 2. Node (x64 or arm64 build from the npm registry).
