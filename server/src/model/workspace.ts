@@ -1,7 +1,7 @@
 // Loads a spec file and every file it brings in with `use`, through an injected reader.
 // The engine does no IO of its own: the CLI reads from disk, the server from open documents.
 import * as path from 'node:path';
-import { parse } from '../syntax/parse';
+import { parse, type ParseCache } from '../syntax/parse';
 import type { ParseResult, UseNode } from '../syntax/ast';
 import type { DiagnosticSink } from '../checks/diagnostic';
 
@@ -19,13 +19,14 @@ export interface LoadedFile {
 }
 
 /** Files in load order, the entry first. */
-export function loadWorkspace(entry: string, entryText: string, root: string, host: SourceHost, sink: DiagnosticSink): LoadedFile[] {
+export function loadWorkspace(entry: string, entryText: string, root: string, host: SourceHost, sink: DiagnosticSink, parseCache?: ParseCache): LoadedFile[] {
   const files = new Map<string, LoadedFile>();
   const order: LoadedFile[] = [];
   const rootAbs = path.resolve(root);
 
   const visit = (file: string, text: string, stack: string[]): LoadedFile => {
-    const parsed = parse(text);
+    // Only the entry file changes keystroke by keystroke; used files are parsed whole.
+    const parsed = parse(text, stack.length === 1 ? parseCache : undefined);
     const loaded: LoadedFile = { path: file, text, parse: parsed, uses: [] };
     files.set(file, loaded);
     order.push(loaded);

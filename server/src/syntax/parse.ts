@@ -7,7 +7,67 @@
 import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 
-export function parse(text: string): ParseResult {
+/**
+ * Parses `text`. With a cache, the text is cut before every block header line and each piece is
+ * parsed on its own (a header always ends the block before it, so the tree is the same as a whole
+ * parse); pieces seen in the previous parse are reused with their offsets moved.
+ */
+export function parse(text: string, cache?: ParseCache): ParseResult {
+  return cache ? cache.parse(text) : parseWhole(text);
+}
+
+const HEADER_LINE = /^[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/;
+
+/** Reuse of parsed pieces between successive versions of one document. */
+export class ParseCache {
+  private pieces = new Map<string, ParseResult>();
+
+  parse(text: string): ParseResult {
+    const next = new Map<string, ParseResult>();
+    const items: TopItem[] = [];
+    const problems: SyntaxProblem[] = [];
+    for (const { start, end } of pieces(text)) {
+      const piece = text.slice(start, end);
+      let r = next.get(piece) ?? this.pieces.get(piece);
+      if (!r) r = parseWhole(piece);
+      next.set(piece, r);
+      items.push(...(shift(r.tree.items, start) as TopItem[]));
+      problems.push(...(shift(r.problems, start) as SyntaxProblem[]));
+    }
+    this.pieces = next;
+    return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
+  }
+}
+
+/** Offsets where block header lines start, as [start, end) pieces covering the text. */
+function pieces(text: string): Span[] {
+  const cuts = [0];
+  let lineStart = 0;
+  for (let i = 0; i <= text.length; i++) {
+    const ch = text.charCodeAt(i);
+    if (i === text.length || ch === 10 || ch === 13) {
+      if (lineStart > 0 && HEADER_LINE.test(text.slice(lineStart, Math.min(i, lineStart + 200)))) cuts.push(lineStart);
+      if (ch === 13 && text.charCodeAt(i + 1) === 10) i++;
+      lineStart = i + 1;
+    }
+  }
+  cuts.push(text.length);
+  const out: Span[] = [];
+  for (let k = 0; k + 1 < cuts.length; k++) if (cuts[k + 1]! > cuts[k]! || out.length === 0) out.push({ start: cuts[k]!, end: cuts[k + 1]! });
+  return out;
+}
+
+/** A copy of a tree fragment with every span moved by `by` (spans are the only start/end keys). */
+function shift(node: unknown, by: number): unknown {
+  if (by === 0) return node;
+  if (Array.isArray(node)) return node.map((n) => shift(n, by));
+  if (node === null || typeof node !== 'object') return node;
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(node)) out[k] = (k === 'start' || k === 'end') && typeof v === 'number' ? v + by : shift(v, by);
+  return out;
+}
+
+function parseWhole(text: string): ParseResult {
   let tree: DocumentNode;
   try {
     tree = generated.parse(text, { startRule: 'Document' }) as DocumentNode;
