@@ -14,6 +14,7 @@ import { buildSuite } from './build-suite';
 import { missingPieces, OUTPUT_DIR, ROOT } from './offline/paths';
 import { freePort, installExtension, makeSandbox, serve, stopGroup, waitUntilServing, type Served } from './offline/code-server';
 import { launch, runSuiteThroughPayload, walkAsUser, type Outcome } from './offline/browser';
+import { checkGrammar } from './offline/grammar';
 
 const SUITE_TIMEOUT_MS = 8 * 60_000;
 
@@ -39,7 +40,13 @@ async function main(): Promise<number> {
   const t0 = Date.now();
   mkdirSync(OUTPUT_DIR, { recursive: true });
   console.log('E2E: packaging the extension (npm run package)');
-  execFileSync('npm', ['run', '--silent', 'package'], { cwd: ROOT, stdio: ['ignore', 'inherit', 'inherit'] });
+  try {
+    execFileSync('npm', ['run', '--silent', 'package'], { cwd: ROOT, stdio: ['ignore', 'inherit', 'inherit'] });
+  } catch {
+    console.error('E2E: packaging failed (npm run package); the build output above says why.');
+    console.log('E2E: 0 passed, 1 failed');
+    return 1;
+  }
   const vsix = path.join(ROOT, 'thermoscribe.vsix');
   const suiteIndex = await buildSuite();
 
@@ -56,7 +63,7 @@ async function main(): Promise<number> {
   const extensionDir = path.join(sandbox.extensions, installed);
   console.log(`E2E: installed ${installed} (${seconds(t0)} since start)`);
 
-  const results: Outcome[] = [];
+  const results: Outcome[] = [await checkGrammar()];
   let served: Served | undefined;
   const onSignal = (): void => { if (served) void stopGroup(served.child).then(() => process.exit(130)); };
   process.once('SIGINT', onSignal);
