@@ -14,7 +14,11 @@ export function foldingRanges(a: Analysis): Fold[] {
   const text = file.text;
   const out: Fold[] = [];
   for (const item of file.parse.tree.items) {
-    if (item.kind === 'block') out.push({ span: { start: item.span.start, end: item.closeSpan?.start ?? item.span.end }, kind: 'region' });
+    if (item.kind !== 'block') continue;
+    // Fold up to the end of the last line before the closing brace, so the brace stays visible.
+    let end = item.closeSpan?.start ?? item.span.end;
+    while (end > item.span.start && /\s/.test(text[end - 1]!)) end--;
+    out.push({ span: { start: item.span.start, end }, kind: 'region' });
   }
   // Comment-only lines: nothing but blanks before the `#` on its line.
   const own = commentSpans(text).filter((c) => /^[ \t]*$/.test(text.slice(lineStart(text, c.start), c.start)));

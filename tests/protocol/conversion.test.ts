@@ -1,0 +1,98 @@
+// Protocol tests of conversion code in the editor: the stale-block warning on a spec whose
+// `<stem>_conversion.c` was generated from an older version of a channel, its regenerate quick fix,
+// and the custom requests behind "Insert Conversion Code" (thermoscribe/conversionChannels and
+// thermoscribe/conversionCode). JSON-RPC shapes follow the Language Server Protocol 3.17
+// specification (microsoft.github.io/language-server-protocol). The spec is invented.
+import * as fs from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analyse } from '../../server/src/engine';
+import { channelSpecHash } from '../../server/src/codegen/channel-input';
+import { generateForSpec } from '../../server/src/codegen/spec';
+import { ensureBuilt, ROOT, TestClient, uriOf, type LspDiagnostic } from './client';
+
+const SPEC_TEXT = fs.readFileSync(path.join(ROOT, 'tests', 'fixtures', 'codegen', 'gen', 'pump.tsense'), 'utf8');
+// The coolant channel's bias as it was when the C file was generated (the spec has 20 uA now).
+const OLD_TEXT = SPEC_TEXT.replace('bias       = current 20 uA', 'bias       = current 25 uA');
+
+let dir: string;
+let spec: string;
+let client: TestClient;
+let uri: string;
+
+beforeAll(async () => {
+  ensureBuilt();
+  dir = fs.mkdtempSync(path.join(os.tmpdir(), 'thsc-conv-'));
+  spec = path.join(dir, 'pump.tsense');
+  fs.writeFileSync(spec, SPEC_TEXT);
+  fs.writeFileSync(path.join(dir, 'spare.tsense'), SPEC_TEXT.replace('channel coolant', 'channel spare_coolant').replace('channel housing', 'channel spare_housing'));
+  const old = generateForSpec(analyse({ path: spec, text: OLD_TEXT }), { fileStem: 'pump_conversion' });
+  if (!old.ok) throw new Error(old.message);
+  fs.writeFileSync(path.join(dir, 'pump_conversion.c'), old.source.text);
+  client = await TestClient.start({ rootDir: dir, settings: { debounceMs: 0 } });
+  uri = client.open(spec);
+});
+
+afterAll(async () => {
+  await client.stop();
+  fs.rmSync(dir, { recursive: true, force: true });
+});
+
+describe('stale generated code', () => {
+  let stale: LspDiagnostic;
+
+  it('warns on the name of the channel whose generated block is out of date, only that one', async () => {
+    const ds = await client.diagnosticsWhere(uri, (d) => d.some((x) => x.code === 'generated-stale'));
+    const all = ds.filter((d) => d.code === 'generated-stale');
+    expect(all).toHaveLength(1);
+    stale = all[0]!;
+    // Severity 2 = Warning (LSP 3.17 DiagnosticSeverity).
+    expect(stale.severity).toBe(2);
+    const line = SPEC_TEXT.split('\n')[stale.range.start.line]!;
+    expect(line.slice(stale.range.start.character, stale.range.end.character)).toBe('coolant');
+    expect(stale.message).toContain("the generated code for 'coolant' in pump_conversion.c");
+  });
+
+  it('offers a regenerate quick fix whose edit writes the current hash', async () => {
+    const actions = await client.request<{ title: string; kind: string; edit?: unknown; data?: unknown }[]>('textDocument/codeAction', {
+      textDocument: { uri },
+      range: stale.range,
+      context: { diagnostics: [stale], only: ['quickfix'] },
+    });
+    const fix = actions.find((a) => a.title === 'Regenerate conversion code for coolant');
+    expect(fix?.kind).toBe('quickfix');
+    const resolved = fix!.edit ? fix! : await client.request<typeof fix>('codeAction/resolve', fix);
+    const a = analyse({ path: spec, text: SPEC_TEXT });
+    const hash = channelSpecHash(a.channels.find((r) => r.channel.name === 'coolant')!.channel);
+    expect(JSON.stringify(resolved!.edit)).toContain(`thermoscribe:begin channel=coolant spec=${hash} `);
+  });
+});
+
+describe('thermoscribe/conversionChannels and thermoscribe/conversionCode', () => {
+  it('lists the channels of open and unopened specs', async () => {
+    const spare = uriOf(path.join(dir, 'spare.tsense'));
+    const list = await client.request<{ uri: string; channel: string }[]>('thermoscribe/conversionChannels', { uris: [uri, spare, uriOf(path.join(dir, 'none.tsense'))] });
+    expect(list).toEqual([
+      { uri, channel: 'coolant' },
+      { uri, channel: 'housing' },
+      { uri: spare, channel: 'spare_coolant' },
+      { uri: spare, channel: 'spare_housing' },
+    ]);
+  });
+
+  it("returns the channel's marked block, in the file's line endings", async () => {
+    const r = await client.request<{ text: string; method: string; maxErrorC: number }>('thermoscribe/conversionCode', { uri, channel: 'housing', eol: '\r\n' });
+    expect(r.text.startsWith('/* thermoscribe:begin channel=housing spec=')).toBe(true);
+    expect(r.text.endsWith('/* thermoscribe:end channel=housing */\r\n')).toBe(true);
+    expect(r.text.replace(/\r\n/g, '')).not.toMatch(/\n/);
+    expect(r.text).toContain('uint8_t housing_code_to_temp(uint16_t code, housing_temp_t *out)');
+    expect(r.maxErrorC).toBeLessThanOrEqual(0.02);
+  });
+
+  it('refuses an unknown channel with a message and keeps serving', async () => {
+    await expect(client.request('thermoscribe/conversionCode', { uri, channel: 'nope' })).rejects.toThrow(/no channel 'nope'/);
+    await expect(client.request('thermoscribe/conversionCode', { uri })).rejects.toThrow(/needs \{uri, channel\}/);
+    expect(client.exited).toBeNull();
+  });
+});
