@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
 import { CHANNEL_CHECKS } from './checks/index';
 import { analyseChannel } from './analysis/sweep';
+import { cachedLiveBudget } from './budget/cache';
 import { SweepCache } from './analysis/cache';
 import type { ChannelResult } from './analysis/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
@@ -52,6 +53,12 @@ export function analyse(input: AnalyseInput): Analysis {
     try {
       const result = input.cache ? input.cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
       channels.push(result);
+      try {
+        result.budget = cachedLiveBudget(c);
+      } catch (err) {
+        // A tolerance corner outside the physics' domain: say so; the other checks still run.
+        sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}': the error budget cannot be computed: ${err instanceof Error ? err.message : String(err)}`);
+      }
       const reported = new Set<string>();
       for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink, reported });
     } catch (err) {

@@ -52,4 +52,6 @@ export interface ChannelResult {
   channel: ChannelDef;
   sweep: SweepPoint[];
   summary: ChannelSummary;
+  /** Error budget (budget/budget.ts), set by analyse(); absent when it could not be computed. */
+  budget?: import('../budget/types').BudgetResult;
 }

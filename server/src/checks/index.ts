@@ -8,6 +8,10 @@ import { checkSelfHeating } from './self-heating';
 import { checkNonlinearity } from './nonlinearity';
 import { checkRated } from './rated';
 import { checkSourceImpedance } from './source-impedance';
+import { checkTwoCurrent } from './two-current';
+import { checkOversampling } from './oversampling';
+import { checkAccuracy } from './accuracy';
+import { checkCalibrationFit } from './calibration-fit';
 
 export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkSupply,
@@ -18,4 +22,8 @@ export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkNonlinearity,
   checkRated,
   checkSourceImpedance,
+  checkTwoCurrent,
+  checkOversampling,
+  checkAccuracy,
+  checkCalibrationFit,
 ];

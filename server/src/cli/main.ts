@@ -1,6 +1,7 @@
 // thermoscribe: the command-line face of the engine (check, report, gen, serve).
 import { runCheck, CHECK_USAGE } from './commands/check';
 import { runReport, REPORT_USAGE } from './commands/report';
+import { runBudget, BUDGET_USAGE } from './commands/budget';
 import { EXIT, type CliIO } from './io';
 import { VERSION } from './version';
 import { startServer } from '../lsp/start';
@@ -10,6 +11,8 @@ const USAGE = `thermoscribe ${VERSION}: design checks for ADC temperature channe
 usage:
   ${CHECK_USAGE}
   ${REPORT_USAGE}
+  ${BUDGET_USAGE}
+                                    error budget: worst case, Monte Carlo, calibration
   thermoscribe serve --stdio        start the language server on stdin/stdout
   thermoscribe --version
 `;
@@ -21,6 +24,12 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
       return runCheck(rest, io);
     case 'report':
       return runReport(rest, io);
+    case 'budget':
+      // Asynchronous (long Monte Carlo runs yield, report progress, stop on Ctrl+C): it sets the exit code itself.
+      void runBudget(rest, io).then((code) => {
+        process.exitCode = code;
+      });
+      return 'serving';
     case 'serve': {
       const code = startServer();
       return code === 0 ? 'serving' : code;

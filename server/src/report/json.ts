@@ -5,6 +5,7 @@ import type { Analysis } from '../engine';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelResult } from '../analysis/types';
 import { LineIndex } from '../syntax/line-index';
+import { budgetSummaryJson } from '../budget/json';
 
 export const REPORT_VERSION = 1;
 
@@ -64,6 +65,8 @@ export function channelJson(r: ChannelResult) {
       sourceOhmsMax: s.sourceOhmsMax,
       nonlinearity: s.nonlinearity,
     },
+    // Error budget summary (budget/json.ts); null when it could not be computed.
+    budget: r.budget ? budgetSummaryJson(r.budget) : null,
   };
 }
 

@@ -1,0 +1,84 @@
+// The inputs of a channel that vary from board to board or reading to reading, with their
+// tolerances from the spec, and how a board with given draws perturbs the channel.
+import type { BiasDef, ChannelDef } from '../model/types';
+import { trimNumber } from '../model/read-value';
+import type { Contributor } from './types';
+
+const pct = (r: number) => `± ${trimNumber(r * 100, 3)} %`;
+
+/** Contributors with a non-zero tolerance; board ones first (their order is the draw vector's). */
+export function contributorsOf(c: ChannelDef, effectiveOversamplingBits: number): Contributor[] {
+  const out: Contributor[] = [];
+  const add = (id: string, label: string, scope: Contributor['scope'], amount: number, unit: Contributor['unit']) => {
+    if (amount > 0) out.push({ id, label, scope, amount, unit });
+  };
+  const j = c.sensor;
+  const two = c.secondBias !== undefined;
+  // Sensor spreads: the junction's here; resistive sensors' own spreads belong to their model.
+  if (j.kind === 'junction') {
+    add('IS', `IS spread ${pct(j.isTolerance)}`, 'board', j.isTolerance, 'relative');
+    add('N', `N spread ${pct(j.nTolerance ?? 0)}`, 'board', j.nTolerance ?? 0, 'relative');
+    if (j.params.kind !== 'diode') add('BF', `BF spread ${pct(j.bfTolerance ?? 0)}`, 'board', j.bfTolerance ?? 0, 'relative');
+  }
+  const biasTol = (b: BiasDef) => (b.kind === 'current' ? b.amps.tolerance : b.ohms.tolerance);
+  const biasWord = (b: BiasDef) => (b.kind === 'current' ? 'bias current' : 'bias resistor');
+  add('bias', `${biasWord(c.bias)}${two ? ' 1' : ''} ${pct(biasTol(c.bias))}`, 'board', biasTol(c.bias), 'relative');
+  if (c.secondBias) add('bias2', `${biasWord(c.secondBias)} 2 ${pct(biasTol(c.secondBias))}`, 'board', biasTol(c.secondBias), 'relative');
+  if (c.bias.kind !== 'current') add('supply', `supply ${pct(c.bias.supply.tolerance)}`, 'board', c.bias.supply.tolerance, 'relative');
+  add('reference', `ADC reference ${pct(c.adc.reference.tolerance)}`, 'board', c.adc.reference.tolerance, 'relative');
+  // Two-current: the firmware subtracts two readings of the same converter, so its offset cancels.
+  if (!two) add('offset', `ADC offset ± ${trimNumber(c.adc.offsetLsb ?? 0, 3)} LSB`, 'board', c.adc.offsetLsb ?? 0, 'LSB');
+  add('gain', `ADC gain error ${pct(c.adc.gainError ?? 0)}`, 'board', c.adc.gainError ?? 0, 'relative');
+  // Reading terms: a difference of two readings carries two of each.
+  const readings = two ? 2 : 1;
+  const q = (0.5 * readings) / 2 ** effectiveOversamplingBits;
+  add('quantisation', `quantisation ± ${trimNumber(q, 3)} LSB${effectiveOversamplingBits ? ` (after ${effectiveOversamplingBits} bits of oversampling)` : ''}`, 'reading', q, 'LSB');
+  add('inl', `ADC integral nonlinearity ± ${trimNumber((c.adc.inlLsb ?? 0) * readings, 3)} LSB`, 'reading', (c.adc.inlLsb ?? 0) * readings, 'LSB');
+  return out;
+}
+
+/** Converter figures of one board: reference scale, gain and offset in LSB. */
+export interface BoardAdc {
+  referenceScale: number;
+  gain: number;
+  offsetLsb: number;
+}
+
+function scaleBias(b: BiasDef, x: number, supplyScale: number): BiasDef {
+  if (b.kind === 'current') return { ...b, amps: { ...b.amps, value: b.amps.value * x } };
+  return { ...b, ohms: { ...b.ohms, value: b.ohms.value * x }, supply: { ...b.supply, value: b.supply.value * supplyScale } };
+}
+
+/** The channel and converter of a board whose board contributors take draws u (each in [-1, 1]). */
+export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number>): { channel: ChannelDef; adc: BoardAdc } {
+  let IS = 1;
+  let N = 1;
+  let BF = 1;
+  let b1 = 1;
+  let b2 = 1;
+  let supply = 1;
+  const adc: BoardAdc = { referenceScale: 1, gain: 1, offsetLsb: 0 };
+  for (let i = 0; i < board.length; i++) {
+    const k = board[i]!;
+    const d = u[i]! * k.amount;
+    switch (k.id) {
+      case 'IS': IS = 1 + d; break;
+      case 'N': N = 1 + d; break;
+      case 'BF': BF = 1 + d; break;
+      case 'bias': b1 = 1 + d; break;
+      case 'bias2': b2 = 1 + d; break;
+      case 'supply': supply = 1 + d; break;
+      case 'reference': adc.referenceScale = 1 + d; break;
+      case 'gain': adc.gain = 1 + d; break;
+      case 'offset': adc.offsetLsb = d; break;
+    }
+  }
+  const s = c.sensor;
+  const channel: ChannelDef = {
+    ...c,
+    sensor: s.kind === 'junction' ? { ...s, params: { ...s.params, IS: s.params.IS * IS, N: s.params.N * N, BF: s.params.BF * BF } } : s,
+    bias: scaleBias(c.bias, b1, supply),
+    ...(c.secondBias ? { secondBias: scaleBias(c.secondBias, b2, supply) } : {}),
+  };
+  return { channel, adc };
+}

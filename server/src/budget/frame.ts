@@ -1,0 +1,102 @@
+// The fixed part of one channel's budget: temperatures, contributors, calibration settings and the
+// nominal inverse; and the error of one board (what the firmware reports minus the true temperature).
+//
+// The error model, per board and temperature T:
+//   code = V_board(T) / (Vref (1 + dRef)) * 2^bits * (1 + dGain) + offset      (continuous code)
+//   reported = nominal model inverse of code * Vref / 2^bits                    (what the code computes)
+// then the calibration trim (calibration/trim.ts) fitted on the same board's readings at the
+// calibration temperatures, then the reading terms (quantisation, INL), which are new at every
+// reading and which calibration does not remove, converted to K with the nominal slope.
+import type { ChannelDef } from '../model/types';
+import { sense } from '../analysis/sense';
+import { ZERO_CELSIUS_K } from '../physics/constants';
+import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
+import { NominalInverse } from './nominal-inverse';
+import { contributorsOf, perturb } from './contributors';
+import type { CalSetting, Contributor } from './types';
+import { effectiveOversamplingBits } from './oversampling';
+
+export interface BudgetFrame {
+  channel: ChannelDef;
+  inverse: NominalInverse;
+  /** Temperatures of the budget, K. */
+  gridK: number[];
+  /** gridK followed by the calibration temperatures not already in it, K. */
+  evalK: number[];
+  modes: CalSetting[];
+  /** Per mode, the indices into evalK of its calibration temperatures. */
+  calIndex: number[][];
+  board: Contributor[];
+  reading: Contributor[];
+  /** Per reading contributor, per grid temperature: its bound in K. */
+  readingK: number[][];
+  full: number;
+}
+
+/** The spec's calibration first, then the other two modes at their default temperatures. */
+export function calSettings(c: ChannelDef): CalSetting[] {
+  const room = 25 + ZERO_CELSIUS_K;
+  const onePoint = room >= c.lowK && room <= c.highK ? room : (c.lowK + c.highK) / 2;
+  const defaults: CalSetting[] = [
+    { mode: 'none', kelvins: [] },
+    { mode: 'one-point', kelvins: [onePoint] },
+    { mode: 'two-point', kelvins: [c.lowK, c.highK] },
+  ];
+  const stated = c.calibration ? { mode: c.calibration.mode, kelvins: c.calibration.kelvins } : defaults[0]!;
+  return [stated, ...defaults.filter((d) => d.mode !== stated.mode)];
+}
+
+export function budgetGrid(c: ChannelDef, points: number): number[] {
+  const n = Math.max(2, Math.min(points, Math.ceil((c.highK - c.lowK) / c.stepK - 1e-9) + 1));
+  return Array.from({ length: n }, (_, i) => (i === n - 1 ? c.highK : c.lowK + ((c.highK - c.lowK) * i) / (n - 1)));
+}
+
+export function makeFrame(c: ChannelDef, points = 49): BudgetFrame {
+  const inverse = new NominalInverse(c);
+  const gridK = budgetGrid(c, points);
+  const modes = calSettings(c);
+  const evalK = [...gridK];
+  const calIndex = modes.map((m) =>
+    m.kelvins.map((k) => {
+      const at = evalK.findIndex((x) => Math.abs(x - k) < 1e-9);
+      if (at >= 0) return at;
+      evalK.push(k);
+      return evalK.length - 1;
+    }),
+  );
+  const all = contributorsOf(c, effectiveOversamplingBits(c));
+  const board = all.filter((k) => k.scope === 'board');
+  const reading = all.filter((k) => k.scope === 'reading');
+  const lsbVolts = c.adc.reference.value / 2 ** c.adc.bits;
+  const readingK = reading.map((k) => gridK.map((t) => (k.amount * lsbVolts) / Math.abs(sense(c, t).slope)));
+  return { channel: c, inverse, gridK, evalK, modes, calIndex, board, reading, readingK, full: 2 ** c.adc.bits };
+}
+
+/** Error (reported - true, K) of the board with draws u at every temperature of evalK, before calibration. */
+export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length)): Float64Array {
+  const { channel, adc } = perturb(f.channel, f.board, u);
+  const vref = f.channel.adc.reference.value;
+  const scale = (f.full * adc.gain) / (vref * adc.referenceScale);
+  for (let i = 0; i < f.evalK.length; i++) {
+    const k = f.evalK[i]!;
+    const v = sense(channel, k).volts;
+    const code = Math.min(f.full, Math.max(0, v * scale + adc.offsetLsb));
+    out[i] = f.inverse.kelvinAt((code * vref) / f.full) - k;
+  }
+  return out;
+}
+
+/** The trim a board gets in calibration mode m (from its own errors at the calibration temperatures). */
+export function boardTrim(f: BudgetFrame, m: number, errors: ArrayLike<number>): Trim {
+  return trimFrom(f.calIndex[m]!.map((i) => ({ trueK: f.evalK[i]!, reportedK: f.evalK[i]! + errors[i]! })));
+}
+
+/** Calibrated error at each grid temperature (before reading terms); returns the trim's gain. */
+export function calibrated(f: BudgetFrame, m: number, errors: ArrayLike<number>, out: Float64Array): number {
+  const t = boardTrim(f, m, errors);
+  for (let i = 0; i < f.gridK.length; i++) {
+    const k = f.gridK[i]!;
+    out[i] = applyTrimK(t, k + errors[i]!) - k;
+  }
+  return t.gain;
+}

@@ -1,0 +1,109 @@
+// thermoscribe budget FILE [--channel NAME] [--runs N] [--seed S] [--format text|json] [--root DIR]
+// Error budget per channel: worst case and Monte Carlo per calibration mode, contributor shares.
+// Long runs report progress on stderr and stop cleanly on Ctrl+C (exit 130).
+import { parseArgs } from '../args';
+import { DiskHost, EXIT, type CliIO } from '../io';
+import { table } from '../text';
+import { loadAnalyses } from './check';
+import { channelBudgetAsync } from '../../budget/budget';
+import { budgetJson } from '../../budget/json';
+import { describeSetting } from '../../budget/describe';
+import type { BudgetResult } from '../../budget/types';
+import { trimNumber } from '../../model/read-value';
+import { fitMeasured } from '../../calibration/fit';
+import type { ChannelDef } from '../../model/types';
+import { CAUTION } from '../../report/caution';
+
+export const BUDGET_USAGE = 'thermoscribe budget FILE [--channel NAME] [--runs N] [--seed S] [--format text|json] [--root DIR]';
+
+export async function runBudget(argv: string[], io: CliIO): Promise<number> {
+  const args = parseArgs(argv, ['channel', 'runs', 'seed', 'format', 'root']);
+  const fail = (m: string) => (io.err(`thermoscribe budget: ${m}\nusage: ${BUDGET_USAGE}\n`), EXIT.unusable);
+  if (typeof args === 'string') return fail(args);
+  if (args.positional.length !== 1) return fail('name exactly one .tsense file');
+  const format = String(args.options.get('format') ?? 'text');
+  if (format !== 'text' && format !== 'json') return fail(`--format takes text or json (got '${format}')`);
+  const int = (name: string, lo: number, hi: number): number | undefined | string => {
+    const v = args.options.get(name);
+    if (v === undefined) return undefined;
+    const n = Number(v);
+    return Number.isInteger(n) && n >= lo && n <= hi ? n : `--${name} takes a whole number from ${lo} to ${hi} (got '${String(v)}')`;
+  };
+  const runs = int('runs', 0, 1_000_000);
+  const seed = int('seed', 0, 4294967295);
+  if (typeof runs === 'string') return fail(runs);
+  if (typeof seed === 'string') return fail(seed);
+  const host = new DiskHost();
+  const root = args.options.get('root');
+  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
+  if (typeof analyses === 'string') return (io.err(`thermoscribe: ${analyses}\n`), EXIT.unusable);
+  const a = analyses[0]!;
+  const only = args.options.get('channel');
+  const channels = typeof only === 'string' ? a.model.channels.filter((c) => c.name === only) : a.model.channels;
+  if (channels.length === 0) {
+    return fail(typeof only === 'string' ? `no channel named '${String(only)}'; channels: ${a.model.channels.map((c) => c.name).join(', ') || '(none)'}` : 'the file has no channel that could be analysed');
+  }
+  const token = { isCancellationRequested: false };
+  const onSigint = () => (token.isCancellationRequested = true);
+  process.once('SIGINT', onSigint);
+  const results: { channel: ChannelDef; budget: BudgetResult }[] = [];
+  try {
+    for (const c of channels) {
+      const b = await channelBudgetAsync(c, { ...(runs !== undefined ? { runs } : {}), ...(seed !== undefined ? { seed } : {}) }, token, (done, total) => {
+        if (total >= 5000) io.err(`\r${c.name}: ${done} of ${total} boards`);
+      });
+      if (b === null) {
+        io.err('\nthermoscribe budget: cancelled\n');
+        return 130;
+      }
+      results.push({ channel: c, budget: b });
+    }
+  } catch (err) {
+    io.err(`thermoscribe budget: cannot compute the budget: ${err instanceof Error ? err.message : String(err)}\n`);
+    return EXIT.errors;
+  } finally {
+    process.removeListener('SIGINT', onSigint);
+  }
+  if (format === 'json') io.out(JSON.stringify({ channels: results.map((r) => ({ ...budgetJson(r.budget), fit: fitJson(r.channel) })) }, null, 2) + '\n');
+  else for (const r of results) io.out(budgetText(r.budget, r.channel) + '\n\n');
+  if (format === 'text') io.out(CAUTION + '\n');
+  return EXIT.clean;
+}
+
+function fitJson(c: ChannelDef) {
+  const f = fitMeasured(c);
+  return f ? { parameters: f.parameters, rmsK: f.rmsK, points: f.points, outlier: f.outlier } : null;
+}
+
+const k3 = (x: number) => trimNumber(x, 3);
+
+export function budgetText(b: BudgetResult, c: ChannelDef): string {
+  const out: string[] = [];
+  const mc = b.monteCarlo;
+  out.push(`Error budget of channel ${b.channel}: ${b.method === 'corners' ? `all ${b.corners} corners` : 'sensitivity sum (over 12 inputs)'}` +
+    (mc ? `, Monte Carlo ${mc.runs} boards (seed ${mc.seed}, ${mc.distribution})` : ', no Monte Carlo') +
+    (b.accuracyK !== null ? `; target ±${k3(b.accuracyK)} K` : ''));
+  out.push('');
+  out.push(table(['mode', 'worst case K', 'at °C', 'MC 1-99 % K', 'dominant'], b.modes.map((m) => [
+    describeSetting(m.setting) + (m === b.stated ? ' (stated)' : ''),
+    `±${k3(m.worstAbsK)}`,
+    trimNumber(m.worstAtCelsius, 4),
+    m.mcP99AbsK !== null ? `±${k3(m.mcP99AbsK)}` : '-',
+    m.dominant ? m.dominant.label : '-',
+  ])));
+  out.push('');
+  out.push(`Contributors (${describeSetting(b.stated.setting)}; swing at ${trimNumber(b.stated.worstAtCelsius, 4)} °C and its share):`);
+  out.push(table(['input', 'swing K', 'share', 'max swing K'], b.stated.shares.map((s) => [s.label, k3(s.swingAtWorstK), `${trimNumber(s.share * 100, 3)} %`, k3(s.maxSwingK)])));
+  out.push('');
+  const s = b.stated;
+  const rows = b.celsius.map((t, i) => [trimNumber(t, 4), k3(s.worstLow[i]!), k3(s.worstHigh[i]!), ...(s.mc ? [k3(s.mc.p1[i]!), k3(s.mc.p50[i]!), k3(s.mc.p99[i]!)] : [])]);
+  out.push(table(['°C', 'worst low', 'worst high', ...(s.mc ? ['MC 1 %', 'MC 50 %', 'MC 99 %'] : [])], rows));
+  const fit = fitMeasured(c);
+  if (fit) {
+    out.push('');
+    out.push(`Fit to the measured points: ${Object.entries(fit.parameters).map(([k, v]) => `${k} = ${trimNumber(v!, 5)}`).join(', ')}, rms residual ${k3(fit.rmsK)} K` + (fit.outlier !== null ? `; point ${fit.outlier + 1} disagrees with the others` : ''));
+    out.push(table(['°C', 'code', 'residual K', 'left out K'], fit.points.map((p) => [trimNumber(p.celsius, 4), trimNumber(p.code, 6), k3(p.residualK), p.leaveOneOutK === null ? '-' : k3(p.leaveOneOutK)])));
+  }
+  for (const n of b.notes) out.push(`Note: ${n}`);
+  return out.join('\n');
+}
