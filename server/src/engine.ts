@@ -4,9 +4,11 @@ import * as path from 'node:path';
 import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
 import { CHANNEL_CHECKS } from './checks/index';
 import { analyseChannel } from './analysis/sweep';
-import { cachedLiveBudget } from './budget/cache';
+import { cachedLiveBudget, cachedWorstCaseBudget } from './budget/cache';
 import { SweepCache } from './analysis/cache';
+import type { ParseCache } from './syntax/parse';
 import type { ChannelResult } from './analysis/types';
+import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel, type Resolution } from './model/resolve';
 
@@ -17,6 +19,7 @@ export type { ChannelDef, JunctionDef, AdcDef } from './model/types';
 export { CATALOGUE, type DiagnosticCode, type Severity } from './checks/catalogue';
 export { LineIndex } from './syntax/line-index';
 export { SweepCache } from './analysis/cache';
+export { ParseCache } from './syntax/parse';
 
 export interface AnalyseInput {
   /** Absolute path of the spec (for an unsaved buffer, any absolute path in its folder). */
@@ -28,6 +31,8 @@ export interface AnalyseInput {
   host?: SourceHost;
   /** Sweeps kept from earlier analyses of the same document (optional). */
   cache?: SweepCache;
+  /** Parsed pieces kept from earlier versions of the same document (optional). */
+  parseCache?: ParseCache;
 }
 
 export interface Analysis {
@@ -46,7 +51,7 @@ export function analyse(input: AnalyseInput): Analysis {
   const entry = path.resolve(input.path);
   const root = path.resolve(input.root ?? path.dirname(entry));
   const sink = new DiagnosticSink();
-  const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink);
+  const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink, input.parseCache);
   const model = resolveModel(files, sink);
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
@@ -54,7 +59,14 @@ export function analyse(input: AnalyseInput): Analysis {
       const result = input.cache ? input.cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
       channels.push(result);
       try {
-        result.budget = cachedLiveBudget(c);
+        result.worstCaseBudget = cachedWorstCaseBudget(c);
+        // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
+        let full: ChannelResult['budget'] | null = null;
+        Object.defineProperty(result, 'budget', {
+          enumerable: true,
+          configurable: true,
+          get: () => (full === null ? (full = tryBudget(c)) : full),
+        });
       } catch (err) {
         // A tolerance corner outside the physics' domain: say so; the other checks still run.
         sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}': the error budget cannot be computed: ${err instanceof Error ? err.message : String(err)}`);
@@ -69,6 +81,14 @@ export function analyse(input: AnalyseInput): Analysis {
   reportUsedFileProblems(files, sink);
   const diagnostics = sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1));
   return { path: entry, files, model, channels, diagnostics };
+}
+
+function tryBudget(c: ChannelDef): ChannelResult['budget'] {
+  try {
+    return cachedLiveBudget(c);
+  } catch {
+    return undefined;
+  }
 }
 
 /** One diagnostic on each `use` line whose file (or a file it uses) has errors. */

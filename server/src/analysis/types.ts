@@ -52,6 +52,8 @@ export interface ChannelResult {
   channel: ChannelDef;
   sweep: SweepPoint[];
   summary: ChannelSummary;
-  /** Error budget (budget/budget.ts), set by analyse(); absent when it could not be computed. */
+  /** Full error budget with Monte Carlo (budget/budget.ts), computed by analyse() on first read; absent when it could not be computed. */
   budget?: import('../budget/types').BudgetResult;
+  /** Worst case alone on the same grid, computed by every analyse() for the accuracy check. */
+  worstCaseBudget?: import('../budget/types').BudgetResult;
 }

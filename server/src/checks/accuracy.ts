@@ -9,7 +9,7 @@ import { describeSetting } from '../budget/describe';
 const DEFERS_TO = ['clip-high', 'clip-low', 'clip-tolerance', 'supply-too-low'];
 
 export function checkAccuracy({ channel: c, result, sink, reported }: CheckContext): void {
-  const b = result.budget;
+  const b = result.worstCaseBudget;
   if (!b || c.accuracyK === null || DEFERS_TO.some((code) => reported.has(code))) return;
   // Same conditions as checks/clip.ts (which does not mark `reported`).
   const s0 = result.summary;

@@ -2,7 +2,7 @@
 // completion, inlay hints...) so that only a change re-runs the engine. An entry is also stale
 // when a file it uses has changed (an open document's version, or a disk change notice).
 import type { TextDocument } from 'vscode-languageserver-textdocument';
-import { analyse, type Analysis } from '../engine';
+import { analyse, ParseCache, SweepCache, type Analysis } from '../engine';
 import { uriToPath, type OpenDocuments } from './documents';
 
 interface Entry {
@@ -35,7 +35,17 @@ export class AnalysisCache {
   run(doc: TextDocument, overrides?: Map<string, string>): Analysis {
     const p = uriToPath(doc.uri, this.docs.roots);
     const text = overrides?.get(p) ?? doc.getText();
-    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides) });
+    // Per-document caches: an edit re-parses and re-sweeps only the blocks it touched.
+    const caches = overrides ? undefined : this.cachesFor(doc.uri);
+    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), cache: caches?.sweeps, parseCache: caches?.pieces });
+  }
+
+  private readonly incremental = new Map<string, { sweeps: SweepCache; pieces: ParseCache }>();
+
+  private cachesFor(uri: string): { sweeps: SweepCache; pieces: ParseCache } {
+    let c = this.incremental.get(uri);
+    if (!c) this.incremental.set(uri, (c = { sweeps: new SweepCache(), pieces: new ParseCache() }));
+    return c;
   }
 
   /** The last analysis of a document, whatever its version (for finding dependants). */
@@ -45,6 +55,7 @@ export class AnalysisCache {
 
   drop(uri: string): void {
     this.entries.delete(uri);
+    this.incremental.delete(uri);
   }
 
   private fresh(e: Entry): boolean {
