@@ -3,6 +3,11 @@
 // arm-none-eabi-gcc, host gcc). Prints figures and PASS/MISS against the issue's targets; asserts
 // nothing. Run alone with `npx tsx bench/codegen.ts`.
 
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import { analyse } from '../server/src/engine';
+import { DiskHost } from '../server/src/cli/io';
+import { conversionInput, generatableResults } from '../server/src/codegen/channel-input';
 import { junctionChannel, loadOperatingPoint } from '../tests/fixtures/codegen/channels';
 import { compareOnTargets, formatComparison } from '../tests/fixtures/codegen/measure';
 import { toolVersion } from '../tests/fixtures/codegen/toolchain';
@@ -27,6 +32,41 @@ export async function benchCodegen(): Promise<void> {
   console.log('   AVR/M0 bytes = linked .text+.data with one call minus without (library routines included);');
   console.log('   AVR cycles = Timer1 at prescaler 1 around one call, mean/max over every in-range code;');
   console.log('   max error = host gcc result vs the model at every in-range code.');
+  console.log(`   (measured in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+  benchSamples();
+}
+
+/** The same figures for every channel of samples/*.tsense that the engine analyses. */
+function benchSamples(): void {
+  const dir = path.resolve(__dirname, '../samples');
+  const specs = fs.readdirSync(dir).filter((f) => f.endsWith('.tsense')).sort();
+  console.log(`== codegen: every analysed channel of samples/*.tsense (${specs.join(', ')}), options from each channel (defaults 0.01 °C output, 0.02 °C target)`);
+  console.log('   spec / channel                       codes  method (entries)   max err degC (target)   AVR bytes   AVR cycles mean/max   M0 bytes   AVR != TS');
+  const t0 = Date.now();
+  for (const spec of specs) {
+    const file = path.join(dir, spec);
+    const host = new DiskHost();
+    const a = analyse({ path: file, text: host.read(file) ?? '', root: dir, host });
+    const ok = generatableResults(a.channels, a.diagnostics);
+    for (const r of a.channels) {
+      if (r.channel.file !== file) continue;
+      const label = `${spec.replace(/\.tsense$/, '')} / ${r.channel.name}`.padEnd(36);
+      if (!ok.includes(r)) {
+        console.log(`   ${label} not generated: the channel has error diagnostics (or an ADC above 16 bits)`);
+        continue;
+      }
+      try {
+        const input = conversionInput(r, file);
+        const c = compareOnTargets(input, { baselines: false });
+        const o = c.ours;
+        const n = (v: number | undefined, d = 0) => (v === undefined ? 'n/a' : v.toFixed(d));
+        console.log(`   ${label} ${String(c.codes).padStart(6)}  ${`${c.method} (${c.entries})`.padEnd(17)}  ${`${n(o.maxErrorC, 4)} (${input.errorTarget})`.padStart(21)}   ${n(o.avrBytes).padStart(9)}   ${`${n(o.avrCyclesMean, 1)}/${n(o.avrCyclesMax)}`.padStart(19)}   ${n(o.m0Bytes).padStart(8)}   ${n(c.avrMismatches).padStart(9)}${c.skipped.length ? `  (skipped: ${c.skipped.join('; ')})` : ''}`);
+      } catch (e) {
+        console.log(`   ${label} not generated: ${(e as Error).message.split('\n')[0]}`);
+      }
+    }
+  }
+  console.log('   max error = host gcc result vs the engine\'s exact model inverse at every in-range code; AVR != TS = simavr results differing from the TypeScript simulation.');
   console.log(`   (measured in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
 }
 

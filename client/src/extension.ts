@@ -4,6 +4,7 @@ import * as vscode from 'vscode';
 // The file path rather than `vscode-languageclient/node`: the root tsconfig's `moduleResolution: node`
 // ignores package `exports`, and a file path resolves the same under every setting and in esbuild.
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from '../../node_modules/vscode-languageclient/lib/node/main';
+import { registerInsertConversion } from './insert-conversion';
 
 const LANGUAGE_ID = 'tsense';
 // Client id: vscode-languageclient reads the `thermoscribe.trace.server` setting from it.
@@ -20,6 +21,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     vscode.commands.registerCommand('thermoscribe.restartServer', () => restart(context)),
     vscode.commands.registerCommand('thermoscribe.showServerLog', () => log?.show(true)),
   );
+  registerInsertConversion(context, () => client);
 
   await start(context);
 }

@@ -1,6 +1,7 @@
 // thermoscribe: the command-line face of the engine (check, report, gen, serve).
 import { runCheck, CHECK_USAGE } from './commands/check';
 import { runReport, REPORT_USAGE } from './commands/report';
+import { runGen, GEN_USAGE } from './commands/gen';
 import { runBudget, BUDGET_USAGE } from './commands/budget';
 import { EXIT, type CliIO } from './io';
 import { VERSION } from './version';
@@ -11,6 +12,8 @@ const USAGE = `thermoscribe ${VERSION}: design checks for ADC temperature channe
 usage:
   ${CHECK_USAGE}
   ${REPORT_USAGE}
+  ${GEN_USAGE}
+                                    write the channels' C conversion code and header
   ${BUDGET_USAGE}
                                     error budget: worst case, Monte Carlo, calibration
   thermoscribe serve --stdio        start the language server on stdin/stdout
@@ -30,6 +33,8 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
         process.exitCode = code;
       });
       return 'serving';
+    case 'gen':
+      return runGen(rest, io);
     case 'serve': {
       const code = startServer();
       return code === 0 ? 'serving' : code;

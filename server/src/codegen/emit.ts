@@ -20,6 +20,9 @@ export interface ChannelPlan {
   /** The trimmed output can leave the output type's range: clamp in C. */
   needClamp: boolean;
   floatVariant: boolean;
+  /** Final outputs at the low and high in-range codes (what a clamped code returns). */
+  outAtLow: number;
+  outAtHigh: number;
   maxErrorC: number;
   errorTarget: number;
   note?: string;
@@ -45,8 +48,9 @@ const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
 #define THSC_RD32(p) (*(p))
 #endif
 /* floor(v / 2^k) for any int32 v and 1 <= k <= 31, without the implementation-defined right
-   shift of a negative number (C99 6.5.7p5): bias into uint32, shift, remove the bias. */
-#define THSC_ASR32(v, k) ((int32_t)(((uint32_t)(v) + 0x80000000UL) >> (k)) - (int32_t)(0x80000000UL >> (k)))
+   shift of a negative number (C99 6.5.7p5): bias into uint32, shift, remove the bias. The biased
+   sum is cast back to uint32_t: where unsigned long is 64 bits it would otherwise not wrap. */
+#define THSC_ASR32(v, k) ((int32_t)((uint32_t)((uint32_t)(v) + 0x80000000UL) >> (k)) - (int32_t)(0x80000000UL >> (k)))
 /* floor((s * f + 128) / 256) for 16-bit s and 8-bit f. avr-gcc's 24-bit integer (a GNU extension,
    hence __extension__) lets it use two 8x8 multiplies instead of a 32-bit library multiply. */
 #if defined(__AVR__) && defined(__GNUC__) && defined(__UINT24_MAX__)
@@ -148,13 +152,29 @@ export function emitHeaderBody(p: ChannelPlan): string {
   return `${headComment(p)}\n#include <stdint.h>\n${SHARED_STATUS}\n${declarations(p)}\n`;
 }
 
-function clampCode(p: ChannelPlan): string[] {
+function clampCode(p: ChannelPlan, early = false): string[] {
   const below = p.dir > 0 ? 'THSC_CLAMPED_COLD' : 'THSC_CLAMPED_HOT';
   const above = p.dir > 0 ? 'THSC_CLAMPED_HOT' : 'THSC_CLAMPED_COLD';
   const out: string[] = [];
   // Comparisons that can never be true are left out (-Wtype-limits under -Wextra).
   const lowTest = p.low > 0 ? `code < ${p.low}u` : undefined;
   const highTest = p.high < 65535 ? `code > ${p.high}u` : undefined;
+  if (early) {
+    // Without run-time trims the output at a range end is a constant: a clamped code returns it
+    // at once, and the in-range path carries no status (fewer live registers on an 8-bit MCU).
+    // One unsigned comparison tests both ends (the wrap-around puts codes below the range high).
+    const outT = `int${p.outBits}_t`;
+    const lowRet = `{ *out = (${outT})${lit(p.outAtLow, p.outBits)}; return ${below}; }`;
+    const highRet = `{ *out = (${outT})${lit(p.outAtHigh, p.outBits)}; return ${above}; }`;
+    if (lowTest && highTest) {
+      out.push(`    if ((uint16_t)(code - ${p.low}u) > ${p.high - p.low}u) {`);
+      out.push(`        if (${lowTest}) ${lowRet}`);
+      out.push(`        ${highRet}`);
+      out.push('    }');
+    } else if (lowTest) out.push(`    if (${lowTest}) ${lowRet}`);
+    else if (highTest) out.push(`    if (${highTest}) ${highRet}`);
+    return out;
+  }
   if (lowTest) out.push(`    if (${lowTest}) { code = ${p.low}u; status = ${below}; }`);
   if (highTest) out.push(`    ${lowTest ? 'else ' : ''}if (${highTest}) { code = ${p.high}u; status = ${above}; }`);
   return out;
@@ -267,9 +287,12 @@ export function emitSourceBody(p: ChannelPlan): string {
         : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q})\n{\n    ${n.trims}.offset = offset_units;\n    ${n.trims}.gain_q${GAIN_Q} = gain_q${GAIN_Q};\n}`,
     );
   }
-  const lines: string[] = [`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    uint8_t status = THSC_IN_RANGE;', ...k.decl];
+  const early = !p.trim.runtime;
+  const lines: string[] = [`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{'];
+  if (!early) lines.push('    uint8_t status = THSC_IN_RANGE;');
+  lines.push(...k.decl);
   if (p.trim.mode !== 'none') lines.push('    int32_t trimmed;');
-  lines.push(...clampCode(p), ...k.body);
+  lines.push(...clampCode(p, early), ...k.body);
   if (p.trim.mode === 'none') {
     lines.push(`    *out = (${outT})kernel;`);
   } else {
@@ -280,7 +303,7 @@ export function emitSourceBody(p: ChannelPlan): string {
     }
     lines.push(`    *out = (${outT})trimmed;`);
   }
-  lines.push('    return status;', '}');
+  lines.push(early ? '    return THSC_IN_RANGE;' : '    return status;', '}');
   parts.push(lines.join('\n'));
   if (p.floatVariant) parts.push(floatVariant(p, n));
   return `${parts.join('\n')}\n`;

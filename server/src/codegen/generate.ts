@@ -222,6 +222,8 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
       outBits,
       needClamp: s.trim.runtime || lo - 1 < s.outMin || hi + 1 > s.outMax,
       floatVariant: c.floatVariant,
+      outAtLow: finish(s, kernelAt(ch.design, s, s.low)),
+      outAtHigh: finish(s, kernelAt(ch.design, s, s.high)),
       maxErrorC: worst / c.outputScale,
       errorTarget: c.errorTarget,
       note: c.note,

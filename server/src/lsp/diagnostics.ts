@@ -7,6 +7,7 @@ import type { TextDocument } from 'vscode-languageserver-textdocument';
 import type { ServerContext } from './context';
 import { toDiagnostic } from './convert';
 import { uriToPath } from './documents';
+import { staleDiagnostics } from '../codegen/stale';
 
 export class DiagnosticScheduler {
   private readonly timers = new Map<string, NodeJS.Timeout>();
@@ -53,7 +54,10 @@ export class DiagnosticScheduler {
       const current = this.ctx.documents.get(uri);
       if (!current || current.version !== version) return;
       const own = analysis.path;
-      const diagnostics = analysis.diagnostics.filter((d) => d.file === own).map((d) => toDiagnostic(doc, d));
+      // Generated blocks in the C file beside the spec are compared at every check (cheap: a
+      // marker scan), read through the host so an open, unsaved C buffer counts.
+      const stale = staleDiagnostics(analysis, this.ctx.documents.host().read);
+      const diagnostics = [...analysis.diagnostics, ...stale].filter((d) => d.file === own).map((d) => toDiagnostic(doc, d));
       void this.ctx.connection.sendDiagnostics({ uri, version, diagnostics });
     } catch (err) {
       this.ctx.connection.console.error(`thermoscribe: checking ${uri} (version ${version}) failed: ${err instanceof Error ? err.stack ?? err.message : String(err)}`);

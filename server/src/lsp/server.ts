@@ -23,6 +23,7 @@ import { LEGEND, onSemanticTokens } from './handlers/semantic-tokens';
 import { onFormatting } from './handlers/formatting';
 import { onDefinition, onPrepareRename, onReferences, onRename } from './handlers/navigation';
 import { GENERATE_KIND, onCodeActions, onResolveCodeAction } from './handlers/code-actions';
+import { CONVERSION_CHANNELS, CONVERSION_CODE, onConversionChannels, onConversionCode, type ConversionChannelsParams, type ConversionCodeParams } from './handlers/conversion-code';
 import { VERSION } from '../cli/version';
 
 export function createServer(connection: Connection): ServerContext {
@@ -116,6 +117,8 @@ export function createServer(connection: Connection): ServerContext {
   connection.onRenameRequest(guard(connection, 'rename', null, (p) => onRename(ctx, p)));
   connection.onCodeAction(guard(connection, 'codeAction', [], (p) => onCodeActions(ctx, p, lazyActions)));
   connection.onCodeActionResolve((p) => guard(connection, 'codeAction/resolve', p, (q: typeof p) => onResolveCodeAction(ctx, q))(p));
+  connection.onRequest(CONVERSION_CHANNELS, guard(connection, CONVERSION_CHANNELS, [], (p: ConversionChannelsParams) => onConversionChannels(ctx, p)));
+  connection.onRequest(CONVERSION_CODE, guard(connection, CONVERSION_CODE, null, (p: ConversionCodeParams) => onConversionCode(ctx, p)));
 
   documents.docs.listen(connection);
   return ctx;

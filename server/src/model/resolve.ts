@@ -4,7 +4,7 @@ import type { BlockNode, FieldNode, Span, Term } from '../syntax/ast';
 import type { DiagnosticSink } from '../checks/diagnostic';
 import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
-import type { AdcDef, BiasDef, ChannelDef, JunctionDef, Toleranced } from './types';
+import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, Toleranced } from './types';
 import { noExtra, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
@@ -351,6 +351,27 @@ function readAccuracy(r: BlockReader): number | null {
   return k;
 }
 
+/** Options of the generated conversion code; undefined when the channel gives none of them. */
+function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
+  if (!['output', 'code_error', 'code_method', 'float_variant'].some((n) => r.terms(n))) return undefined;
+  const unit = r.quantity('output', 0.01);
+  const error = r.quantity('code_error', 0.02);
+  const method = r.choice('code_method', 'auto') as CodegenSpec['method'];
+  const floatVariant = r.choice('float_variant', 'no') === 'yes';
+  if (!unit || !error) return null;
+  const at = (name: string) => r.fieldSpans[name] ?? r.ref.node.name.span;
+  const scale = Math.round(1 / unit.value);
+  if (!(scale >= 1 && scale <= 10000 && Math.abs(1 / unit.value - scale) <= 1e-6 * scale)) {
+    r.sink.report('out-of-domain', r.ref.file, at('output'), `output must divide 1 °C into a whole number of units, 1 to 10000 (such as 0.01 °C or 0.05 °C); got ${unit.value} °C`);
+    return null;
+  }
+  if (!(error.value >= 0.5 / scale && error.value <= 100)) {
+    r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${0.5 / scale} °C) to 100 °C; got ${error.value} °C`);
+    return null;
+  }
+  return { outputScale: scale, errorC: error.value, method, floatVariant };
+}
+
 function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
   const r = new BlockReader(ref, BLOCKS.channel, sink);
   const sensor = readRef(r, 'sensor', 'junction', res);
@@ -363,6 +384,8 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const step = r.quantity('step', 1);
   const resolution = readResolution(r);
   const accuracy = readAccuracy(r);
+  const codegen = readCodegen(r);
+  if (codegen === null) r.ok = false;
   const conversion = r.choice('conversion', 'table') as 'table' | 'line';
   const window = r.range('current_window', [1e-6, 1e-3]);
   const theta = r.terms('theta_ja') ? r.quantity('theta_ja') : null;
@@ -389,6 +412,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
     ...(measured ? { measured } : {}),
     ...(monteCarlo ? { monteCarlo } : {}),
     ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),
+    ...(codegen ? { codegen } : {}),
     kind: 'channel',
     ...base(ref, r),
     sensor,

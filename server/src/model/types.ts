@@ -76,8 +76,21 @@ export interface ChannelDef extends DefBase {
   measured?: MeasuredPoint[];
   /** Monte Carlo settings of the error budget (absent = defaults). */
   monteCarlo?: MonteCarloSpec;
+  /** Options of the generated conversion code (absent: codegen/channel-input.ts CODE_DEFAULTS). */
+  codegen?: CodegenSpec;
   /** Extra bits by oversampling and decimation (absent = 0). */
   oversamplingBits?: number;
+}
+
+/** Fields `output`, `code_error`, `code_method`, `float_variant` of a channel. */
+export interface CodegenSpec {
+  /** Output units per degC: `output = 0.01 °C` gives 100 (signed hundredths of a degC). */
+  outputScale: number;
+  /** Largest error allowed between the generated code and the model, degC. */
+  errorC: number;
+  method: 'auto' | 'table' | 'polynomial';
+  /** Also emit a float function. */
+  floatVariant: boolean;
 }
 
 export interface CalibrationSpec {

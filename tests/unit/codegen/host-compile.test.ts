@@ -3,7 +3,12 @@
 // published equations (IEC 60751 Callendar-Van Dusen; SPICE diode/BJT temperature laws as coded
 // in ngspice), not from the generator, so the error figure is an outside check.
 
+import * as fs from 'node:fs';
+import * as path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analyse } from '../../../server/src/engine';
+import { DiskHost } from '../../../server/src/cli/io';
+import { conversionInput, generatableResults } from '../../../server/src/codegen/channel-input';
 import { generateC } from '../../../server/src/codegen';
 import { planChannels } from '../../../server/src/codegen/generate';
 import type { ConversionInput } from '../../../server/src/codegen/types';
@@ -15,6 +20,21 @@ const haveGcc = hasTool('gcc');
 if (!haveGcc) console.log('host-compile: skipped, gcc not found (run scripts/install-toolchains.sh)');
 
 interface Row { status: number; value: number; f?: number }
+
+/** The analysed channels of every sample spec as generator inputs (names made unique across specs). */
+function sampleChannels(): ConversionInput[] {
+  const dir = path.resolve(__dirname, '../../../samples');
+  const out: ConversionInput[] = [];
+  for (const spec of fs.readdirSync(dir).filter((f) => f.endsWith('.tsense')).sort()) {
+    const file = path.join(dir, spec);
+    const host = new DiskHost();
+    const a = analyse({ path: file, text: host.read(file) ?? '', root: dir, host });
+    for (const r of generatableResults(a.channels, a.diagnostics)) {
+      if (r.channel.file === file) out.push({ ...conversionInput(r, file), channelName: `${spec.replace(/\.tsense$/, '')}.${r.channel.name}` });
+    }
+  }
+  return out;
+}
 
 describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => {
   const channels: ConversionInput[] = [
@@ -34,6 +54,10 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
     const op = await loadOperatingPoint();
     if (op) channels.push(junctionChannel(op));
     else console.log('host-compile: junction channel skipped, server/src/physics/junction.ts not present');
+    // Every channel of samples/*.tsense the engine analyses, with the options its spec gives; the
+    // model is the engine's exact inverse (analysis/inverse.ts), itself checked against published
+    // equations in the physics and sensor tests.
+    channels.push(...sampleChannels());
     const src = generateC(channels, { fileStem: 'conv' });
     const hdr = generateC(channels, { fileStem: 'conv', header: true });
     const { plans } = planChannels(channels);
@@ -45,7 +69,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
       else main += `        printf("R ${i} %u %u %ld\\n", c, (unsigned)st, (long)v);\n`;
       main += '    }\n';
       if (p.trim.runtime) {
-        main += `    ${id}_set_trim(${p.trim.offsetScaled + 50}, ${p.trim.gainQ}u);\n`;
+        main += p.trim.mode === 'offset' ? `    ${id}_set_trim(${p.trim.offsetScaled + 50});\n` : `    ${id}_set_trim(${p.trim.offsetScaled + 50}, ${p.trim.gainQ}u);\n`;
         main += `    for (c = ${p.low}u; c <= ${p.high}u; c++) {\n        ${id}_temp_t v;\n        (void)${id}_code_to_temp((uint16_t)c, &v);\n        printf("T ${i} %u %ld\\n", c, (long)v);\n    }\n`;
       }
     });
@@ -73,6 +97,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
 
   it('compiles without a warning and runs every code of every channel', () => {
     for (const c of channels) expect(rows.get(c.channelName)?.filter(Boolean).length).toBe(2 ** c.bits);
+    expect(channels.filter((c) => c.channelName.startsWith('greenhouse.')).length).toBeGreaterThan(0);
   });
 
   it('equals the generator simulation of the C arithmetic at every code', () => {

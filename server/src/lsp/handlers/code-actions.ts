@@ -51,6 +51,14 @@ export function onCodeActions(ctx: ServerContext, params: CodeActionParams, lazy
     const action: CodeAction = { title: `Generate conversion code for ${block.name.text}`, kind: GENERATE_KIND, data };
     out.push(lazy ? action : onResolveCodeAction(ctx, action));
   }
+  // The same generation as a quick fix of a `generated-stale` diagnostic (codegen/stale.ts).
+  const stale = params.context.diagnostics.find((d) => d.code === 'generated-stale' && typeof (d.data as GenerateData | undefined)?.channel === 'string');
+  const staleChannel = (stale?.data as GenerateData | undefined)?.channel;
+  if (stale && staleChannel && wants(CodeActionKind.QuickFix) && generatableChannels(a).includes(staleChannel)) {
+    const data: GenerateData = { uri: doc.uri, channel: staleChannel };
+    const action: CodeAction = { title: `Regenerate conversion code for ${staleChannel}`, kind: CodeActionKind.QuickFix, diagnostics: [stale], isPreferred: true, data };
+    out.push(lazy ? action : onResolveCodeAction(ctx, action));
+  }
   return out;
 }
 
@@ -68,7 +76,7 @@ function fixEdit(ctx: ServerContext, a: ReturnType<ServerContext['analyses']['ge
 
 export function onResolveCodeAction(ctx: ServerContext, action: CodeAction): CodeAction {
   const data = action.data as GenerateData | undefined;
-  if (action.kind !== GENERATE_KIND || !data) return action;
+  if ((action.kind !== GENERATE_KIND && action.kind !== CodeActionKind.QuickFix) || typeof data?.channel !== 'string') return action;
   const doc = ctx.documents.get(data.uri);
   if (!doc) return action;
   const a = ctx.analyses.get(doc);
