@@ -7,7 +7,7 @@ async function main(): Promise<void> {
   const { benchEngine } = await import('./engine');
   await benchEngine();
   // Benchmarks of other layers are run when their module exists.
-  for (const [file, fn] of [['lsp.ts', 'benchLsp'], ['codegen.ts', 'benchCodegen']] as const) {
+  for (const [file, fn] of [['budget.ts', 'benchBudget'], ['lsp.ts', 'benchLsp'], ['codegen.ts', 'benchCodegen']] as const) {
     if (!fs.existsSync(path.join(__dirname, file))) continue;
     const mod = (await import(`./${file.replace(/\.ts$/, '')}`)) as Record<string, () => Promise<void>>;
     if (typeof mod[fn] === 'function') await mod[fn]!();
