@@ -67,6 +67,17 @@ describe('stale generated code', () => {
     const hash = channelSpecHash(a.channels.find((r) => r.channel.name === 'coolant')!.channel);
     expect(JSON.stringify(resolved!.edit)).toContain(`thermoscribe:begin channel=coolant spec=${hash} `);
   });
+  it('clears the warning once the C file is regenerated and the client reports the change', async () => {
+    const fresh = generateForSpec(analyse({ path: spec, text: SPEC_TEXT }), { fileStem: 'pump_conversion' });
+    if (!fresh.ok) throw new Error(fresh.message);
+    const cFile = path.join(dir, 'pump_conversion.c');
+    fs.writeFileSync(cFile, fresh.source.text);
+    const after = client.publications(uri).length;
+    // FileChangeType 2 = Changed (LSP 3.17 workspace/didChangeWatchedFiles), as the client's watcher sends it.
+    void client.conn.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: uriOf(cFile), type: 2 }] });
+    const ds = await client.diagnosticsWhere(uri, (d) => !d.some((x) => x.code === 'generated-stale'), after);
+    expect(ds.filter((d) => d.code === 'generated-stale')).toEqual([]);
+  });
 });
 
 describe('thermoscribe/conversionChannels and thermoscribe/conversionCode', () => {

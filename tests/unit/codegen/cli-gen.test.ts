@@ -6,7 +6,7 @@ import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { main } from '../../../server/src/cli/main';
+import { runGen } from '../../../server/src/cli/commands/gen';
 import { findGeneratedBlocks, scanGeneratedBlocks } from '../../../server/src/codegen';
 import { FIXTURES } from '../helpers/fixtures';
 
@@ -16,7 +16,9 @@ let dir: string;
 function runCli(args: string[]) {
   let out = '';
   let err = '';
-  const code = main(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: dir });
+  // `thermoscribe gen ...` as dispatched by cli/main.ts.
+  expect(args[0]).toBe('gen');
+  const code = runGen(args.slice(1), { out: (t) => (out += t), err: (t) => (err += t), cwd: dir });
   return { code, out, err };
 }
 

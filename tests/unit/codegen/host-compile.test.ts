@@ -14,7 +14,7 @@ import { planChannels } from '../../../server/src/codegen/generate';
 import type { ConversionInput } from '../../../server/src/codegen/types';
 import { junctionChannel, loadOperatingPoint, rtdChannel, syntheticDiodeChannel } from '../../fixtures/codegen/channels';
 import { expectedOutput } from '../../fixtures/codegen/measure';
-import { WorkDir, hasTool, hostBuildRun } from '../../fixtures/codegen/toolchain';
+import { WorkDir, hasTool, hostBuildRun, run } from '../../fixtures/codegen/toolchain';
 
 const haveGcc = hasTool('gcc');
 if (!haveGcc) console.log('host-compile: skipped, gcc not found (run scripts/install-toolchains.sh)');
@@ -98,6 +98,11 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
   it('compiles without a warning and runs every code of every channel', () => {
     for (const c of channels) expect(rows.get(c.channelName)?.filter(Boolean).length).toBe(2 ** c.bits);
     expect(channels.filter((c) => c.channelName.startsWith('greenhouse.')).length).toBeGreaterThan(0);
+  });
+
+  it.skipIf(!hasTool('g++'))('compiles as C++ too (the editor inserts blocks into C++ files)', () => {
+    // ISO C++11 with GNU's warnings as errors; the header's extern "C" keeps the C linkage.
+    run('g++', ['-x', 'c++', '-std=c++11', '-Wall', '-Wextra', '-Werror', '-pedantic', '-c', 'conv.c', '-o', 'conv_cpp.o'], dir.path);
   });
 
   it('equals the generator simulation of the C arithmetic at every code', () => {
