@@ -4,6 +4,10 @@
 import { operatingPoint, operatingPointAt, junctionAtTemperature } from '../physics/junction';
 import type { Bias } from '../physics/types';
 import type { BiasDef, ChannelDef } from '../model/types';
+import type { JunctionDef, RtdDef, ThermistorDef } from '../model/types';
+import { shResistanceAt, shResistanceSlope } from '../physics/steinhart-hart';
+import { cvdResistance, cvdSlope } from '../physics/callendar-van-dusen';
+import { chainAt, type ResistiveChain } from '../physics/resistive-chain';
 
 export interface SensedPoint {
   /** Voltage at the ADC input, V. */
@@ -30,6 +34,7 @@ export function physicsBias(b: BiasDef): Bias {
 }
 
 export function sense(c: ChannelDef, kelvin: number): SensedPoint {
+  if (c.sensor.kind !== 'junction') return senseResistive(c, c.sensor, kelvin);
   if (c.secondBias) return senseTwoCurrent(c, c.secondBias, kelvin);
   const bias = nominalBias(c);
   const op = operatingPoint(c.sensor.params, bias, kelvin);
@@ -53,7 +58,7 @@ function parallel(a: number, b: number): number {
  * amps, power and source impedance are those of the larger-current reading (the worse one).
  */
 function senseTwoCurrent(c: ChannelDef, second: BiasDef, kelvin: number): SensedPoint {
-  const j = junctionAtTemperature(c.sensor.params, kelvin);
+  const j = junctionAtTemperature((c.sensor as JunctionDef).params, kelvin);
   const b1 = nominalBias(c);
   const b2 = physicsBias(second);
   const p1 = operatingPointAt(j, b1);
@@ -66,4 +71,39 @@ function senseTwoCurrent(c: ChannelDef, second: BiasDef, kelvin: number): Sensed
     powerW: hi.volts * hi.amps,
     sourceOhms: bHi.kind === 'resistor' ? parallel(bHi.ohms, hi.dynamicOhms) : hi.dynamicOhms,
   };
+}
+
+// ---------------------------------------------------------------- resistive sensors (NTC, RTD)
+
+/** Resistance of a thermistor or RTD element at a temperature, ohm, and its slope dR/dT, ohm/K. */
+export function elementAt(s: ThermistorDef | RtdDef, kelvin: number): { ohms: number; slope: number } {
+  if (s.kind === 'thermistor') return { ohms: shResistanceAt(s.params, kelvin), slope: shResistanceSlope(s.params, kelvin) };
+  const t = kelvin - 273.15;
+  return { ohms: cvdResistance(s.params.R0, s.params, t), slope: cvdSlope(s.params.R0, s.params, t) };
+}
+
+/**
+ * The path from a resistive element to the ADC pin: excitation, uncompensated leads (two wires:
+ * both leads in series; three and four wires: cancelled, IEC 60751 connection drawings), amplifier.
+ * A ratiometric reading scales the divider by the ADC reference, so the code is the divider ratio.
+ */
+export function resistiveChain(c: ChannelDef): ResistiveChain {
+  const b = c.bias;
+  const excitation: ResistiveChain['excitation'] = b.kind === 'current'
+    ? { kind: 'current', amps: b.amps.value }
+    : { kind: 'divider', ohms: b.ohms.value, supply: b.supply.value, position: b.kind === 'divider' ? b.position : 'above' };
+  const w = c.wiring;
+  return {
+    excitation,
+    leadOhms: w && w.wires === 2 ? 2 * w.leadOhms : 0,
+    gain: c.amplifier?.gain ?? 1,
+    offsetVolts: c.amplifier?.offsetVolts ?? 0,
+    ...(c.ratiometric && b.kind !== 'current' ? { dividerVolts: c.adc.reference.value } : {}),
+    buffered: c.amplifier !== undefined,
+  };
+}
+
+function senseResistive(c: ChannelDef, s: ThermistorDef | RtdDef, kelvin: number): SensedPoint {
+  const e = elementAt(s, kelvin);
+  return chainAt(resistiveChain(c), e.ohms, e.slope);
 }

@@ -7,7 +7,8 @@ import type { CheckContext } from './context';
 import { fmtA, fmtC, fmtOhm } from './format';
 
 export function checkBiasWindow({ channel: c, result, sink, reported }: CheckContext): void {
-  if (reported.has('supply-too-low')) return;
+  // The window is a junction rule; resistive sensors are judged on self-heating instead.
+  if (reported.has('supply-too-low') || c.sensor.kind !== 'junction') return;
   const { ampsMin, ampsMax } = result.summary;
   const atMin = result.sweep.find((p) => p.amps === ampsMin)!;
   const atMax = result.sweep.find((p) => p.amps === ampsMax)!;
@@ -31,7 +32,7 @@ export function checkBiasWindow({ channel: c, result, sink, reported }: CheckCon
  * with the currents it gives at the two ends of the range; null when no resistor can.
  */
 export function suggestResistor(c: ChannelDef): { ohms: number; ampsMin: number; ampsMax: number } | null {
-  if (c.bias.kind !== 'resistor') return null;
+  if (c.bias.kind !== 'resistor' || c.sensor.kind !== 'junction') return null;
   const supply = c.bias.supply.value;
   const target = Math.sqrt(c.windowLowA * c.windowHighA);
   const mid = (c.lowK + c.highK) / 2;

@@ -7,5 +7,5 @@ export function checkRated({ channel: c, sink }: CheckContext): void {
   const s = c.sensor;
   if (c.lowK >= s.ratedLowK && c.highK <= s.ratedHighK) return;
   sink.report('outside-rated', c.file, fieldSpan(c, 'range'),
-    `range ${fmtC(c.lowK - 273.15)} .. ${fmtC(c.highK - 273.15)} reaches beyond the rated junction range of '${s.name}' (${fmtC(s.ratedLowK - 273.15)} .. ${fmtC(s.ratedHighK - 273.15)})`);
+    `range ${fmtC(c.lowK - 273.15)} .. ${fmtC(c.highK - 273.15)} reaches beyond the rated ${s.kind === 'junction' ? 'junction ' : ''}range of '${s.name}' (${fmtC(s.ratedLowK - 273.15)} .. ${fmtC(s.ratedHighK - 273.15)})`);
 }

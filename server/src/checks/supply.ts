@@ -5,7 +5,7 @@ import type { CheckContext } from './context';
 import { fmtA, fmtC, fmtV } from './format';
 
 export function checkSupply({ channel: c, sink, reported }: CheckContext): void {
-  if (c.bias.kind !== 'resistor') return;
+  if (c.bias.kind !== 'resistor' || c.sensor.kind !== 'junction') return;
   const need = operatingPoint(c.sensor.params, { kind: 'current', amps: c.windowLowA }, c.lowK).volts;
   const supply = c.bias.supply.value;
   if (supply > need) return;

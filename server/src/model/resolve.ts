@@ -4,10 +4,11 @@ import type { BlockNode, FieldNode, Span, Term } from '../syntax/ast';
 import type { DiagnosticSink } from '../checks/diagnostic';
 import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
-import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, Toleranced } from './types';
+import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, RtdDef, ThermistorDef, Toleranced } from './types';
 import { noExtra, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
+import { readChannelExtras, readDividerBias, readRtd, readSensorRef, readThermistor } from './read-sensors';
 import { isTwoCurrentBias, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
 
 export interface BlockRef {
@@ -21,6 +22,8 @@ export interface Resolution {
   junctions: Map<string, JunctionDef>;
   adcs: Map<string, AdcDef>;
   channels: ChannelDef[];
+  /** Thermistor and rtd definitions (read in read-sensors.ts). */
+  resistiveSensors: Map<string, ThermistorDef | RtdDef>;
 }
 
 const ZERO_C = 273.15;
@@ -28,7 +31,7 @@ const ZERO_C = 273.15;
 export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolution {
   const entry = files[0]!;
   const blocks = new Map<string, BlockRef>();
-  const res: Resolution = { blocks, junctions: new Map(), adcs: new Map(), channels: [] };
+  const res: Resolution = { blocks, junctions: new Map(), adcs: new Map(), channels: [], resistiveSensors: new Map() };
   // Entry file first so that a duplicate is reported where the user is typing.
   for (const file of files) {
     for (const item of file.parse.tree.items) {
@@ -36,7 +39,7 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolut
       const spec = blockSpec(item.keyword.text);
       if (!spec) {
         const near = closest(item.keyword.text, Object.keys(BLOCKS));
-        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${item.keyword.text}'; expected junction, adc or channel${near ? ` (did you mean '${near}'?)` : ''}`);
+        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${item.keyword.text}'; expected ${Object.keys(BLOCKS).join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
         continue;
       }
       const prior = blocks.get(item.name.text);
@@ -51,6 +54,10 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolut
     if (ref.kind === 'junction') {
       const j = readJunction(ref, sink);
       if (j) res.junctions.set(j.name, j);
+    } else if (ref.kind === 'thermistor' || ref.kind === 'rtd') {
+      const r = new BlockReader(ref, BLOCKS[ref.kind], sink);
+      const d = ref.kind === 'thermistor' ? readThermistor(r, base(ref, r)) : readRtd(r, base(ref, r));
+      if (d) res.resistiveSensors.set(d.name, d);
     } else if (ref.kind === 'adc') {
       const a = readAdc(ref, sink);
       if (a) res.adcs.set(a.name, a);
@@ -84,7 +91,7 @@ function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<str
   return out;
 }
 
-class BlockReader {
+export class BlockReader {
   readonly fields: Map<string, { spec: FieldSpec; node: FieldNode }>;
   readonly fieldSpans: Record<string, Span> = {};
   ok = true;
@@ -298,6 +305,7 @@ function readBias(r: BlockReader): BiasDef | null {
     if (rt === null || vt === null) return (r.ok = false), null;
     return { kind: 'resistor', ohms: { value: ohms, tolerance: rt, span: rq.span }, supply: { value: volts, tolerance: vt, span: vq.span }, span };
   }
+  if (head.text === 'divider') return readDividerBias(r, terms);
   return bad();
 }
 
@@ -374,7 +382,7 @@ function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
 
 function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
   const r = new BlockReader(ref, BLOCKS.channel, sink);
-  const sensor = readRef(r, 'sensor', 'junction', res);
+  const sensor = readSensorRef(r, res);
   const adc = readRef(r, 'adc', 'adc', res);
   const biasTerms = r.terms('bias');
   const twin = isTwoCurrentBias(biasTerms) ? readTwoCurrentBias(biasTerms!, r.ctx('bias')) : undefined;
@@ -405,8 +413,15 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const measured = adc ? phrase('measured', (t) => readMeasured(t, r.ctx('measured'), adc.bits)) : undefined;
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
+  // Resistive-sensor fields (read-sensors.ts).
+  const extras = readChannelExtras(r, sensor, bias, adc);
+  if (twin && sensor && sensor.kind !== 'junction') {
+    sink.report('bad-value', ref.file, r.fieldSpans['bias'] ?? ref.node.name.span, `the two-current bias is for a junction; '${sensor.name}' is a ${sensor.kind}`);
+    r.ok = false;
+  }
   if (!r.ok || !sensor || !adc || !bias || !range || !step || !window) return null;
   return {
+    ...extras,
     ...(twin ? { secondBias: twin.second } : {}),
     ...(calibration ? { calibration } : {}),
     ...(measured ? { measured } : {}),

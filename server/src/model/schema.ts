@@ -2,13 +2,14 @@
 // The resolver, completion and hover all read this one table.
 import type { Dimension } from './units';
 
-export type BlockKind = 'junction' | 'adc' | 'channel';
+export type BlockKind = 'junction' | 'thermistor' | 'rtd' | 'adc' | 'channel';
 
 export type FieldForm =
   | { form: 'quantity'; dimension: Dimension; tolerance?: boolean; integer?: boolean; min?: number; minInclusive?: boolean; max?: number; difference?: boolean }
   | { form: 'range'; dimension: Dimension }
   | { form: 'choice'; options: string[] }
-  | { form: 'ref'; target: BlockKind }
+  /** `targets`, when given, lists every kind accepted (the channel's sensor: junction, thermistor or rtd). */
+  | { form: 'ref'; target: BlockKind; targets?: BlockKind[] }
   | { form: 'bias' }
   | { form: 'resolution' }
   | { form: 'accuracy' }
@@ -69,9 +70,9 @@ const channel: BlockSpec = {
   kind: 'channel',
   doc: 'A temperature channel: a sensor, its bias, the ADC that reads it, and the targets it must meet.',
   fields: [
-    { name: 'sensor', form: { form: 'ref', target: 'junction' }, doc: 'Name of the junction definition used.', example: 'sensor = small_npn' },
+    { name: 'sensor', form: { form: 'ref', target: 'junction', targets: ['junction', 'thermistor', 'rtd'] }, doc: 'Name of the sensor definition used: a junction, a thermistor or an rtd.', example: 'sensor = small_npn' },
     { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
-    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages.', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %' },
+    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %' },
     { name: 'range', form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
     { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
     { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count' },
@@ -87,10 +88,48 @@ const channel: BlockSpec = {
     { name: 'code_method', form: { form: 'choice', options: ['auto', 'table', 'polynomial'] }, defaultText: 'auto', doc: 'How the generated code converts: `table` (points with linear interpolation), `polynomial` (piecewise quadratic) or `auto` (whichever meets `code_error` in fewer bytes).', example: 'code_method = table' },
     { name: 'float_variant', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes to generate, beside the integer function, one returning a float in °C (no maths library needed).', example: 'float_variant = yes' },
     { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`).', example: 'oversampling = 2 bits' },
+    { name: 'ratiometric', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes when the ADC reference is the divider\'s own supply: the code then follows the divider ratio and the supply cancels. The divider supply must equal the ADC reference.', example: 'ratiometric = yes' },
+    { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between a thermistor or RTD and the ADC: V_adc = gain × V + offset.', example: 'gain = 20' },
+    { name: 'offset', form: { form: 'quantity', dimension: 'voltage' }, defaultText: '0 V', doc: 'Output offset of that amplifier, V (may be negative).', example: 'offset = -0.1 V' },
+    { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm' },
+    { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge' },
   ],
 };
 
-export const BLOCKS: Record<BlockKind, BlockSpec> = { junction, adc, channel };
+const thermistor: BlockSpec = {
+  kind: 'thermistor',
+  doc: 'An NTC thermistor. Give its curve one way: `r25` and `beta` (the beta model), `sh_a`, `sh_b`, `sh_c` (Steinhart-Hart coefficients), or `point_1`..`point_3` (three measured points; the engine fits the Steinhart-Hart coefficients through them exactly).',
+  fields: [
+    { name: 'r25', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 25 °C (R25), with its tolerance. Required with `beta`.', example: 'r25 = 10k ± 1 %' },
+    { name: 'beta', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0, tolerance: true }, doc: 'Beta constant in kelvin, with its tolerance: R(T) = R25 exp(beta (1/T - 1/298.15 K)).', example: 'beta = 3950 K ± 1 %' },
+    { name: 'beta_range', form: { form: 'range', dimension: 'temperature' }, defaultText: '25 °C .. 85 °C', doc: 'The two temperatures beta is specified between on the datasheet (beta 25/85 by default). The beta model is exact at 25 °C and keeps the datasheet\'s resistance ratio between these two; outside them its error grows.', example: 'beta_range = 25 °C .. 50 °C' },
+    { name: 'sh_a', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart A (1/K): 1/T = A + B ln R + C (ln R)^3 with R in ohms.', example: 'sh_a = 1.129e-3' },
+    { name: 'sh_b', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, doc: 'Steinhart-Hart B (1/K).', example: 'sh_b = 2.341e-4' },
+    { name: 'sh_c', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart C (1/K).', example: 'sh_c = 8.775e-8' },
+    { name: 'point_1', form: { form: 'phrase', syntax: 'T R' }, doc: 'A measured point, temperature then resistance; give three (point_1, point_2, point_3) and the engine fits the Steinhart-Hart coefficients through them exactly.', example: 'point_1 = 0 °C 32.65k' },
+    { name: 'point_2', form: { form: 'phrase', syntax: 'T R' }, doc: 'The second measured point (see point_1).', example: 'point_2 = 25 °C 10k' },
+    { name: 'point_3', form: { form: 'phrase', syntax: 'T R' }, doc: 'The third measured point (see point_1).', example: 'point_3 = 70 °C 1.752k' },
+    { name: 'r_tolerance', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Resistance tolerance of a curve given by coefficients or points (with `beta`, put it on `r25`).', example: 'r_tolerance = ± 1 %' },
+    { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '1.5 mW/K', doc: 'Dissipation constant: the power that warms the thermistor 1 K above its surroundings. Self-heating = power / dissipation. The default is a typical figure for a small epoxy bead in still air (from memory); take yours from the datasheet.', example: 'dissipation = 1.5 mW/K' },
+    { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-40 °C .. 125 °C', doc: 'Temperature range the part is rated for.', example: 'rated = -40 °C .. 125 °C' },
+  ],
+};
+
+const rtd: BlockSpec = {
+  kind: 'rtd',
+  doc: 'A platinum resistance thermometer (Pt100, Pt1000, any R0) following the Callendar-Van Dusen equation of IEC 60751.',
+  fields: [
+    { name: 'r0', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 0 °C: 100 for a Pt100, 1000 for a Pt1000, with an optional tolerance.', example: 'r0 = 1000' },
+    { name: 'cvd_a', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '3.9083e-3', doc: 'Callendar-Van Dusen A, 1/°C (IEC 60751 value by default).', example: 'cvd_a = 3.9083e-3' },
+    { name: 'cvd_b', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-5.775e-7', doc: 'Callendar-Van Dusen B, 1/°C² (IEC 60751 value by default).', example: 'cvd_b = -5.775e-7' },
+    { name: 'cvd_c', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-4.183e-12', doc: 'Callendar-Van Dusen C, 1/°C⁴, used below 0 °C (IEC 60751 value by default).', example: 'cvd_c = -4.183e-12' },
+    { name: 'class', form: { form: 'choice', options: ['AA', 'A', 'B', 'C'] }, doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A' },
+    { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '2.5 mW/K', doc: 'Self-heating constant: the power that warms the element 1 K. The default is a typical thin-film element in still air (from memory); in a stirred liquid it is many times higher.', example: 'dissipation = 2.5 mW/K' },
+    { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-200 °C .. 850 °C', doc: 'Temperature range the element is rated for (default: the range of the IEC 60751 equation).', example: 'rated = -50 °C .. 500 °C' },
+  ],
+};
+
+export const BLOCKS: Record<BlockKind, BlockSpec> = { junction, thermistor, rtd, adc, channel };
 
 export function blockSpec(kind: string): BlockSpec | undefined {
   return Object.prototype.hasOwnProperty.call(BLOCKS, kind) ? BLOCKS[kind as BlockKind] : undefined;

@@ -34,6 +34,64 @@ export interface JunctionDef extends DefBase {
   thetaJA: number;
 }
 
+/** An NTC thermistor, always held in Steinhart-Hart form (the beta model is its C = 0 case). */
+export interface ThermistorDef extends DefBase {
+  kind: 'thermistor';
+  params: ThermistorParams;
+  /** How the curve was given: beta and R25, three coefficients, or three measured points. */
+  form: 'beta' | 'coefficients' | 'points';
+  /** R25 with its tolerance (beta form), else the curve's own R at 25 °C with r_tolerance. */
+  r25: Toleranced;
+  /** Beta with its tolerance and the two temperatures it is defined between (beta form only). */
+  beta: (Toleranced & { lowK: number; highK: number }) | null;
+  ratedLowK: number;
+  ratedHighK: number;
+  /** 1 / dissipation constant, K/W. */
+  thetaJA: number;
+}
+
+export interface ThermistorParams {
+  kind: 'ntc';
+  /** Steinhart-Hart coefficients: 1/T = A + B ln R + C (ln R)^3. */
+  A: number;
+  B: number;
+  C: number;
+}
+
+/** A platinum resistance thermometer (Callendar-Van Dusen). */
+export interface RtdDef extends DefBase {
+  kind: 'rtd';
+  params: RtdParams;
+  /** R0 with its tolerance. */
+  r0: Toleranced;
+  /** IEC 60751 tolerance class, or null when not stated. */
+  toleranceClass: 'AA' | 'A' | 'B' | 'C' | null;
+  ratedLowK: number;
+  ratedHighK: number;
+  /** 1 / self-heating (dissipation) constant, K/W. */
+  thetaJA: number;
+}
+
+export interface RtdParams {
+  kind: 'platinum';
+  /** Resistance at 0 °C, ohm. */
+  R0: number;
+  /** Callendar-Van Dusen coefficients (IEC 60751 by default). */
+  A: number;
+  B: number;
+  C: number;
+}
+
+export type SensorDef = JunctionDef | ThermistorDef | RtdDef;
+
+/** How the sensor's leads are wired (resistive sensors). */
+export interface WiringDef {
+  wires: 2 | 3 | 4;
+  /** Resistance of one lead, ohm. */
+  leadOhms: number;
+  span: Span;
+}
+
 export interface AdcDef extends DefBase {
   kind: 'adc';
   bits: number;
@@ -50,11 +108,13 @@ export interface AdcDef extends DefBase {
 
 export type BiasDef =
   | { kind: 'resistor'; ohms: Toleranced; supply: Toleranced; span: Span }
-  | { kind: 'current'; amps: Toleranced; span: Span };
+  | { kind: 'current'; amps: Toleranced; span: Span }
+  /** A fixed resistor and a resistive sensor across a supply; `above`: the resistor on the supply side. */
+  | { kind: 'divider'; ohms: Toleranced; supply: Toleranced; position: 'above' | 'below'; span: Span };
 
 export interface ChannelDef extends DefBase {
   kind: 'channel';
-  sensor: JunctionDef;
+  sensor: SensorDef;
   adc: AdcDef;
   bias: BiasDef;
   lowK: number;
@@ -80,6 +140,14 @@ export interface ChannelDef extends DefBase {
   codegen?: CodegenSpec;
   /** Extra bits by oversampling and decimation (absent = 0). */
   oversamplingBits?: number;
+  /** The ADC reference is the divider's supply: codes follow the divider ratio (absent: no). */
+  ratiometric?: boolean;
+  /** An amplifier before the ADC, V_adc = gain V + offset (absent: none). */
+  amplifier?: { gain: number; offsetVolts: number };
+  /** Lead wiring of a resistive sensor (absent: leads not modelled). */
+  wiring?: WiringDef;
+  /** Channels with the same group are alternatives for one measurement (`thermoscribe compare`). */
+  compareGroup?: string;
 }
 
 /** Fields `output`, `code_error`, `code_method`, `float_variant` of a channel. */
@@ -113,4 +181,4 @@ export interface MonteCarloSpec {
   distribution: 'uniform' | 'normal';
 }
 
-export type Definition = JunctionDef | AdcDef | ChannelDef;
+export type Definition = JunctionDef | ThermistorDef | RtdDef | AdcDef | ChannelDef;

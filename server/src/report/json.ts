@@ -5,6 +5,7 @@ import type { Analysis } from '../engine';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelResult } from '../analysis/types';
 import { LineIndex } from '../syntax/line-index';
+import { resistiveInputsJson } from '../compare/json-inputs';
 import { budgetSummaryJson } from '../budget/json';
 
 export const REPORT_VERSION = 1;
@@ -25,19 +26,20 @@ export function channelJson(r: ChannelResult) {
   const s = r.summary;
   return {
     name: c.name,
-    sensorKind: 'junction',
+    sensorKind: c.sensor.kind,
     inputs: {
       units: 'SI base units: K, V, A, ohm, eV, K/W',
       sensor: { name: c.sensor.name, ...c.sensor.params, ratedLowK: c.sensor.ratedLowK, ratedHighK: c.sensor.ratedHighK, thetaJA: c.sensor.thetaJA },
       bias: c.bias.kind === 'current'
         ? { kind: 'current', amps: c.bias.amps.value, ampsTolerance: c.bias.amps.tolerance }
-        : { kind: 'resistor', ohms: c.bias.ohms.value, ohmsTolerance: c.bias.ohms.tolerance, supplyVolts: c.bias.supply.value, supplyTolerance: c.bias.supply.tolerance },
+        : { kind: c.bias.kind, ...(c.bias.kind === 'divider' ? { position: c.bias.position } : {}), ohms: c.bias.ohms.value, ohmsTolerance: c.bias.ohms.tolerance, supplyVolts: c.bias.supply.value, supplyTolerance: c.bias.supply.tolerance },
       adc: { name: c.adc.name, bits: c.adc.bits, referenceVolts: c.adc.reference.value, referenceTolerance: c.adc.reference.tolerance, maxSourceOhms: c.adc.maxSourceOhms, sampleFarads: c.adc.sampleFarads },
       range: { lowK: c.lowK, highK: c.highK, stepK: c.stepK },
       resolutionKPerCount: c.resolutionKPerCount,
       accuracyK: c.accuracyK,
       thetaJA: c.thetaJA,
       conversion: c.conversion,
+      ...resistiveInputsJson(c),
       currentWindow: { lowA: c.windowLowA, highA: c.windowHighA },
     },
     sweep: r.sweep.map((p) => ({

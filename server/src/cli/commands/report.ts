@@ -45,9 +45,9 @@ export function channelReport(r: ChannelResult): string {
   const s = r.summary;
   const bias = c.bias.kind === 'current'
     ? `constant current ${formatSI(c.bias.amps.value, 'A')}`
-    : `resistor ${formatSI(c.bias.ohms.value, 'Ω')} from ${formatSI(c.bias.supply.value, 'V')}`;
+    : `${c.bias.kind === 'divider' ? `divider, fixed ${formatSI(c.bias.ohms.value, 'Ω')} ${c.bias.position} the sensor` : `resistor ${formatSI(c.bias.ohms.value, 'Ω')}`} from ${formatSI(c.bias.supply.value, 'V')}${c.ratiometric ? ' (ratiometric)' : ''}`;
   const head = [
-    `Channel ${c.name}: junction '${c.sensor.name}' (${c.sensor.params.kind}), ${bias}`,
+    `Channel ${c.name}: ${c.sensor.kind} '${c.sensor.name}' (${c.sensor.params.kind}), ${bias}`,
     `  ADC '${c.adc.name}': ${c.adc.bits} bits on ${formatSI(c.adc.reference.value, 'V')}, LSB ${formatSI(s.lsbVolts, 'V')}`,
     `  sensed ${formatSI(s.voltsMin, 'V')} .. ${formatSI(s.voltsMax, 'V')}, codes ${s.codeMin} .. ${s.codeMax}, current ${formatSI(s.ampsMin, 'A')} .. ${formatSI(s.ampsMax, 'A')}`,
     `  worst resolution ${trimNumber(s.worst.celsiusPerCount, 3)} °C/count (${trimNumber(s.worst.countsPerKelvin, 3)} counts/K) at ${trimNumber(s.worst.celsius, 4)} °C`,
