@@ -3,8 +3,15 @@ import { build } from 'esbuild';
 import { existsSync } from 'node:fs';
 
 const common = { bundle: true, platform: 'node', target: 'node20', format: 'cjs', sourcemap: false, logLevel: 'warning', legalComments: 'none' };
-await build({ ...common, entryPoints: ['server/src/cli/entry.ts'], outfile: 'dist/cli.js' });
+// vega-canvas's Node build loads the optional native `canvas` with a top-level await, which a CommonJS
+// bundle cannot hold; its browser build returns no canvas in Node and vega then estimates text widths.
+const noNodeCanvas = { 'vega-canvas': './node_modules/vega-canvas/build/vega-canvas.browser.js' };
+await build({ ...common, entryPoints: ['server/src/cli/entry.ts'], outfile: 'dist/cli.js', alias: noNodeCanvas });
 if (existsSync('client/src/extension.ts')) {
   await build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js', external: ['vscode'] });
+}
+if (existsSync('client/webview/plot-view.ts')) {
+  // The plot panel's script, run inside the webview (a browser): one file, no remote content.
+  await build({ ...common, platform: 'browser', target: 'es2020', format: 'iife', minify: true, entryPoints: ['client/webview/plot-view.ts'], outfile: 'dist/webview/plot-view.js' });
 }
 console.log('bundle: wrote dist/');

@@ -5,6 +5,7 @@ import * as vscode from 'vscode';
 // ignores package `exports`, and a file path resolves the same under every setting and in esbuild.
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from '../../node_modules/vscode-languageclient/lib/node/main';
 import { registerInsertConversion } from './insert-conversion';
+import { registerPlotPanel } from './plot-panel';
 
 const LANGUAGE_ID = 'tsense';
 // Client id: vscode-languageclient reads the `thermoscribe.trace.server` setting from it.
@@ -22,6 +23,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     vscode.commands.registerCommand('thermoscribe.showServerLog', () => log?.show(true)),
   );
   registerInsertConversion(context, () => client);
+  registerPlotPanel(context, () => client);
 
   await start(context);
 }

@@ -1,8 +1,9 @@
 // thermoscribe: the command-line face of the engine (check, report, gen, serve).
 import { runCheck, CHECK_USAGE } from './commands/check';
 import { runReport, REPORT_USAGE } from './commands/report';
-import { runGen, GEN_USAGE } from './commands/gen';
 import { runBudget, BUDGET_USAGE } from './commands/budget';
+import { runPlot, PLOT_USAGE } from './commands/plot';
+import { runGen, GEN_USAGE } from './commands/gen';
 import { EXIT, type CliIO } from './io';
 import { VERSION } from './version';
 import { startServer } from '../lsp/start';
@@ -12,10 +13,12 @@ const USAGE = `thermoscribe ${VERSION}: design checks for ADC temperature channe
 usage:
   ${CHECK_USAGE}
   ${REPORT_USAGE}
-  ${GEN_USAGE}
-                                    write the channels' C conversion code and header
   ${BUDGET_USAGE}
                                     error budget: worst case, Monte Carlo, calibration
+  ${PLOT_USAGE}
+                                    one channel's transfer curve and error bands as SVG
+  ${GEN_USAGE}
+                                    write the channels' C conversion code and header
   thermoscribe serve --stdio        start the language server on stdin/stdout
   thermoscribe --version
 `;
@@ -30,6 +33,12 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
     case 'budget':
       // Asynchronous (long Monte Carlo runs yield, report progress, stop on Ctrl+C): it sets the exit code itself.
       void runBudget(rest, io).then((code) => {
+        process.exitCode = code;
+      });
+      return 'serving';
+    case 'plot':
+      // Asynchronous like budget (Monte Carlo, then the drawing): it sets the exit code itself.
+      void runPlot(rest, io).then((code) => {
         process.exitCode = code;
       });
       return 'serving';

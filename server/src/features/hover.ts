@@ -13,6 +13,7 @@ import { operatingPoint } from '../physics/junction';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from './figures';
+import { budgetHoverSection } from './budget-hover';
 
 export interface HoverResult {
   markdown: string;
@@ -123,6 +124,7 @@ export function channelHover(r: ChannelResult): string {
     `Sensed voltage: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)}, a span of ${f.volts(spanV)} = ${f.percent(spanV / vref)} of the ${f.volts(vref)} reference (peak at ${f.percent(s.voltsMax / vref)}); codes ${s.codeMin} .. ${s.codeMax}`,
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)} (θJA ${f.trimNumber(c.thetaJA, 4)} K/W)`,
     `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
+    ...(r.budget ? [budgetHoverSection(r.budget)] : []),
     SHORT_CAUTION,
   ].join('\n\n');
 }

@@ -24,6 +24,8 @@ import { onFormatting } from './handlers/formatting';
 import { onDefinition, onPrepareRename, onReferences, onRename } from './handlers/navigation';
 import { GENERATE_KIND, onCodeActions, onResolveCodeAction } from './handlers/code-actions';
 import { CONVERSION_CHANNELS, CONVERSION_CODE, onConversionChannels, onConversionCode, type ConversionChannelsParams, type ConversionCodeParams } from './handlers/conversion-code';
+import { onCodeLens } from './handlers/code-lens';
+import { PLOT_DATA, onPlotData, type PlotDataParams, type PlotDataResult } from './handlers/plot-data';
 import { VERSION } from '../cli/version';
 
 export function createServer(connection: Connection): ServerContext {
@@ -62,6 +64,7 @@ export function createServer(connection: Connection): ServerContext {
         referencesProvider: true,
         renameProvider: { prepareProvider: true },
         codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix, GENERATE_KIND], resolveProvider: true },
+        codeLensProvider: { resolveProvider: false },
       },
       serverInfo: { name: 'thermoscribe', version: VERSION },
     };
@@ -119,6 +122,8 @@ export function createServer(connection: Connection): ServerContext {
   connection.onCodeActionResolve((p) => guard(connection, 'codeAction/resolve', p, (q: typeof p) => onResolveCodeAction(ctx, q))(p));
   connection.onRequest(CONVERSION_CHANNELS, guard(connection, CONVERSION_CHANNELS, [], (p: ConversionChannelsParams) => onConversionChannels(ctx, p)));
   connection.onRequest(CONVERSION_CODE, guard(connection, CONVERSION_CODE, null, (p: ConversionCodeParams) => onConversionCode(ctx, p)));
+  connection.onCodeLens(guard(connection, 'codeLens', [], (p) => onCodeLens(ctx, p)));
+  connection.onRequest(PLOT_DATA, guard<PlotDataParams, PlotDataResult | null>(connection, PLOT_DATA, null, (p) => onPlotData(ctx, p)));
 
   documents.docs.listen(connection);
   return ctx;

@@ -1,0 +1,145 @@
+// "Thermoscribe: Show Plot" and the channel code lens: a webview panel beside the editor with the
+// channel's transfer curve and error bands. The server sends the numbers (thermoscribe/plotData);
+// the webview script (client/webview/plot-view.ts, bundled to dist/webview/plot-view.js) draws them
+// with the shared chart spec in the editor's colours. The panel follows edits of its spec (debounced).
+import * as vscode from 'vscode';
+import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
+
+const COMMAND = 'thermoscribe.showPlot';
+const REQUEST = 'thermoscribe/plotData';
+const LANGUAGE_ID = 'tsense';
+/** Extra wait after the server's own debounce, so a burst of typing asks once. */
+const DEBOUNCE_MS = 400;
+
+type PlotAnswer = { ok: true; data: unknown } | { ok: false; message: string; channels: string[] };
+
+const panels = new Map<string, PlotPanel>();
+
+export function registerPlotPanel(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined): void {
+  context.subscriptions.push(
+    vscode.commands.registerCommand(COMMAND, (uri?: unknown, channel?: unknown) => showPlot(context, getClient, uri, channel)),
+    vscode.workspace.onDidChangeTextDocument((e) => {
+      for (const p of panels.values()) if (p.uri === e.document.uri.toString()) p.schedule();
+    }),
+  );
+}
+
+async function showPlot(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined, uriArg?: unknown, channelArg?: unknown): Promise<void> {
+  let uri = typeof uriArg === 'string' ? uriArg : uriArg instanceof vscode.Uri ? uriArg.toString() : undefined;
+  if (!uri) {
+    const editor = vscode.window.activeTextEditor;
+    if (!editor || editor.document.languageId !== LANGUAGE_ID) {
+      void vscode.window.showWarningMessage('Thermoscribe: open a .tsense spec to plot one of its channels.');
+      return;
+    }
+    uri = editor.document.uri.toString();
+  }
+  const client = getClient();
+  if (!client?.isRunning()) {
+    void vscode.window.showWarningMessage('Thermoscribe: the language server is not running (see "Thermoscribe: Show Language Server Log").');
+    return;
+  }
+  let channel = typeof channelArg === 'string' ? channelArg : undefined;
+  if (!channel) {
+    // No channel given (command palette): ask the server which channels the spec has.
+    let answer: PlotAnswer | null;
+    try {
+      answer = await client.sendRequest<PlotAnswer | null>(REQUEST, { uri });
+    } catch (err) {
+      void vscode.window.showErrorMessage(`Thermoscribe: ${err instanceof Error ? err.message : String(err)}`);
+      return;
+    }
+    const names = answer && !answer.ok ? answer.channels : [];
+    if (names.length === 0) {
+      void vscode.window.showWarningMessage('Thermoscribe: this spec has no channel to plot.');
+      return;
+    }
+    channel = names.length === 1 ? names[0] : await vscode.window.showQuickPick(names, { title: 'Plot which channel?', placeHolder: 'channel name' });
+    if (!channel) return;
+  }
+  const key = `${uri}#${channel}`;
+  const existing = panels.get(key);
+  if (existing) {
+    existing.reveal();
+    return;
+  }
+  panels.set(key, new PlotPanel(context, getClient, uri, channel, () => panels.delete(key)));
+}
+
+class PlotPanel {
+  private readonly panel: vscode.WebviewPanel;
+  private timer: ReturnType<typeof setTimeout> | undefined;
+  private asked = 0;
+
+  constructor(context: vscode.ExtensionContext, private readonly getClient: () => LanguageClient | undefined, readonly uri: string, private readonly channel: string, onDispose: () => void) {
+    const scripts = vscode.Uri.joinPath(context.extensionUri, 'dist', 'webview');
+    this.panel = vscode.window.createWebviewPanel('thermoscribe.plot', `Plots: ${channel}`, { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, {
+      enableScripts: true,
+      localResourceRoots: [scripts],
+    });
+    this.panel.webview.html = html(this.panel.webview, vscode.Uri.joinPath(scripts, 'plot-view.js'), channel);
+    this.panel.webview.onDidReceiveMessage((m: { type?: string }) => {
+      if (m?.type === 'ready') void this.refresh();
+    });
+    this.panel.onDidDispose(() => {
+      if (this.timer) clearTimeout(this.timer);
+      onDispose();
+    });
+  }
+
+  reveal(): void {
+    this.panel.reveal(undefined, true);
+    void this.refresh();
+  }
+
+  schedule(): void {
+    if (this.timer) clearTimeout(this.timer);
+    const serverDebounce = vscode.workspace.getConfiguration('thermoscribe').get<number>('debounceMs', 200);
+    this.timer = setTimeout(() => void this.refresh(), serverDebounce + DEBOUNCE_MS);
+  }
+
+  private async refresh(): Promise<void> {
+    const n = ++this.asked;
+    const client = this.getClient();
+    let message: unknown;
+    if (!client?.isRunning()) message = { type: 'problem', message: 'The language server is not running.', channels: [] };
+    else {
+      try {
+        const answer = await client.sendRequest<PlotAnswer | null>(REQUEST, { uri: this.uri, channel: this.channel });
+        if (!answer) message = { type: 'problem', message: 'The server could not compute the plots (see the server log).', channels: [] };
+        else message = answer.ok ? { type: 'data', data: answer.data } : { type: 'problem', message: answer.message, channels: answer.channels };
+      } catch (err) {
+        message = { type: 'problem', message: err instanceof Error ? err.message : String(err), channels: [] };
+      }
+    }
+    // A slow answer to an older request must not overwrite a newer one.
+    if (n === this.asked) void this.panel.webview.postMessage(message);
+  }
+}
+
+function html(webview: vscode.Webview, script: vscode.Uri, channel: string): string {
+  const nonce = Array.from({ length: 32 }, () => 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789'.charAt(Math.floor(Math.random() * 62))).join('');
+  // Nothing remote: the script comes from the extension, styles are inline with a nonce, images are data: URIs.
+  const csp = `default-src 'none'; script-src 'nonce-${nonce}'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:; font-src ${webview.cspSource};`;
+  const title = channel.replace(/[<>&"]/g, '');
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="UTF-8">
+<meta http-equiv="Content-Security-Policy" content="${csp}">
+<meta name="viewport" content="width=device-width, initial-scale=1.0">
+<title>Plots: ${title}</title>
+<style nonce="${nonce}">
+  body { color: var(--vscode-editor-foreground); background: var(--vscode-editor-background); font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); padding: 8px 16px; }
+  #status { color: var(--vscode-descriptionForeground); margin: 4px 0 8px; }
+  #status.problem { color: var(--vscode-errorForeground); }
+  #chart svg { max-width: 100%; height: auto; }
+</style>
+</head>
+<body>
+<div id="status">Computing the plots of ${title}…</div>
+<div id="chart" data-state="waiting"></div>
+<script nonce="${nonce}" src="${webview.asWebviewUri(script).toString()}"></script>
+</body>
+</html>`;
+}

@@ -1,0 +1,97 @@
+// The numbers behind the plots of one channel, as plain JSON: the transfer curve (sensed voltage and
+// ADC code against temperature, straight from the sweep) and the error bands per calibration mode
+// (straight from the budget). Shared by the CLI (`plot`) and the language server (`thermoscribe/plotData`).
+// No drawing here: spec.ts turns this into chart specs.
+import type { ChannelResult } from '../analysis/types';
+import type { BudgetResult, CalMode } from '../budget/types';
+import { describeSetting } from '../budget/describe';
+import { ZERO_CELSIUS_K } from '../physics/constants';
+
+export interface TransferSeries {
+  celsius: number[];
+  /** Voltage at the ADC input, V (sweep point `volts`). */
+  volts: number[];
+  /** Ideal ADC code (sweep point `code`). */
+  code: number[];
+  bits: number;
+  referenceVolts: number;
+}
+
+export interface ModeBand {
+  mode: CalMode;
+  /** Words for the mode, e.g. "two-point calibration at 0 °C and 40 °C". */
+  label: string;
+  /** True for the calibration the spec states. */
+  stated: boolean;
+  /** Calibration temperatures, °C. */
+  calibrationCelsius: number[];
+  worstLow: number[];
+  worstHigh: number[];
+  /** Monte Carlo percentiles per temperature, K; null when Monte Carlo did not run. */
+  mc: { p1: number[]; p5: number[]; p50: number[]; p95: number[]; p99: number[] } | null;
+  worstAbsK: number;
+  mcP99AbsK: number | null;
+}
+
+export interface ErrorSeries {
+  /** Temperatures of the budget grid, °C. */
+  celsius: number[];
+  /** Accuracy target, K (drawn as ± lines); null when the spec states none. */
+  targetK: number | null;
+  modes: ModeBand[];
+  /** Monte Carlo runs behind the percentiles (0 when none). */
+  runs: number;
+  seed: number | null;
+}
+
+export interface PlotData {
+  channel: string;
+  transfer: TransferSeries;
+  /** Null when the budget could not be computed (the diagnostics say why). */
+  error: ErrorSeries | null;
+  notes: string[];
+}
+
+/** Plot data from an analysed channel and its budget (pass `result.budget` or a budget run with other options). */
+export function plotData(result: ChannelResult, budget: BudgetResult | null | undefined): PlotData {
+  const c = result.channel;
+  const notes: string[] = [];
+  const pts = result.sweep.filter((p) => Number.isFinite(p.celsius) && Number.isFinite(p.volts) && Number.isFinite(p.code));
+  if (pts.length < result.sweep.length) notes.push(`${result.sweep.length - pts.length} sweep points without a finite value are left out.`);
+  const transfer: TransferSeries = {
+    celsius: pts.map((p) => p.celsius),
+    volts: pts.map((p) => p.volts),
+    code: pts.map((p) => p.code),
+    bits: c.adc.bits,
+    referenceVolts: c.adc.reference.value,
+  };
+  return { channel: c.name, transfer, error: budget ? errorSeries(budget, notes) : null, notes };
+}
+
+function errorSeries(b: BudgetResult, notes: string[]): ErrorSeries {
+  // Keep only temperatures where every series is finite, so that no chart gets a NaN.
+  const keep: number[] = [];
+  for (let i = 0; i < b.celsius.length; i++) {
+    const values = [b.celsius[i]!, ...b.modes.flatMap((m) => [m.worstLow[i]!, m.worstHigh[i]!, ...(m.mc ? [m.mc.p1[i]!, m.mc.p5[i]!, m.mc.p50[i]!, m.mc.p95[i]!, m.mc.p99[i]!] : [])])];
+    if (values.every(Number.isFinite)) keep.push(i);
+  }
+  if (keep.length < b.celsius.length) notes.push(`${b.celsius.length - keep.length} budget temperatures without a finite error are left out.`);
+  const pick = (a: number[]) => keep.map((i) => a[i]!);
+  return {
+    celsius: pick(b.celsius),
+    targetK: b.accuracyK !== null && Number.isFinite(b.accuracyK) ? b.accuracyK : null,
+    modes: b.modes.map((m) => ({
+      mode: m.setting.mode,
+      label: describeSetting(m.setting),
+      stated: m === b.stated,
+      calibrationCelsius: m.setting.kelvins.map((k) => k - ZERO_CELSIUS_K),
+      worstLow: pick(m.worstLow),
+      worstHigh: pick(m.worstHigh),
+      mc: m.mc ? { p1: pick(m.mc.p1), p5: pick(m.mc.p5), p50: pick(m.mc.p50), p95: pick(m.mc.p95), p99: pick(m.mc.p99) } : null,
+      worstAbsK: m.worstAbsK,
+      mcP99AbsK: m.mcP99AbsK,
+    })),
+    runs: b.monteCarlo?.runs ?? 0,
+    seed: b.monteCarlo?.seed ?? null,
+  };
+}
