@@ -8,7 +8,7 @@ const common = { bundle: true, platform: 'node', target: 'node20', format: 'cjs'
 const noNodeCanvas = { 'vega-canvas': './node_modules/vega-canvas/build/vega-canvas.browser.js' };
 await build({ ...common, entryPoints: ['server/src/cli/entry.ts'], outfile: 'dist/cli.js', alias: noNodeCanvas });
 if (existsSync('client/src/extension.ts')) {
-  await build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js', external: ['vscode'] });
+  await build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js', external: ['vscode'], minify: true });
 }
 if (existsSync('client/webview/plot-view.ts')) {
   // The plot panel's script, run inside the webview (a browser): one file, no remote content.

@@ -14,6 +14,7 @@ import { buildSuite } from './build-suite';
 import { missingPieces, OUTPUT_DIR, ROOT } from './offline/paths';
 import { freePort, installExtension, makeSandbox, serve, stopGroup, waitUntilServing, type Served } from './offline/code-server';
 import { launch, runSuiteThroughPayload, walkAsUser, type Outcome } from './offline/browser';
+import { plotPanelStep } from './plot-screenshot';
 import { checkGrammar } from './offline/grammar';
 
 const SUITE_TIMEOUT_MS = 8 * 60_000;
@@ -89,6 +90,11 @@ async function main(): Promise<number> {
       const t2 = Date.now();
       for (const o of await walkAsUser(context, served.url, workspace, OUTPUT_DIR)) results.push({ ...o, name: `page: ${o.name}` });
       console.log(`E2E: page walk done in ${seconds(t2)}`);
+
+      // (3) The plot panel, opened from the command palette, with a screenshot.
+      const t3 = Date.now();
+      for (const o of await plotPanelStep(context, served.url, workspace, OUTPUT_DIR)) results.push(o.name.startsWith('page:') ? o : { ...o, name: `page: ${o.name}` });
+      console.log(`E2E: plot panel done in ${seconds(t3)}`);
     } finally {
       await context.close().catch(() => undefined);
     }
