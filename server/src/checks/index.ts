@@ -12,6 +12,8 @@ import { checkTwoCurrent } from './two-current';
 import { checkOversampling } from './oversampling';
 import { checkAccuracy } from './accuracy';
 import { checkCalibrationFit } from './calibration-fit';
+import { checkDividerOptimum } from './divider-optimum';
+import { checkLeadResistance } from './lead-resistance';
 
 export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkSupply,
@@ -26,4 +28,6 @@ export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkOversampling,
   checkAccuracy,
   checkCalibrationFit,
+  checkDividerOptimum,
+  checkLeadResistance,
 ];

@@ -4,6 +4,7 @@ import { runReport, REPORT_USAGE } from './commands/report';
 import { runBudget, BUDGET_USAGE } from './commands/budget';
 import { runPlot, PLOT_USAGE } from './commands/plot';
 import { runGen, GEN_USAGE } from './commands/gen';
+import { runCompare, COMPARE_USAGE } from './commands/compare';
 import { EXIT, type CliIO } from './io';
 import { VERSION } from './version';
 import { startServer } from '../lsp/start';
@@ -19,6 +20,8 @@ usage:
                                     one channel's transfer curve and error bands as SVG
   ${GEN_USAGE}
                                     write the channels' C conversion code and header
+  ${COMPARE_USAGE}
+                                    alternative sensor designs of one measurement side by side
   thermoscribe serve --stdio        start the language server on stdin/stdout
   thermoscribe --version
 `;
@@ -30,6 +33,8 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
       return runCheck(rest, io);
     case 'report':
       return runReport(rest, io);
+    case 'compare':
+      return runCompare(rest, io);
     case 'budget':
       // Asynchronous (long Monte Carlo runs yield, report progress, stop on Ctrl+C): it sets the exit code itself.
       void runBudget(rest, io).then((code) => {

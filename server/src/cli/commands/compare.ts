@@ -1,0 +1,85 @@
+// thermoscribe compare FILE [--format text|json] [--group NAME] [--root DIR]: alternative channel
+// designs of one measurement side by side (channels sharing a `compare_group`; all channels when
+// the file names none).
+import { parseArgs } from '../args';
+import { DiskHost, EXIT, type CliIO } from '../io';
+import { formatDiagnostic, table } from '../text';
+import { loadAnalyses } from './check';
+import { compareGroups, type CompareGroup } from '../../compare/compare';
+import { trimNumber } from '../../model/read-value';
+import { CAUTION } from '../../report/caution';
+import { VERSION } from '../version';
+
+export const COMPARE_USAGE = 'thermoscribe compare FILE [--format text|json] [--group NAME] [--root DIR]';
+
+const EXPLAIN = [
+  'Error: worst case over the range; the error budget (circuit, reference, ADC) plus the element\'s own',
+  'spread (thermistor R25/beta, RTD R0/IEC 60751 class), added linearly (conservative). "after cal" is',
+  'after a one-point (offset) calibration. Parts and code bytes are estimates (code: 8-bit AVR, -Os).',
+];
+
+export function runCompare(argv: string[], io: CliIO): number {
+  const args = parseArgs(argv, ['format', 'group', 'root']);
+  if (typeof args === 'string' || args.positional.length !== 1) {
+    io.err(`thermoscribe compare: ${typeof args === 'string' ? args : 'name exactly one .tsense file'}\nusage: ${COMPARE_USAGE}\n`);
+    return EXIT.unusable;
+  }
+  const format = (args.options.get('format') ?? 'text') as string;
+  if (format !== 'text' && format !== 'json') {
+    io.err(`thermoscribe compare: --format takes text or json (got '${format}')\nusage: ${COMPARE_USAGE}\n`);
+    return EXIT.unusable;
+  }
+  const host = new DiskHost();
+  const root = args.options.get('root');
+  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
+  if (typeof analyses === 'string') {
+    io.err(`thermoscribe: ${analyses}\n`);
+    return EXIT.unusable;
+  }
+  const a = analyses[0]!;
+  let groups = compareGroups(a);
+  const only = args.options.get('group');
+  if (typeof only === 'string') {
+    groups = groups.filter((g) => g.name === only);
+    if (groups.length === 0) {
+      io.err(`thermoscribe compare: no group named '${only}'; groups: ${compareGroups(a).map((g) => g.name).join(', ') || '(none)'}\n`);
+      return EXIT.unusable;
+    }
+  }
+  if (a.channels.length === 0) {
+    io.err('thermoscribe compare: no channel could be analysed; run `thermoscribe check` for the reasons\n');
+    return EXIT.errors;
+  }
+  const errors = a.diagnostics.filter((d) => d.severity === 'error');
+  if (format === 'json') {
+    io.out(JSON.stringify({ version: 1, tool: { name: 'thermoscribe', version: VERSION }, path: a.path, units: 'K for errors and self-heating, °C per count for resolution, bytes for code', groups, caution: CAUTION }, null, 2) + '\n');
+  } else {
+    for (const g of groups) io.out(groupText(g) + '\n\n');
+    io.out(EXPLAIN.join('\n') + '\n');
+    if (errors.length) {
+      io.out('\nErrors in the spec (channels with errors may be missing above):\n');
+      for (const d of errors) io.out('  ' + formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
+    }
+    io.out('\n' + CAUTION + '\n');
+  }
+  return errors.length ? EXIT.errors : EXIT.clean;
+}
+
+const k = (v: number | null) => (v === null ? 'n/a' : `±${trimNumber(v, 3)} K`);
+
+export function groupText(g: CompareGroup): string {
+  const rows = g.rows.map((r) => [
+    r.channel,
+    r.sensor,
+    `${trimNumber(r.worstCPerCount, 3)} °C @ ${trimNumber(r.worstAtC, 4)} °C`,
+    k(r.errorBeforeK),
+    k(r.errorAfterK),
+    r.classToleranceK === null ? '-' : k(r.classToleranceK),
+    `${trimNumber(r.selfHeatingMaxK * 1000, 3)} mK`,
+    String(r.parts),
+    r.codeBytes === null ? 'n/a' : `${r.codeBytes} B`,
+  ]);
+  const notes = g.rows.flatMap((r) => r.notes.map((n) => `  ${r.channel}: ${n}`));
+  return [`Measurement '${g.name}': ${g.rows.length} candidate${g.rows.length === 1 ? '' : 's'}`, '',
+    table(['channel', 'sensor', 'worst resolution', 'error', 'after cal', 'class', 'self-heat', 'parts', 'code'], rows), '', 'Notes:', ...notes].join('\n');
+}

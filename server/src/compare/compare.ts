@@ -1,0 +1,119 @@
+// Side-by-side comparison of alternative channel designs for one measurement. Channels with the same
+// `compare_group` are compared; a file that names no group compares all its channels.
+// Figures: worst resolution, error before and after a one-point calibration (error budget for the
+// circuit and ADC + the element's own spread, added linearly: conservative), self-heating, an
+// estimated parts count and the generated conversion code's size.
+import type { Analysis } from '../engine';
+import type { ChannelResult } from '../analysis/types';
+import type { ModeBudget } from '../budget/types';
+import { sensorSpread } from './sensor-spread';
+import { conversionInput, generatableResults } from '../codegen/channel-input';
+import { generateC } from '../codegen';
+import { classToleranceC } from '../physics/callendar-van-dusen';
+
+export interface CompareRow {
+  channel: string;
+  sensor: string;
+  /** Worst °C per ADC count over the range. */
+  worstCPerCount: number;
+  worstAtC: number;
+  /** Worst-case error with no calibration, K (null when not computable). */
+  errorBeforeK: number | null;
+  /** Worst-case error after a one-point calibration at the range centre, K. */
+  errorAfterK: number | null;
+  /** IEC 60751 class tolerance at the worst end of the range, K (RTDs with a class). */
+  classToleranceK: number | null;
+  selfHeatingMaxK: number;
+  /** Estimated parts on the board for the channel (sensor, bias parts, amplifier). */
+  parts: number;
+  /** Generated conversion code, estimated flash bytes (8-bit AVR, -Os) and method. */
+  codeBytes: number | null;
+  codeMethod: string | null;
+  notes: string[];
+}
+
+export interface CompareGroup {
+  name: string;
+  rows: CompareRow[];
+}
+
+/** Groups of the analysis: by compare_group, or one group of every channel when none is named. */
+export function compareGroups(a: Analysis): CompareGroup[] {
+  const named = a.channels.filter((r) => r.channel.compareGroup !== undefined);
+  const groups = new Map<string, ChannelResult[]>();
+  if (named.length === 0) groups.set('(all channels)', [...a.channels]);
+  for (const r of named) {
+    const g = r.channel.compareGroup!;
+    groups.set(g, [...(groups.get(g) ?? []), r]);
+  }
+  const codeOk = new Set(generatableResults(a.channels, a.diagnostics));
+  return [...groups].map(([name, rs]) => ({ name, rows: rs.map((r) => compareRow(r, codeOk.has(r), a.path)) }));
+}
+
+function modeOf(r: ChannelResult, mode: 'none' | 'one-point'): ModeBudget | null {
+  let b: ChannelResult['budget'];
+  try {
+    b = r.worstCaseBudget ?? r.budget;
+  } catch {
+    return null;
+  }
+  return b?.modes.find((m) => m.setting.mode === mode) ?? null;
+}
+
+export function compareRow(r: ChannelResult, generatable: boolean, specPath: string): CompareRow {
+  const c = r.channel;
+  const s = r.summary;
+  const notes: string[] = [];
+  const spread = sensorSpread(c);
+  const none = modeOf(r, 'none');
+  const one = modeOf(r, 'one-point');
+  if (!none || !one) notes.push('error budget not available: sensor spread only');
+  if (spread) notes.push(`sensor spread: ${spread.basis}`);
+  else notes.push('junction: spreads are in the error budget');
+  const sum = (m: ModeBudget | null, k: number | undefined) => (m || k !== undefined ? (m?.worstAbsK ?? 0) + (k ?? 0) : null);
+  const before = sum(none, spread?.beforeK);
+  const after = sum(one, spread?.afterOnePointK);
+  let classTol: number | null = null;
+  if (c.sensor.kind === 'rtd' && c.sensor.toleranceClass) {
+    const cls = c.sensor.toleranceClass;
+    classTol = Math.max(classToleranceC(cls, c.lowK - 273.15), classToleranceC(cls, c.highK - 273.15));
+  }
+  let codeBytes: number | null = null;
+  let codeMethod: string | null = null;
+  if (generatable) {
+    try {
+      const g = generateC([conversionInput(r, specPath)], { fileStem: 'compare' }).channels[0]!;
+      codeBytes = g.bytesEstimate;
+      codeMethod = `${g.method}, ${g.entries} ${g.method === 'table' ? 'entries' : 'segments'}`;
+    } catch (err) {
+      notes.push(`no code: ${err instanceof Error ? err.message : String(err)}`);
+    }
+  } else notes.push('no code: the channel has errors or a converter over 16 bits');
+  return {
+    channel: c.name,
+    sensor: `${c.sensor.kind} ${c.sensor.name}`,
+    worstCPerCount: s.worst.celsiusPerCount,
+    worstAtC: s.worst.celsius,
+    errorBeforeK: before,
+    errorAfterK: after,
+    classToleranceK: classTol,
+    selfHeatingMaxK: s.selfHeatingMaxK,
+    parts: partsCount(r),
+    codeBytes,
+    codeMethod,
+    notes,
+  };
+}
+
+/**
+ * Parts on the board, estimated: the sensor; a resistor (divider or junction bias) or a current
+ * source (counted as one part); a second bias part for the two-current method; an amplifier as an
+ * op-amp and two gain resistors, plus a reference for a non-zero offset.
+ */
+export function partsCount(r: ChannelResult): number {
+  const c = r.channel;
+  let n = 2;
+  if (c.secondBias) n += 1;
+  if (c.amplifier) n += 3 + (c.amplifier.offsetVolts !== 0 ? 1 : 0);
+  return n;
+}
