@@ -1,6 +1,7 @@
 // Generates a large invented spec for benchmarks: `channels` channels, each with its own junction
 // and ADC definitions (about 30 lines per channel, so 200 channels give about 6,000 lines).
-export function generateSpec(channels: number): string {
+// `variant` changes every channel's BF, so that no cache built for one variant serves another.
+export function generateSpec(channels: number, variant = 0): string {
   const out: string[] = ['# Invented benchmark spec: many channels of a made-up test rig.', ''];
   for (let i = 0; i < channels; i++) {
     const is = (5 + (i % 10)).toString();
@@ -10,7 +11,7 @@ export function generateSpec(channels: number): string {
       `  kind     = ${i % 3 === 2 ? 'diode' : 'npn'}`,
       `  IS       = ${is} fA ± 30 %`,
       `  N        = ${i % 3 === 2 ? '1.05' : '1.0'}`,
-      `  BF       = ${150 + (i % 100)}`,
+      `  BF       = ${150 + ((i + variant) % 100)}`,
       `  EG       = 1.11 eV`,
       `  XTI      = 3`,
       `  TNOM     = 27 °C`,

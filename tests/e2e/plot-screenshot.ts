@@ -30,6 +30,7 @@ export async function plotPanelStep(context: BrowserContext, baseUrl: string, wo
     // The quick pick of channels.
     await page.locator('.quick-input-list .monaco-list-row', { hasText: 'bench_air' }).first().waitFor({ timeout: LIMIT });
     await page.keyboard.type('bench_air');
+    await page.locator('.quick-input-list .monaco-list-row.focused', { hasText: 'bench_air' }).first().waitFor({ timeout: LIMIT });
     await page.keyboard.press('Enter');
     const frame = page.frameLocator('iframe.webview.ready').frameLocator('iframe#active-frame');
     await frame.locator('#chart[data-state="ready"] svg').waitFor({ timeout: LIMIT });
@@ -50,7 +51,9 @@ async function quickInput(page: Page, key: string, text: string): Promise<void> 
   const input = page.locator('.quick-input-widget input');
   await input.waitFor({ state: 'visible', timeout: LIMIT });
   await input.fill(key === 'F1' ? `>${text}` : text);
-  await page.locator('.quick-input-list .monaco-list-row', { hasText: text.replace(/^.*: /, '') }).first().waitFor({ timeout: LIMIT });
+  // Wait until the focused row is the one asked for: the list filters asynchronously, and Enter
+  // on a stale list (recently opened files) would open another file.
+  await page.locator('.quick-input-list .monaco-list-row.focused', { hasText: text.replace(/^.*: /, '') }).first().waitFor({ timeout: LIMIT });
   await page.keyboard.press('Enter');
 }
 

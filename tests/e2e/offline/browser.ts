@@ -127,6 +127,8 @@ async function quickOpen(page: Page, fileName: string): Promise<void> {
   const input = page.locator('.quick-input-widget input');
   await input.waitFor({ state: 'visible', timeout: LIMIT });
   await input.fill(fileName);
-  await page.locator('.quick-input-list .monaco-list-row', { hasText: fileName }).first().waitFor({ timeout: LIMIT });
+  // The list filters asynchronously: wait until the focused row is the file, or Enter on a stale
+  // list (recently opened files) opens another one.
+  await page.locator('.quick-input-list .monaco-list-row.focused', { hasText: fileName }).first().waitFor({ timeout: LIMIT });
   await page.keyboard.press('Enter');
 }
