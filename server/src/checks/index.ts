@@ -14,6 +14,7 @@ import { checkAccuracy } from './accuracy';
 import { checkCalibrationFit } from './calibration-fit';
 import { checkDividerOptimum } from './divider-optimum';
 import { checkLeadResistance } from './lead-resistance';
+import { checkBetaExtrapolated } from './beta-extrapolated';
 
 export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkSupply,
@@ -30,4 +31,5 @@ export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkCalibrationFit,
   checkDividerOptimum,
   checkLeadResistance,
+  checkBetaExtrapolated,
 ];
