@@ -6,8 +6,13 @@ import type { ChannelResult } from './types';
 
 const POSITIONAL = new Set(['span', 'nameSpan', 'fieldSpans', 'file', 'given', 'closeSpan']);
 
+const keys = new WeakMap<ChannelDef, string>();
+
+/** The channel's inputs as a string; computed once per ChannelDef object. */
 export function channelKey(c: ChannelDef): string {
-  return JSON.stringify(c, (k, v) => (POSITIONAL.has(k) ? undefined : v));
+  let k = keys.get(c);
+  if (k === undefined) keys.set(c, (k = JSON.stringify(c, (key, v) => (POSITIONAL.has(key) ? undefined : v))));
+  return k;
 }
 
 /** A bounded cache of sweeps by channel key; keep one per open document. */

@@ -20,23 +20,33 @@ const HEADER_LINE = /^[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/;
 
 /** Reuse of parsed pieces between successive versions of one document. */
 export class ParseCache {
-  private pieces = new Map<string, ParseResult>();
+  /** Per piece text: its parse at offset 0, and the copy last placed (at `at`). */
+  private pieces = new Map<string, { base: ParseResult; at: number; placed: ParseResult }>();
 
   parse(text: string): ParseResult {
-    const next = new Map<string, ParseResult>();
+    const next = new Map<string, { base: ParseResult; at: number; placed: ParseResult }>();
     const items: TopItem[] = [];
     const problems: SyntaxProblem[] = [];
     for (const { start, end } of pieces(text)) {
       const piece = text.slice(start, end);
-      let r = next.get(piece) ?? this.pieces.get(piece);
-      if (!r) r = parseWhole(piece);
-      next.set(piece, r);
-      items.push(...(shift(r.tree.items, start) as TopItem[]));
-      problems.push(...(shift(r.problems, start) as SyntaxProblem[]));
+      let entry = next.get(piece) ?? this.pieces.get(piece);
+      if (!entry) {
+        const base = parseWhole(piece);
+        entry = { base, at: 0, placed: base };
+      }
+      // A piece that did not move is reused as it is; one that moved is copied with new offsets.
+      if (entry.at !== start) entry = { base: entry.base, at: start, placed: shiftResult(entry.base, start) };
+      next.set(piece, entry);
+      items.push(...entry.placed.tree.items);
+      problems.push(...entry.placed.problems);
     }
     this.pieces = next;
     return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
   }
+}
+
+function shiftResult(r: ParseResult, by: number): ParseResult {
+  return { tree: { ...r.tree, items: shift(r.tree.items, by) as TopItem[] }, problems: shift(r.problems, by) as SyntaxProblem[] };
 }
 
 /** Offsets where block header lines start, as [start, end) pieces covering the text. */
@@ -59,11 +69,18 @@ function pieces(text: string): Span[] {
 
 /** A copy of a tree fragment with every span moved by `by` (spans are the only start/end keys). */
 function shift(node: unknown, by: number): unknown {
-  if (by === 0) return node;
-  if (Array.isArray(node)) return node.map((n) => shift(n, by));
+  if (Array.isArray(node)) {
+    const out = new Array<unknown>(node.length);
+    for (let i = 0; i < node.length; i++) out[i] = shift(node[i], by);
+    return out;
+  }
   if (node === null || typeof node !== 'object') return node;
+  const src = node as Record<string, unknown>;
   const out: Record<string, unknown> = {};
-  for (const [k, v] of Object.entries(node)) out[k] = (k === 'start' || k === 'end') && typeof v === 'number' ? v + by : shift(v, by);
+  for (const k in src) {
+    const v = src[k];
+    out[k] = (k === 'start' || k === 'end') && typeof v === 'number' ? v + by : typeof v === 'object' && v !== null ? shift(v, by) : v;
+  }
   return out;
 }
 
