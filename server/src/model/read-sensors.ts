@@ -124,7 +124,11 @@ export function readThermistor(r: BlockReader, base: Base): ThermistorDef | null
     const b = readBeta(r);
     const r25q = r.quantity('r25');
     const br = r.range('beta_range', [T25, 85 + ZERO_C]);
-    if (b && r25q && br) {
+    if (r25q && !(r25q.value >= 1 && r25q.value <= 1e8)) {
+      r.sink.report('out-of-domain', r.ref.file, r25q.span, `r25 must be from 1 Ω to 100 MΩ (found ${formatSI(r25q.value, 'Ω')})`);
+      r.ok = false;
+    }
+    if (b && r25q && br && r.ok) {
       coeffs = betaToSteinhartHart(r25q.value, b.value, T25);
       r25 = r25q;
       beta = { ...b, lowK: br.low, highK: br.high };
@@ -180,6 +184,10 @@ export function readRtd(r: BlockReader, base: Base): RtdDef | null {
   const cls = r.terms('class') ? (r.choice('class', 'B') as RtdClass) : null;
   const rated = r.range('rated', [CVD_LOW_C + ZERO_C, CVD_HIGH_C + ZERO_C]);
   const theta = readDissipation(r, 2.5e-3);
+  if (r0 && !(r0.value >= 1 && r0.value <= 1e6)) {
+    r.sink.report('out-of-domain', r.ref.file, r0.span, `r0 must be from 1 Ω to 1 MΩ (found ${formatSI(r0.value, 'Ω')}); a Pt100 has 100, a Pt1000 1000`);
+    r.ok = false;
+  }
   if (!r.ok || !r0 || !A || !B || !C || !rated || theta === null) return null;
   const k = { A: A.value, B: B.value, C: C.value };
   // The curve must rise over the rated range (dR/dt > 0) for the reading to have one temperature.
@@ -244,8 +252,8 @@ export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
   const ohms = readQuantityValue(rq, 'resistance', ctx);
   const volts = readQuantityValue(vq, 'voltage', ctx);
   if (ohms === null || volts === null) return (r.ok = false), null;
-  if (!(ohms > 0) || ohms > 1e9) {
-    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be above 0 Ω and at most 1 GΩ (found ${rq.number.text})`);
+  if (!(ohms >= 1e-3) || ohms > 1e9) {
+    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${rq.number.text})`);
     return (r.ok = false), null;
   }
   if (!(volts > 0) || volts > 1000) {
@@ -293,6 +301,20 @@ function readWiring(r: BlockReader): WiringDef | null | undefined {
   return { wires, leadOhms: lead, span };
 }
 
+/**
+ * The element's resistance over the channel range must stay within 1 mΩ .. 1 TΩ (beyond that the
+ * model and the arithmetic are meaningless); returns a message otherwise.
+ */
+export function elementRangeMessage(sensor: SensorDef, lowK: number, highK: number): string | null {
+  if (sensor.kind === 'junction') return null;
+  const ohmsAt = (k: number) => sensor.kind === 'thermistor' ? shResistanceAt(sensor.params, k) : cvdResistance(sensor.params.R0, sensor.params, k - ZERO_C);
+  const a = ohmsAt(lowK);
+  const b = ohmsAt(highK);
+  const ok = (v: number) => Number.isFinite(v) && v >= 1e-3 && v <= 1e12;
+  if (ok(a) && ok(b)) return null;
+  return `over the range '${sensor.name}' runs from ${formatSI(a, 'Ω')} to ${formatSI(b, 'Ω')}; the engine handles 1 mΩ to 1 TΩ: narrow the range or check the sensor's values`;
+}
+
 export interface ChannelExtras {
   ratiometric?: boolean;
   amplifier?: { gain: number; offsetVolts: number };
@@ -301,9 +323,14 @@ export interface ChannelExtras {
 }
 
 /** The resistive-sensor fields of a channel, checked against its sensor, bias and ADC. */
-export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias: BiasDef | null, adc: AdcDef | null): ChannelExtras {
+export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias: BiasDef | null, adc: AdcDef | null, range?: { low: number; high: number } | null): ChannelExtras {
   const out: ChannelExtras = {};
   const file = r.ref.file;
+  const elementMsg = sensor && range ? elementRangeMessage(sensor, range.low, range.high) : null;
+  if (elementMsg) {
+    r.sink.report('out-of-domain', file, r.fieldSpans['range'] ?? r.ref.node.name.span, elementMsg);
+    r.ok = false;
+  }
   const resistive = sensor !== null && sensor.kind !== 'junction';
   const junctionOnly = (field: string) => {
     r.sink.report('bad-value', file, r.fieldSpans[field]!, `${field} applies to thermistor and rtd channels; '${sensor!.name}' is a junction`);

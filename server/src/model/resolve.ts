@@ -414,7 +414,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
   // Resistive-sensor fields (read-sensors.ts).
-  const extras = readChannelExtras(r, sensor, bias, adc);
+  const extras = readChannelExtras(r, sensor, bias, adc, range);
   if (twin && sensor && sensor.kind !== 'junction') {
     sink.report('bad-value', ref.file, r.fieldSpans['bias'] ?? ref.node.name.span, `the two-current bias is for a junction; '${sensor.name}' is a ${sensor.kind}`);
     r.ok = false;
