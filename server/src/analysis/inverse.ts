@@ -58,5 +58,5 @@ export function resistiveKelvinAtVolts(c: ChannelDef, volts: number): number {
   if (s.kind === 'junction') return NaN;
   const ohms = chainOhmsAt(resistiveChain(c), volts);
   if (!(ohms > 0)) return NaN;
-  return s.kind === 'thermistor' ? shKelvinAt(s.params, ohms) : cvdCelsiusAt(s.params.R0, s.params, ohms) + 273.15;
+  return s.kind === 'thermistor' ? shKelvinAt(s.params, ohms / (s.params.scale ?? 1)) : cvdCelsiusAt(s.params.R0, s.params, ohms) + 273.15;
 }

@@ -77,7 +77,10 @@ function senseTwoCurrent(c: ChannelDef, second: BiasDef, kelvin: number): Sensed
 
 /** Resistance of a thermistor or RTD element at a temperature, ohm, and its slope dR/dT, ohm/K. */
 export function elementAt(s: ThermistorDef | RtdDef, kelvin: number): { ohms: number; slope: number } {
-  if (s.kind === 'thermistor') return { ohms: shResistanceAt(s.params, kelvin), slope: shResistanceSlope(s.params, kelvin) };
+  if (s.kind === 'thermistor') {
+    const k = s.params.scale ?? 1;
+    return { ohms: k * shResistanceAt(s.params, kelvin), slope: k * shResistanceSlope(s.params, kelvin) };
+  }
   const t = kelvin - 273.15;
   return { ohms: cvdResistance(s.params.R0, s.params, t), slope: cvdSlope(s.params.R0, s.params, t) };
 }

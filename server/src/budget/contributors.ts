@@ -3,6 +3,7 @@
 import type { BiasDef, ChannelDef } from '../model/types';
 import { trimNumber } from '../model/read-value';
 import type { Contributor } from './types';
+import { elementContributors, perturbElement } from '../compare/element-spread';
 
 const pct = (r: number) => `± ${trimNumber(r * 100, 3)} %`;
 
@@ -19,7 +20,7 @@ export function contributorsOf(c: ChannelDef, effectiveOversamplingBits: number)
     add('IS', `IS spread ${pct(j.isTolerance)}`, 'board', j.isTolerance, 'relative');
     add('N', `N spread ${pct(j.nTolerance ?? 0)}`, 'board', j.nTolerance ?? 0, 'relative');
     if (j.params.kind !== 'diode') add('BF', `BF spread ${pct(j.bfTolerance ?? 0)}`, 'board', j.bfTolerance ?? 0, 'relative');
-  }
+  } else for (const e of elementContributors(j)) add(e.id, e.label, 'board', e.amount, 'relative');
   const biasTol = (b: BiasDef) => (b.kind === 'current' ? b.amps.tolerance : b.ohms.tolerance);
   const biasWord = (b: BiasDef) => (b.kind === 'current' ? 'bias current' : 'bias resistor');
   add('bias', `${biasWord(c.bias)}${two ? ' 1' : ''} ${pct(biasTol(c.bias))}`, 'board', biasTol(c.bias), 'relative');
@@ -58,6 +59,7 @@ export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number
   let b2 = 1;
   let supply = 1;
   const adc: BoardAdc = { referenceScale: 1, gain: 1, offsetLsb: 0 };
+  const element = new Map<string, number>();
   for (let i = 0; i < board.length; i++) {
     const k = board[i]!;
     const d = u[i]! * k.amount;
@@ -71,12 +73,13 @@ export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number
       case 'reference': adc.referenceScale = 1 + d; break;
       case 'gain': adc.gain = 1 + d; break;
       case 'offset': adc.offsetLsb = d; break;
+      default: if (k.id.startsWith('element-')) element.set(k.id, d);
     }
   }
   const s = c.sensor;
   const channel: ChannelDef = {
     ...c,
-    sensor: s.kind === 'junction' ? { ...s, params: { ...s.params, IS: s.params.IS * IS, N: s.params.N * N, BF: s.params.BF * BF } } : s,
+    sensor: s.kind === 'junction' ? { ...s, params: { ...s.params, IS: s.params.IS * IS, N: s.params.N * N, BF: s.params.BF * BF } } : perturbElement(s, element),
     bias: scaleBias(c.bias, b1, supply),
     ...(c.secondBias ? { secondBias: scaleBias(c.secondBias, b2, supply) } : {}),
   };

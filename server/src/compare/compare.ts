@@ -1,8 +1,9 @@
 // Side-by-side comparison of alternative channel designs for one measurement. Channels with the same
 // `compare_group` are compared; a file that names no group compares all its channels.
-// Figures: worst resolution, error before and after a one-point calibration (error budget for the
-// circuit and ADC + the element's own spread, added linearly: conservative), self-heating, an
-// estimated parts count and the generated conversion code's size.
+// Figures: worst resolution, error before and after a one-point calibration (the error budget, whose
+// contributors include the element's own spread, budget/contributors.ts + element-spread.ts; the
+// element spread alone when the budget cannot be computed), self-heating, an estimated parts count
+// and the generated conversion code's size.
 import type { Analysis } from '../engine';
 import type { ChannelResult } from '../analysis/types';
 import type { ModeBudget } from '../budget/types';
@@ -67,12 +68,10 @@ export function compareRow(r: ChannelResult, generatable: boolean, specPath: str
   const spread = sensorSpread(c);
   const none = modeOf(r, 'none');
   const one = modeOf(r, 'one-point');
-  if (!none || !one) notes.push('error budget not available: sensor spread only');
-  if (spread) notes.push(`sensor spread: ${spread.basis}`);
-  else notes.push('junction: spreads are in the error budget');
-  const sum = (m: ModeBudget | null, k: number | undefined) => (m || k !== undefined ? (m?.worstAbsK ?? 0) + (k ?? 0) : null);
-  const before = sum(none, spread?.beforeK);
-  const after = sum(one, spread?.afterOnePointK);
+  if (!none || !one) notes.push(spread ? `error budget not available: sensor spread only (${spread.basis})` : 'error budget not available');
+  else if (spread) notes.push(`error budget, sensor spread included (${spread.basis})`);
+  const before = none ? none.worstAbsK : spread?.beforeK ?? null;
+  const after = one ? one.worstAbsK : spread?.afterOnePointK ?? null;
   let classTol: number | null = null;
   if (c.sensor.kind === 'rtd' && c.sensor.toleranceClass) {
     const cls = c.sensor.toleranceClass;

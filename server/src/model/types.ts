@@ -56,6 +56,8 @@ export interface ThermistorParams {
   A: number;
   B: number;
   C: number;
+  /** Resistance multiplier of a tolerance corner (absent: 1); the curve's own R is scaled by it. */
+  scale?: number;
 }
 
 /** A platinum resistance thermometer (Callendar-Van Dusen). */

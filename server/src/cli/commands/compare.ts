@@ -13,9 +13,9 @@ import { VERSION } from '../version';
 export const COMPARE_USAGE = 'thermoscribe compare FILE [--format text|json] [--group NAME] [--root DIR]';
 
 const EXPLAIN = [
-  'Error: worst case over the range; the error budget (circuit, reference, ADC) plus the element\'s own',
-  'spread (thermistor R25/beta, RTD R0/IEC 60751 class), added linearly (conservative). "after cal" is',
-  'after a one-point (offset) calibration. Parts and code bytes are estimates (code: 8-bit AVR, -Os).',
+  'Error: worst case over the range from the error budget (circuit, reference, ADC and the element\'s own',
+  'spread: thermistor R25/beta, RTD R0 and IEC 60751 class). "after cal" is after a one-point (offset)',
+  'calibration. Parts and code bytes are estimates (code: 8-bit AVR, -Os).',
 ];
 
 export function runCompare(argv: string[], io: CliIO): number {
