@@ -10,6 +10,7 @@ export function checkBiasWindow({ channel: c, result, sink, reported }: CheckCon
   // The window is a junction rule; resistive sensors are judged on self-heating instead.
   if (reported.has('supply-too-low') || c.sensor.kind !== 'junction') return;
   const { ampsMin, ampsMax } = result.summary;
+  if (ampsMin >= c.windowLowA && ampsMax <= c.windowHighA) return;
   const atMin = result.sweep.find((p) => p.amps === ampsMin)!;
   const atMax = result.sweep.find((p) => p.amps === ampsMax)!;
   const suggestion = suggestResistor(c);

@@ -70,6 +70,14 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
 
 /** Entry point of the bundled CLI. */
 export function run(): void {
+  // A reader that stops early (`thermoscribe report ... | head`) closes the pipe: finish quietly,
+  // as other command-line tools do, instead of failing on the next write.
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on('error', (err: NodeJS.ErrnoException) => {
+      if (err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+      throw err;
+    });
+  }
   const io: CliIO = { out: (t) => process.stdout.write(t), err: (t) => process.stderr.write(t), cwd: process.cwd() };
   let code: number | 'serving';
   try {

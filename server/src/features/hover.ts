@@ -10,6 +10,7 @@ import { readQuantityValue } from '../model/read-value';
 import { readUnit, type Dimension } from '../model/units';
 import { pointAt } from '../analysis/sweep';
 import { operatingPoint } from '../physics/junction';
+import { describeBias } from '../report/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from './figures';
@@ -71,10 +72,7 @@ function blockHover(a: Analysis, block: BlockNode): string | null {
 }
 
 function biasText(r: ChannelResult): string {
-  const b = r.channel.bias;
-  return b.kind === 'current'
-    ? `constant current ${f.amps(b.amps.value)}`
-    : `resistor ${f.ohms(b.ohms.value)} from ${f.volts(b.supply.value)}`;
+  return describeBias(r.channel);
 }
 
 /** Low end, 25 °C (when inside the range) and high end of a channel. */
@@ -117,7 +115,7 @@ export function channelHover(r: ChannelResult): string {
   const vref = c.adc.reference.value;
   const nl = s.nonlinearity;
   return [
-    `**channel ${c.name}**: junction \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.volts(vref)})`,
+    `**channel ${c.name}**: ${c.sensor.kind} \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.volts(vref)})`,
     pointTable(r, ['amps', 'volts', 'slope', 'counts', 'perCount']) + roomNote(r),
     `Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** (${f.countsPerK(s.worst.countsPerKelvin)}) at ${f.celsius(s.worst.celsius)}` +
       (c.resolutionKPerCount !== null ? `; required ${f.perCount(c.resolutionKPerCount)}` : ''),

@@ -110,3 +110,15 @@ describe('thermoscribe report', () => {
     expect(runCli(['report', 'samples/greenhouse.tsense', '--channel', 'nope']).code).toBe(2);
   });
 });
+
+describe('the bundled CLI in a pipe', () => {
+  it('finishes quietly when the reader closes the pipe early (EPIPE)', async () => {
+    const { spawnSync } = await import('node:child_process');
+    const cli = path.join(ROOT, 'dist/cli.js');
+    if (!fs.existsSync(cli)) return; // built by `npm test` before vitest runs
+    const r = spawnSync('bash', ['-c', `node "${cli}" report samples/greenhouse.tsense | head -1; exit \${PIPESTATUS[0]}`], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.stdout).toMatch(/^Channel bench_air/);
+    expect(r.stderr).not.toMatch(/EPIPE/);
+    expect(r.status).toBe(0);
+  });
+});

@@ -6,6 +6,7 @@ import { loadAnalyses } from './check';
 import type { ChannelResult } from '../../analysis/types';
 import { formatSI, trimNumber } from '../../model/read-value';
 import { CAUTION } from '../../report/caution';
+import { describeBias, describeSensor } from '../../report/describe';
 
 export const REPORT_USAGE = 'thermoscribe report FILE [--channel NAME] [--root DIR]';
 
@@ -43,11 +44,8 @@ export function runReport(argv: string[], io: CliIO): number {
 export function channelReport(r: ChannelResult): string {
   const c = r.channel;
   const s = r.summary;
-  const bias = c.bias.kind === 'current'
-    ? `constant current ${formatSI(c.bias.amps.value, 'A')}`
-    : `${c.bias.kind === 'divider' ? `divider, fixed ${formatSI(c.bias.ohms.value, 'Ω')} ${c.bias.position} the sensor` : `resistor ${formatSI(c.bias.ohms.value, 'Ω')}`} from ${formatSI(c.bias.supply.value, 'V')}${c.ratiometric ? ' (ratiometric)' : ''}`;
   const head = [
-    `Channel ${c.name}: ${c.sensor.kind} '${c.sensor.name}' (${c.sensor.params.kind}), ${bias}`,
+    `Channel ${c.name}: ${describeSensor(c)}, ${describeBias(c)}`,
     `  ADC '${c.adc.name}': ${c.adc.bits} bits on ${formatSI(c.adc.reference.value, 'V')}, LSB ${formatSI(s.lsbVolts, 'V')}`,
     `  sensed ${formatSI(s.voltsMin, 'V')} .. ${formatSI(s.voltsMax, 'V')}, codes ${s.codeMin} .. ${s.codeMax}, current ${formatSI(s.ampsMin, 'A')} .. ${formatSI(s.ampsMax, 'A')}`,
     `  worst resolution ${trimNumber(s.worst.celsiusPerCount, 3)} °C/count (${trimNumber(s.worst.countsPerKelvin, 3)} counts/K) at ${trimNumber(s.worst.celsius, 4)} °C`,
