@@ -27,3 +27,11 @@ export function parseArgs(argv: string[], withValue: string[]): ParsedArgs | str
   }
   return { positional, options };
 }
+
+/** A whole-number option within [lo, hi]: the number, undefined when absent, or a message. */
+export function wholeNumberOption(args: ParsedArgs, name: string, lo: number, hi: number): number | undefined | string {
+  const v = args.options.get(name);
+  if (v === undefined) return undefined;
+  const n = Number(v);
+  return Number.isInteger(n) && n >= lo && n <= hi ? n : `--${name} takes a whole number from ${lo} to ${hi} (got '${String(v)}')`;
+}

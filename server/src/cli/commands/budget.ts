@@ -1,10 +1,10 @@
 // thermoscribe budget FILE [--channel NAME] [--runs N] [--seed S] [--format text|json] [--root DIR]
 // Error budget per channel: worst case and Monte Carlo per calibration mode, contributor shares.
 // Long runs report progress on stderr and stop cleanly on Ctrl+C (exit 130).
-import { parseArgs } from '../args';
+import { parseArgs, wholeNumberOption } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { table } from '../text';
-import { loadAnalyses } from './check';
+import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
 import { budgetJson } from '../../budget/json';
 import { describeSetting } from '../../budget/describe';
@@ -23,21 +23,13 @@ export async function runBudget(argv: string[], io: CliIO): Promise<number> {
   if (args.positional.length !== 1) return fail('name exactly one .tsense file');
   const format = String(args.options.get('format') ?? 'text');
   if (format !== 'text' && format !== 'json') return fail(`--format takes text or json (got '${format}')`);
-  const int = (name: string, lo: number, hi: number): number | undefined | string => {
-    const v = args.options.get(name);
-    if (v === undefined) return undefined;
-    const n = Number(v);
-    return Number.isInteger(n) && n >= lo && n <= hi ? n : `--${name} takes a whole number from ${lo} to ${hi} (got '${String(v)}')`;
-  };
-  const runs = int('runs', 0, 1_000_000);
-  const seed = int('seed', 0, 4294967295);
+  const runs = wholeNumberOption(args, 'runs', 0, 1_000_000);
+  const seed = wholeNumberOption(args, 'seed', 0, 4294967295);
   if (typeof runs === 'string') return fail(runs);
   if (typeof seed === 'string') return fail(seed);
   const host = new DiskHost();
-  const root = args.options.get('root');
-  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
-  if (typeof analyses === 'string') return (io.err(`thermoscribe: ${analyses}\n`), EXIT.unusable);
-  const a = analyses[0]!;
+  const a = analyseOne(args, io, host);
+  if (typeof a === 'number') return a;
   const only = args.options.get('channel');
   const channels = typeof only === 'string' ? a.model.channels.filter((c) => c.name === only) : a.model.channels;
   if (channels.length === 0) {

@@ -4,7 +4,7 @@ import * as path from 'node:path';
 import { analyse, type Analysis } from '../../engine';
 import { analysisJson, diagnosticJson, REPORT_VERSION } from '../../report/json';
 import { sarifLog } from '../../report/sarif';
-import { parseArgs } from '../args';
+import { parseArgs, type ParsedArgs } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic } from '../text';
 import { VERSION } from '../version';
@@ -21,6 +21,20 @@ export function loadAnalyses(files: string[], rootOpt: string | undefined, io: C
     out.push(analyse({ path: abs, text, root, host }));
   }
   return out;
+}
+
+/**
+ * The one spec file a verb works on, analysed; or the exit status after saying why it cannot be
+ * (unreadable file). Reads --root.
+ */
+export function analyseOne(args: ParsedArgs, io: CliIO, host: DiskHost): Analysis | number {
+  const root = args.options.get('root');
+  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
+  if (typeof analyses === 'string') {
+    io.err(`thermoscribe: ${analyses}\n`);
+    return EXIT.unusable;
+  }
+  return analyses[0]!;
 }
 
 export function runCheck(argv: string[], io: CliIO): number {

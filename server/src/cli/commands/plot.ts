@@ -3,9 +3,9 @@
 // temperature per calibration mode. Exit 0 written, 1 the budget or the drawing failed, 2 unusable input.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { parseArgs } from '../args';
+import { parseArgs, wholeNumberOption } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
-import { loadAnalyses } from './check';
+import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
 import { plotData } from '../../plot/data';
 import { plotSpec, type ChartKind } from '../../plot/spec';
@@ -26,24 +26,16 @@ export async function runPlot(argv: string[], io: CliIO): Promise<number> {
   if (typeof out !== 'string' || out === '') return fail('--out FILE.svg is required');
   const chart = String(args.options.get('chart') ?? 'both') as ChartKind;
   if (!CHARTS.includes(chart)) return fail(`--chart takes ${CHARTS.join(', ')} (got '${chart}')`);
-  const int = (name: string, lo: number, hi: number): number | undefined | string => {
-    const v = args.options.get(name);
-    if (v === undefined) return undefined;
-    const n = Number(v);
-    return Number.isInteger(n) && n >= lo && n <= hi ? n : `--${name} takes a whole number from ${lo} to ${hi} (got '${String(v)}')`;
-  };
-  const runs = int('runs', 0, 1_000_000);
-  const seed = int('seed', 0, 4294967295);
+  const runs = wholeNumberOption(args, 'runs', 0, 1_000_000);
+  const seed = wholeNumberOption(args, 'seed', 0, 4294967295);
   if (typeof runs === 'string') return fail(runs);
   if (typeof seed === 'string') return fail(seed);
   const outAbs = path.resolve(io.cwd, out);
   if (!fs.existsSync(path.dirname(outAbs))) return fail(`the folder of --out does not exist: ${path.dirname(outAbs)}`);
 
   const host = new DiskHost();
-  const root = args.options.get('root');
-  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
-  if (typeof analyses === 'string') return (io.err(`thermoscribe plot: ${analyses}\n`), EXIT.unusable);
-  const a = analyses[0]!;
+  const a = analyseOne(args, io, host);
+  if (typeof a === 'number') return a;
   const result = a.channels.find((r) => r.channel.name === channel);
   if (!result) {
     const defined = a.model.channels.find((c) => c.name === channel);

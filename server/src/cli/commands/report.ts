@@ -2,7 +2,7 @@
 import { parseArgs } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic, table } from '../text';
-import { loadAnalyses } from './check';
+import { analyseOne } from './check';
 import type { ChannelResult } from '../../analysis/types';
 import { formatSI, trimNumber } from '../../model/read-value';
 import { CAUTION } from '../../report/caution';
@@ -17,13 +17,8 @@ export function runReport(argv: string[], io: CliIO): number {
     return EXIT.unusable;
   }
   const host = new DiskHost();
-  const root = args.options.get('root');
-  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
-  if (typeof analyses === 'string') {
-    io.err(`thermoscribe: ${analyses}\n`);
-    return EXIT.unusable;
-  }
-  const a = analyses[0]!;
+  const a = analyseOne(args, io, host);
+  if (typeof a === 'number') return a;
   const only = args.options.get('channel');
   const channels = typeof only === 'string' ? a.channels.filter((c) => c.channel.name === only) : a.channels;
   if (typeof only === 'string' && channels.length === 0) {
