@@ -15,6 +15,7 @@ import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from './figures';
 import { budgetHoverSection } from './budget-hover';
+import { resistiveChannelLines, rtdHover, thermistorHover } from './sensor-hover';
 
 export interface HoverResult {
   markdown: string;
@@ -62,6 +63,12 @@ function blockHover(a: Analysis, block: BlockNode): string | null {
   if (spec.kind === 'channel') {
     const r = f.channelResult(a, name);
     return r ? channelHover(r) : `**channel ${name}**\n\n${spec.doc}\n\nNo figures: the channel has errors (see the problems list).`;
+  }
+  if (spec.kind === 'thermistor' || spec.kind === 'rtd') {
+    const s = a.model.resistiveSensors.get(name);
+    if (s?.kind === 'thermistor') return thermistorHover(a, s);
+    if (s?.kind === 'rtd') return rtdHover(a, s);
+    return `**${spec.kind} ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
   }
   if (spec.kind === 'junction') {
     const j = a.model.junctions.get(name);
@@ -116,6 +123,7 @@ export function channelHover(r: ChannelResult): string {
   const nl = s.nonlinearity;
   return [
     `**channel ${c.name}**: ${c.sensor.kind} \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.volts(vref)})`,
+    ...resistiveChannelLines(r),
     pointTable(r, ['amps', 'volts', 'slope', 'counts', 'perCount']) + roomNote(r),
     `Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** (${f.countsPerK(s.worst.countsPerKelvin)}) at ${f.celsius(s.worst.celsius)}` +
       (c.resolutionKPerCount !== null ? `; required ${f.perCount(c.resolutionKPerCount)}` : ''),
@@ -207,6 +215,8 @@ function termHover(a: Analysis, at: Extract<Located, { kind: 'term' }>): HoverRe
     const j = key === 'sensor' ? a.model.junctions.get(term.text) : undefined;
     const adc = key === 'adc' ? a.model.adcs.get(term.text) : undefined;
     if (j) return { markdown: junctionHover(a, j), span: term.span };
+    const s = key === 'sensor' ? a.model.resistiveSensors.get(term.text) : undefined;
+    if (s) return { markdown: s.kind === 'thermistor' ? thermistorHover(a, s) : rtdHover(a, s), span: term.span };
     if (adc) return { markdown: adcHover(a, adc), span: term.span };
     return null;
   }

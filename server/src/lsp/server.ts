@@ -26,6 +26,7 @@ import { GENERATE_KIND, onCodeActions, onResolveCodeAction } from './handlers/co
 import { CONVERSION_CHANNELS, CONVERSION_CODE, onConversionChannels, onConversionCode, type ConversionChannelsParams, type ConversionCodeParams } from './handlers/conversion-code';
 import { onCodeLens } from './handlers/code-lens';
 import { PLOT_DATA, onPlotData, type PlotDataParams, type PlotDataResult } from './handlers/plot-data';
+import { COMPARE_DATA, onCompareData, type CompareDataParams, type CompareDataResult } from './handlers/compare-data';
 import { VERSION } from '../cli/version';
 
 export function createServer(connection: Connection): ServerContext {
@@ -124,6 +125,7 @@ export function createServer(connection: Connection): ServerContext {
   connection.onRequest(CONVERSION_CODE, guard(connection, CONVERSION_CODE, null, (p: ConversionCodeParams) => onConversionCode(ctx, p)));
   connection.onCodeLens(guard(connection, 'codeLens', [], (p) => onCodeLens(ctx, p)));
   connection.onRequest(PLOT_DATA, guard<PlotDataParams, PlotDataResult | null>(connection, PLOT_DATA, null, (p) => onPlotData(ctx, p)));
+  connection.onRequest(COMPARE_DATA, guard<CompareDataParams, CompareDataResult | null>(connection, COMPARE_DATA, null, (p) => onCompareData(ctx, p)));
 
   documents.docs.listen(connection);
   return ctx;

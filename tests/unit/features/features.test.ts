@@ -125,3 +125,33 @@ describe('independent checks', () => {
     expect(rename(a, at, 'board_adc')).toMatchObject({ ok: false, message: expect.stringMatching(/already defined/) });
   });
 });
+
+describe('independent checks: resistive sensor hovers', () => {
+  const at = (name: string) => {
+    const file = path.join(FIXTURES, 'hover', name);
+    const { text, offset } = withCursor(fs.readFileSync(file, 'utf8'));
+    return hover(load(file, text), offset)!.markdown;
+  };
+
+  it('shows an RTD with the IEC 60751 coefficients its alpha, class tolerances and resistances', () => {
+    const md = at('rtd-block.tsense');
+    // IEC 60751: alpha = (R100 - R0)/(100 R0) = 0.00385055 /°C for A = 3.9083e-3, B = -5.775e-7
+    // (R100/R0 = 1 + 100 A + 10^4 B = 1.385055; the standard's nominal 0.00385, from memory).
+    expect(md).toContain('α = (R100 − R0)/(100 °C · R0) = 0.0038505 /°C');
+    // Class A ±(0.15 + 0.002|t|) °C (IEC 60751 table, from memory): 0.19 at -20 °C, 0.45 at 150 °C.
+    expect(md).toContain('| `rtd_ch` | -20 °C | 922 Ω | ±0.19 °C | 150 °C | 1.57 kΩ | ±0.45 °C |');
+    // Pt1000 at -20 °C: 921.60 Ω in the IEC 60751 reference table (from memory); 150 °C: 1573.25 Ω
+    // (CVD quadratic 1000 (1 + 150 A + 150² B), published equation).
+  });
+
+  it('shows a beta-model thermistor with R at the channel range ends', () => {
+    const md = at('thermistor-block.tsense');
+    // Beta model R(T) = R25 exp(beta (1/T - 1/298.15 K)) (published equation; Steinhart & Hart 1968
+    // beta form): 10 kΩ, beta 3435 K: 12.17 kΩ at 20 °C, 1.118 kΩ at 95 °C.
+    const r = (c: number) => 10e3 * Math.exp(3435 * (1 / (c + 273.15) - 1 / 298.15));
+    expect(r(20)).toBeCloseTo(12172, -1);
+    expect(md).toContain(`| \`ntc_ch\` | 20 °C | ${(r(20) / 1e3).toPrecision(3)} kΩ | 95 °C | ${(r(95) / 1e3).toPrecision(3)} kΩ |`);
+    // Steinhart-Hart form of the beta model: B = 1/beta, C = 0 (published equation, physics/steinhart-hart.ts).
+    expect(md).toContain(`B ${(1 / 3435).toPrecision(5)}`.replace(/0\.000(\d)(\d+)/, '$1.$2e-4'));
+  });
+});

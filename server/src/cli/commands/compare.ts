@@ -6,17 +6,11 @@ import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic, table } from '../text';
 import { loadAnalyses } from './check';
 import { compareGroups, type CompareGroup } from '../../compare/compare';
-import { trimNumber } from '../../model/read-value';
+import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../compare/cells';
 import { CAUTION } from '../../report/caution';
 import { VERSION } from '../version';
 
 export const COMPARE_USAGE = 'thermoscribe compare FILE [--format text|json] [--group NAME] [--root DIR]';
-
-const EXPLAIN = [
-  'Error: worst case over the range from the error budget (circuit, reference, ADC and the element\'s own',
-  'spread: thermistor R25/beta, RTD R0 and IEC 60751 class). "after cal" is after a one-point (offset)',
-  'calibration. Parts and code bytes are estimates (code: 8-bit AVR, -Os).',
-];
 
 export function runCompare(argv: string[], io: CliIO): number {
   const args = parseArgs(argv, ['format', 'group', 'root']);
@@ -55,7 +49,7 @@ export function runCompare(argv: string[], io: CliIO): number {
     io.out(JSON.stringify({ version: 1, tool: { name: 'thermoscribe', version: VERSION }, path: a.path, units: 'K for errors and self-heating, °C per count for resolution, bytes for code', groups, caution: CAUTION }, null, 2) + '\n');
   } else {
     for (const g of groups) io.out(groupText(g) + '\n\n');
-    io.out(EXPLAIN.join('\n') + '\n');
+    io.out(COMPARE_EXPLAIN.join('\n') + '\n');
     if (errors.length) {
       io.out('\nErrors in the spec (channels with errors may be missing above):\n');
       for (const d of errors) io.out('  ' + formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
@@ -65,21 +59,9 @@ export function runCompare(argv: string[], io: CliIO): number {
   return errors.length ? EXIT.errors : EXIT.clean;
 }
 
-const k = (v: number | null) => (v === null ? 'n/a' : `±${trimNumber(v, 3)} K`);
-
 export function groupText(g: CompareGroup): string {
-  const rows = g.rows.map((r) => [
-    r.channel,
-    r.sensor,
-    `${trimNumber(r.worstCPerCount, 3)} °C @ ${trimNumber(r.worstAtC, 4)} °C`,
-    k(r.errorBeforeK),
-    k(r.errorAfterK),
-    r.classToleranceK === null ? '-' : k(r.classToleranceK),
-    `${trimNumber(r.selfHeatingMaxK * 1000, 3)} mK`,
-    String(r.parts),
-    r.codeBytes === null ? 'n/a' : `${r.codeBytes} B`,
-  ]);
+  const rows = g.rows.map(compareCells);
   const notes = g.rows.flatMap((r) => r.notes.map((n) => `  ${r.channel}: ${n}`));
   return [`Measurement '${g.name}': ${g.rows.length} candidate${g.rows.length === 1 ? '' : 's'}`, '',
-    table(['channel', 'sensor', 'worst resolution', 'error', 'after cal', 'class', 'self-heat', 'parts', 'code'], rows), '', 'Notes:', ...notes].join('\n');
+    table([...COMPARE_HEADERS], rows), '', 'Notes:', ...notes].join('\n');
 }

@@ -45,7 +45,7 @@ export function onPlotData(ctx: ServerContext, params: PlotDataParams): PlotData
 }
 
 /** The open document's analysis, or the file read through the document host when it is not open. */
-function analysisOf(ctx: ServerContext, uri: string): Analysis | undefined {
+export function analysisOf(ctx: ServerContext, uri: string): Analysis | undefined {
   const open = ctx.documents.get(uri);
   if (open) return ctx.analyses.get(open);
   const p = uriToPath(uri, ctx.documents.roots);
