@@ -6,6 +6,7 @@ import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from '../../node_modules/vscode-languageclient/lib/node/main';
 import { registerInsertConversion } from './insert-conversion';
 import { registerPlotPanel } from './plot-panel';
+import { registerRunBudget } from './run-budget';
 import { registerComparePanel } from './compare-panel';
 
 const LANGUAGE_ID = 'tsense';
@@ -25,6 +26,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   );
   registerInsertConversion(context, () => client);
   registerPlotPanel(context, () => client);
+  registerRunBudget(context, () => client);
   registerComparePanel(context, () => client);
 
   await start(context);

@@ -66,6 +66,8 @@ export interface StartOptions {
   /** Answer to workspace/configuration for the `thermoscribe` section. */
   settings?: Record<string, unknown>;
   initializationOptions?: Record<string, unknown>;
+  /** Declare window.workDoneProgress (server-created progress); the test answers window/workDoneProgress/create. */
+  workDoneProgress?: boolean;
 }
 
 export class TestClient {
@@ -105,6 +107,7 @@ export class TestClient {
       workspaceFolders: [{ uri: uriOf(rootDir), name: 'root' }],
       initializationOptions: opts.initializationOptions,
       capabilities: {
+        ...(opts.workDoneProgress ? { window: { workDoneProgress: true } } : {}),
         workspace: { configuration: true, workspaceEdit: { documentChanges: true, resourceOperations: ['create'] }, didChangeConfiguration: { dynamicRegistration: true } },
         textDocument: {
           documentSymbol: { hierarchicalDocumentSymbolSupport: true },

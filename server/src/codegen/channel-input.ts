@@ -2,9 +2,14 @@
 // of its sweep, and the code options of the channel (output unit, error target, method, float
 // variant, board calibration). One implementation shared by the CLI `gen`, the code action and the
 // stale-block check, so all three write and compare the same spec hash.
+// Two spec fields change what the firmware converts: `measured` points (the conversion inverts the
+// model fitted to them, calibration/fit.ts) and `oversampling = n bits` (the firmware hands over the
+// decimated value of 4^n readings summed and shifted right by n, a (bits + n)-bit value).
 import * as path from 'node:path';
 import { channelKey } from '../analysis/cache';
 import { kelvinAtVolts } from '../analysis/inverse';
+import { sense } from '../analysis/sense';
+import { fittedChannel } from '../calibration/fit';
 import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelDef } from '../model/types';
@@ -23,6 +28,34 @@ export function conversionFilePath(specPath: string): string {
 /** The header that goes with a generated C file: same folder and stem, `.h`. */
 export function headerPathFor(cPath: string): string {
   return cPath.replace(/\.[cC]$/, '') + '.h';
+}
+
+/** Widest code the generated functions take (their argument is a uint16_t). */
+export const MAX_CODE_BITS = 16;
+
+/** Bits of the value the conversion takes: the ADC's plus the stated oversampling bits. */
+export function conversionBits(c: ChannelDef): number {
+  return c.adc.bits + (c.oversamplingBits ?? 0);
+}
+
+/** Why a channel's code cannot be generated because its value is too wide (null when it fits). */
+export function tooWideMessage(c: ChannelDef): string | null {
+  const bits = conversionBits(c);
+  if (bits <= MAX_CODE_BITS) return null;
+  const n = c.oversamplingBits ?? 0;
+  return n > 0
+    ? `the generator takes values of up to ${MAX_CODE_BITS} bits ('${c.adc.name}' has ${c.adc.bits} bits and oversampling adds ${n}: ${bits}); lower the oversampling to at most ${Math.max(0, MAX_CODE_BITS - c.adc.bits)} bits`
+    : `the generator handles ADCs of up to ${MAX_CODE_BITS} bits ('${c.adc.name}' has ${c.adc.bits})`;
+}
+
+/**
+ * Mean ADC reading, in LSB of the converter, that a decimated value D of n extra bits stands for.
+ * D = floor(S / 2^n) with S the sum of 4^n readings (AVR121), so the mean S / 4^n lies in
+ * [D / 2^n, (D + 1) / 2^n - 1 / 4^n]; its centre is (D + 0.5 - 2^-(n+1)) / 2^n. With n = 0 this
+ * is the code itself.
+ */
+export function meanReadingOfDecimated(d: number, n: number): number {
+  return n === 0 ? d : (d + 0.5 - 2 ** -(n + 1)) / 2 ** n;
 }
 
 /** FNV-1a, 32 bits (Fowler, Noll, Vo; public-domain hash). */
@@ -53,17 +86,35 @@ export function generatableResults(channels: readonly ChannelResult[], diagnosti
   const errs = diagnostics.filter((d) => d.severity === 'error');
   return channels.filter((r) => {
     const c = r.channel;
-    return c.adc.bits <= 16 && !errs.some((d) => d.file === c.file && d.span.start >= c.span.start && d.span.end <= c.span.end);
+    return conversionBits(c) <= MAX_CODE_BITS && !errs.some((d) => d.file === c.file && d.span.start >= c.span.start && d.span.end <= c.span.end);
   });
 }
 
 export function conversionInput(r: ChannelResult, specPath: string): ConversionInput {
   const c = r.channel;
   const opts = c.codegen ?? CODE_DEFAULTS;
+  // Measured points: convert with the model fitted to them (the nominal model when none).
+  const model = fittedChannel(c);
+  const n = c.oversamplingBits ?? 0;
+  const bits = c.adc.bits + n;
   const lsb = c.adc.reference.value / 2 ** c.adc.bits;
   // Codes at the range ends map to voltages a little beyond the swept ones: widen the search.
   const lowK = Math.max(1, c.lowK - 50);
   const highK = c.highK + 50;
+  // The ADC codes of the range: the sweep's for the nominal model, the fitted model's own otherwise.
+  let codeMin = r.summary.codeMin;
+  let codeMax = r.summary.codeMax;
+  if (model !== c) {
+    const top = 2 ** c.adc.bits - 1;
+    const codeAt = (k: number) => Math.min(top, Math.max(0, Math.floor(sense(model, k).volts / lsb)));
+    const a = codeAt(c.lowK);
+    const b = codeAt(c.highK);
+    codeMin = Math.min(a, b);
+    codeMax = Math.max(a, b);
+  }
+  // Decimated values: ADC code k covers the values k * 2^n .. (k + 1) * 2^n - 1.
+  const codeLow = codeMin * 2 ** n;
+  const codeHigh = Math.min(2 ** bits - 1, (codeMax + 1) * 2 ** n - 1);
   // Board calibration from the spec: the trims differ per board, so the firmware sets them at run
   // time (offset 0 and gain 1 until it does).
   const cal = c.calibration?.mode;
@@ -73,18 +124,27 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
       : cal === 'two-point'
         ? { mode: 'two-point', offset: 0, gain: 1, runtime: true }
         : { mode: 'none', runtime: false };
+  const notes = [`Channel ${c.name} of ${path.basename(specPath)}.`];
+  if (model !== c) notes.push(`Converts with the model fitted to the ${c.measured!.length} measured point(s) of the spec.`);
+  if (n > 0) {
+    notes.push(
+      `Takes the decimated value of ${4 ** n} readings summed and shifted right by ${n} (oversampling = ${n} bits): ` +
+        `${bits} bits, 0 .. ${2 ** bits - 1}; pass that value, not a single ${c.adc.bits}-bit reading.`,
+    );
+  }
   return {
     channelName: c.name,
-    bits: c.adc.bits,
-    codeLow: r.summary.codeMin,
-    codeHigh: r.summary.codeMax,
-    celsiusAtCode: (code: number) => kelvinAtVolts(c, (code + 0.5) * lsb, lowK, highK) - ZERO_CELSIUS_K,
+    bits,
+    ...(n > 0 ? { oversamplingBits: n } : {}),
+    codeLow,
+    codeHigh,
+    celsiusAtCode: (code: number) => kelvinAtVolts(model, (meanReadingOfDecimated(code, n) + 0.5) * lsb, lowK, highK) - ZERO_CELSIUS_K,
     outputScale: opts.outputScale,
     errorTarget: opts.errorC,
     method: opts.method,
     calibration,
     floatVariant: opts.floatVariant,
     specHash: channelSpecHash(c),
-    note: `Channel ${c.name} of ${path.basename(specPath)}.`,
+    note: notes.join(' '),
   };
 }

@@ -10,6 +10,8 @@ export interface ChannelPlan {
   name: string;
   ident: string;
   bits: number;
+  /** Extra bits of a decimated value (4^n readings summed, shifted right by n); 0 or absent: plain codes. */
+  oversamplingBits?: number;
   low: number;
   high: number;
   scale: number;
@@ -110,7 +112,13 @@ function describe(p: ChannelPlan): string[] {
         ? `offset trim ${p.trim.offsetScaled}/${p.scale} degC${p.trim.runtime ? ' (settable at run time)' : ''}`
         : `two-point trim: gain ${p.trim.gainQ}/2^${GAIN_Q}, offset ${p.trim.offsetScaled}/${p.scale} degC${p.trim.runtime ? ' (settable at run time)' : ''}`;
   return [
-    `Channel ${commentLines(p.name, 1)[0] ?? ''}: ${p.bits}-bit ADC code -> temperature in 1/${p.scale} degC.`,
+    `Channel ${commentLines(p.name, 1)[0] ?? ''}: ${p.bits}-bit ${p.oversamplingBits ? 'decimated value' : 'ADC code'} -> temperature in 1/${p.scale} degC.`,
+    ...(p.oversamplingBits
+      ? [
+          `Oversampled: pass the sum of ${4 ** p.oversamplingBits} readings of the ${p.bits - p.oversamplingBits}-bit ADC shifted right by ${p.oversamplingBits}`,
+          `(0..${2 ** p.bits - 1}), not one reading; the readings need noise of at least 0.5 LSB rms to dither.`,
+        ]
+      : []),
     `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code).`,
     `Method: ${what}; ${trim}.`,
     `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,

@@ -44,6 +44,8 @@ function fail(c: ConversionInput, field: string, msg: string): never {
 export function validateInput(c: ConversionInput): void {
   if (typeof c.channelName !== 'string') fail(c, 'channelName', 'must be a string');
   if (!Number.isInteger(c.bits) || c.bits < 1 || c.bits > 16) fail(c, 'bits', `must be an integer 1..16, got ${c.bits}`);
+  if (c.oversamplingBits !== undefined && (!Number.isInteger(c.oversamplingBits) || c.oversamplingBits < 0 || c.oversamplingBits >= c.bits))
+    fail(c, 'oversamplingBits', `must be an integer 0..${c.bits - 1} (below bits), got ${c.oversamplingBits}`);
   const top = 2 ** c.bits - 1;
   if (!Number.isInteger(c.codeLow) || c.codeLow < 0 || c.codeLow > top)
     fail(c, 'codeLow', `must be an integer 0..${top}, got ${c.codeLow}`);
@@ -213,6 +215,7 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
       name: c.channelName,
       ident: ids[i]!,
       bits: c.bits,
+      ...(c.oversamplingBits ? { oversamplingBits: c.oversamplingBits } : {}),
       low: c.codeLow,
       high: c.codeHigh,
       scale: c.outputScale,

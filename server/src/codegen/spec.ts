@@ -1,7 +1,7 @@
 // Generation for a whole analysed spec (every channel, or one): the C source and header texts the
 // CLI writes, and the marker-wrapped block the editor inserts at the cursor. Pure: no file IO.
 import type { ChannelResult } from '../analysis/types';
-import { conversionInput, generatableResults } from './channel-input';
+import { conversionInput, generatableResults, tooWideMessage } from './channel-input';
 import { generateC } from './generate';
 import { renderBlock } from './markers';
 import { CodegenInputError, type ConversionInput, type GenerateResult } from './types';
@@ -23,12 +23,12 @@ function pick(a: SpecLike, channel: string | undefined): ChannelResult[] | strin
       const names = all.map((x) => `'${x.channel.name}'`).join(', ');
       return `no channel '${channel}' was analysed in this spec${names ? ` (channels: ${names})` : ' (it has no channel without errors)'}`;
     }
-    if (generatableResults([r]).length === 0) return `channel '${channel}': the generator handles ADCs of up to 16 bits ('${r.channel.adc.name}' has ${r.channel.adc.bits})`;
+    if (generatableResults([r]).length === 0) return `channel '${channel}': ${tooWideMessage(r.channel) ?? 'cannot be generated'}`;
     return [r];
   }
   const ok = generatableResults(all);
   const skipped = all.filter((r) => !ok.includes(r));
-  if (skipped.length > 0) return `channel '${skipped[0]!.channel.name}': the generator handles ADCs of up to 16 bits ('${skipped[0]!.channel.adc.name}' has ${skipped[0]!.channel.adc.bits}); name the other channels with --channel`;
+  if (skipped.length > 0) return `channel '${skipped[0]!.channel.name}': ${tooWideMessage(skipped[0]!.channel) ?? 'cannot be generated'}; name the other channels with --channel`;
   if (ok.length === 0) return 'the spec has no channel to generate code for';
   return ok;
 }

@@ -3,8 +3,10 @@
 export interface ConversionInput {
   /** Channel name from the spec; the generator derives a valid, unique C identifier from it. */
   channelName: string;
-  /** ADC resolution, bits (1..16). */
+  /** Bits of the value converted (1..16): the ADC's, plus n when it is a decimated value of n extra bits. */
   bits: number;
+  /** n when the value is the sum of 4^n readings shifted right by n (oversampling); 0 or absent: one reading. */
+  oversamplingBits?: number;
   /** Inclusive in-range ADC codes (the channel's designed temperature range). */
   codeLow: number;
   codeHigh: number;

@@ -6,7 +6,7 @@
 import * as path from 'node:path';
 import type { Analysis } from '../engine';
 import { generateC, spliceGenerated } from '../codegen/index';
-import { conversionFilePath, conversionInput } from '../codegen/channel-input';
+import { conversionFilePath, conversionInput, tooWideMessage } from '../codegen/channel-input';
 
 export interface GeneratedFile {
   /** Absolute path of the C file. */
@@ -25,14 +25,15 @@ export { conversionFilePath };
 
 /** The channels code can be generated for, by name. */
 export function generatableChannels(a: Analysis): string[] {
-  return a.channels.filter((r) => r.channel.adc.bits <= 16).map((r) => r.channel.name);
+  return a.channels.filter((r) => tooWideMessage(r.channel) === null).map((r) => r.channel.name);
 }
 
 /** Generates the channel's code; `existing` is the current text of the C file, if it exists. */
 export function generateForChannel(a: Analysis, channel: string, existing: string | undefined): GenerateOutcome {
   const r = a.channels.find((x) => x.channel.name === channel);
   if (!r) return { ok: false, message: `channel '${channel}' has errors; fix them before generating code` };
-  if (r.channel.adc.bits > 16) return { ok: false, message: `the generator handles ADCs of up to 16 bits ('${r.channel.adc.name}' has ${r.channel.adc.bits})` };
+  const wide = tooWideMessage(r.channel);
+  if (wide) return { ok: false, message: wide };
   const file = conversionFilePath(a.path);
   const stem = path.basename(file, '.c');
   try {

@@ -27,6 +27,7 @@ import { CONVERSION_CHANNELS, CONVERSION_CODE, onConversionChannels, onConversio
 import { onCodeLens } from './handlers/code-lens';
 import { PLOT_DATA, onPlotData, type PlotDataParams, type PlotDataResult } from './handlers/plot-data';
 import { COMPARE_DATA, onCompareData, type CompareDataParams, type CompareDataResult } from './handlers/compare-data';
+import { RUN_BUDGET, runBudgetHandler } from './handlers/run-budget';
 import { VERSION } from '../cli/version';
 
 export function createServer(connection: Connection): ServerContext {
@@ -126,6 +127,7 @@ export function createServer(connection: Connection): ServerContext {
   connection.onCodeLens(guard(connection, 'codeLens', [], (p) => onCodeLens(ctx, p)));
   connection.onRequest(PLOT_DATA, guard<PlotDataParams, PlotDataResult | null>(connection, PLOT_DATA, null, (p) => onPlotData(ctx, p)));
   connection.onRequest(COMPARE_DATA, guard<CompareDataParams, CompareDataResult | null>(connection, COMPARE_DATA, null, (p) => onCompareData(ctx, p)));
+  connection.onRequest(RUN_BUDGET, runBudgetHandler(ctx));
 
   documents.docs.listen(connection);
   return ctx;
