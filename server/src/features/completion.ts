@@ -62,9 +62,11 @@ function topLevel(replace: Span): CompletionItem[] {
   });
   return [
     block('junction', '  kind = ${2:npn}\n  IS   = ${3:10 fA}'),
+    block('thermistor', '  r25         = ${2:10k ± 1 %}\n  beta        = ${3:3950 K ± 1 %}\n  dissipation = ${4:1.5 mW/K}'),
+    block('rtd', '  r0    = ${2:1000}\n  class = ${3|AA,A,B,C|}'),
     block('adc', '  bits      = ${2:12}\n  reference = ${3:3.3 V}'),
     block('channel', '  sensor = ${2:sensor}\n  adc    = ${3:adc}\n  bias   = ${4:current 10 uA}\n  range  = ${5:-40 °C .. 85 °C}'),
-    { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: 'Brings in the junction and ADC definitions of another spec file, e.g. `use "parts.tsense"`. The path is relative to this file and may not leave the workspace.', insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
+    { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: 'Brings in the definitions (junctions, thermistors, RTDs, ADCs) of another spec file, e.g. `use "parts.tsense"`. The path is relative to this file and may not leave the workspace.', insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
   ];
 }
 
@@ -88,7 +90,7 @@ function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replac
 }
 
 /** Fields the resolver reports missing when absent (server/src/model/resolve.ts). */
-const REQUIRED = new Set(['junction.IS', 'adc.bits', 'adc.reference', 'channel.sensor', 'channel.adc', 'channel.bias', 'channel.range']);
+const REQUIRED = new Set(['junction.IS', 'rtd.r0', 'adc.bits', 'adc.reference', 'channel.sensor', 'channel.adc', 'channel.bias', 'channel.range']);
 
 function escapeSnippet(s: string): string {
   return s.replace(/[$}\\]/g, (c) => `\\${c}`);
@@ -99,10 +101,11 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   const onlyWord = /^[A-Za-z_]*$/.test(value);
   if (form.form === 'ref') {
     if (!onlyWord) return [];
-    return [...a.model.blocks.values()].filter((b) => b.kind === form.target).map((b) => ({
+    const kinds: BlockKind[] = form.targets ?? [form.target];
+    return [...a.model.blocks.values()].filter((b) => kinds.includes(b.kind)).map((b) => ({
       label: b.node.name.text,
       kind: 'reference' as const,
-      detail: `${form.target}${b.file === a.path ? '' : ` from ${b.file.split(/[\\/]/).pop()}`}`,
+      detail: `${b.kind}${b.file === a.path ? '' : ` from ${b.file.split(/[\\/]/).pop()}`}`,
       documentation: referenceDoc(a, b.kind, b.node.name.text),
       replace: wordSpan,
     }));
@@ -115,6 +118,23 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
     return [
       { label: 'resistor', kind: 'form', detail: 'resistor R from V', documentation: 'A resistor from a supply rail; each value may carry a tolerance, e.g. `resistor 47k ± 1 % from 3.3 V ± 2 %`.', insertText: 'resistor ${1:47k} from ${2:3.3 V}', snippet: true, replace: wordSpan },
       { label: 'current', kind: 'form', detail: 'current I', documentation: 'A constant-current source, e.g. `current 100 uA ± 2 %`.', insertText: 'current ${1:100 uA}', snippet: true, replace: wordSpan },
+      { label: 'divider', kind: 'form', detail: 'divider R above|below from V', documentation: 'A thermistor or RTD in a divider with a fixed resistor R from a supply: `above` puts R on the supply side (the sensor to ground), `below` puts the sensor on the supply side, e.g. `divider 10k ± 0.1 % above from 3.3 V`.', insertText: 'divider ${1:10k} ${2|above,below|} from ${3:3.3 V}', snippet: true, replace: wordSpan },
+    ];
+  }
+  if (form.form === 'bias' && /^divider[ \t]+\S+(?:[ \t]*(?:±|\+\/-|\+-)[ \t]*\S+(?:[ \t]*%)?)?[ \t]+[A-Za-z]*$/.test(value) && !NUMBER_AT_END.test(value)) {
+    return [
+      { label: 'above', kind: 'keyword', detail: 'fixed resistor on the supply side', documentation: 'The fixed resistor sits between the supply and the ADC node; the sensor runs from the node to ground.', replace: wordSpan },
+      { label: 'below', kind: 'keyword', detail: 'sensor on the supply side', documentation: 'The sensor sits between the supply and the ADC node; the fixed resistor runs from the node to ground.', replace: wordSpan },
+    ];
+  }
+  if (form.form === 'bias' && /^divider[ \t]+.*\b(?:above|below)[ \t]+[A-Za-z]*$/.test(value)) {
+    return [{ label: 'from', kind: 'keyword', detail: 'from a supply', documentation: 'Names the supply the divider is tied to: `from 3.3 V`.', replace: wordSpan }];
+  }
+  if (form.form === 'phrase' && fs.name === 'wiring' && /^[ \t]*$/.test(value)) {
+    return [
+      { label: '2 wires', kind: 'form', detail: 'both leads in series with the sensor', documentation: 'Both leads add their resistance to the sensor\'s, e.g. `2 wires 0.5 ohm` (per lead).', insertText: '2 wires ${1:0.5 ohm}', snippet: true, replace: wordSpan },
+      { label: '3 wires', kind: 'form', detail: 'third lead cancels matched leads', documentation: 'The third lead cancels the lead resistance when the leads match, e.g. `3 wires 0.5 ohm`.', insertText: '3 wires ${1:0.5 ohm}', snippet: true, replace: wordSpan },
+      { label: '4 wires', kind: 'form', detail: 'no lead error', documentation: 'Separate sense leads carry no current, so the leads add no error.', insertText: '4 wires', snippet: false, replace: wordSpan },
     ];
   }
   if (form.form === 'bias' && /^resistor[ \t]+\S+[ \t]+[A-Za-z]*$/.test(value) && !NUMBER_AT_END.test(value)) {
@@ -152,7 +172,7 @@ function numberDimension(fs: FieldSpec, before: string): Dimension | null {
     case 'bias':
       if (/^[ \t]*current\b/.test(before)) return 'current';
       if (/\bfrom[ \t]*$/.test(before)) return 'voltage';
-      if (/^[ \t]*resistor[ \t]*$/.test(before)) return 'resistance';
+      if (/^[ \t]*(?:resistor|divider)[ \t]*$/.test(before)) return 'resistance';
       return null;
     default:
       return null;
@@ -183,12 +203,23 @@ const OPTION_DOCS: Record<string, string> = {
   diode: 'A plain junction diode.',
   table: 'Firmware converts codes through a generated table (model-exact).',
   line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.',
+  // IEC 60751 tolerance classes, ±(a + b|t|) °C (from memory).
+  AA: 'IEC 60751 class AA: ±(0.1 + 0.0017|t|) °C.',
+  A: 'IEC 60751 class A: ±(0.15 + 0.002|t|) °C.',
+  B: 'IEC 60751 class B: ±(0.3 + 0.005|t|) °C.',
+  C: 'IEC 60751 class C: ±(0.6 + 0.01|t|) °C.',
 };
 
 function referenceDoc(a: Analysis, kind: BlockKind, name: string): string {
   if (kind === 'junction') {
     const j = a.model.junctions.get(name);
     return j ? `${j.params.kind}, IS ${formatSI(j.params.IS, 'A')}, N ${trimNumber(j.params.N, 4)}` : 'junction (has errors)';
+  }
+  if (kind === 'thermistor' || kind === 'rtd') {
+    const s = a.model.resistiveSensors.get(name);
+    if (s?.kind === 'thermistor') return `NTC, R at 25 °C ${formatSI(s.r25.value, 'Ω')}${s.beta ? `, beta ${trimNumber(s.beta.value, 5)} K` : ''}`;
+    if (s?.kind === 'rtd') return `platinum, R0 ${formatSI(s.params.R0, 'Ω')}${s.toleranceClass ? `, class ${s.toleranceClass}` : ''}`;
+    return `${kind} (has errors)`;
   }
   const adc = a.model.adcs.get(name);
   return adc ? `${adc.bits} bits, reference ${formatSI(adc.reference.value, 'V')}` : 'adc (has errors)';
