@@ -15,6 +15,7 @@ import { checkCalibrationFit } from './calibration-fit';
 import { checkDividerOptimum } from './divider-optimum';
 import { checkLeadResistance } from './lead-resistance';
 import { checkBetaExtrapolated } from './beta-extrapolated';
+import { checkClassValidity } from './class-validity';
 
 export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkSupply,
@@ -32,4 +33,5 @@ export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkDividerOptimum,
   checkLeadResistance,
   checkBetaExtrapolated,
+  checkClassValidity,
 ];

@@ -1,0 +1,30 @@
+// class-validity: an RTD with an IEC 60751 tolerance class used over a range the class is not
+// specified for. IEC 60751:2008 (table 3) gives each class a temperature range of validity, wider for
+// wire-wound than for film elements (values in physics/callendar-van-dusen.ts RTD_CLASSES, from
+// memory). Outside it the class tolerance ±(a + b|t|) is not guaranteed, so the error budget's element
+// spread (taken from the class) is optimistic there. The spec does not say how the element is built,
+// so the note fires when the range leaves the film range and says whether it also leaves the
+// wire-wound one.
+import type { CheckContext } from './context';
+import { fieldSpan } from './context';
+import { fmtC } from './format';
+import { RTD_CLASSES } from '../physics/callendar-van-dusen';
+
+export function checkClassValidity({ channel: c, sink }: CheckContext): void {
+  const s = c.sensor;
+  if (s.kind !== 'rtd' || !s.toleranceClass) return;
+  const k = RTD_CLASSES[s.toleranceClass];
+  const lowC = c.lowK - 273.15;
+  const highC = c.highK - 273.15;
+  // A hair of slack so a range written exactly at a limit (e.g. 300 °C) does not fire on rounding.
+  const eps = 1e-9;
+  const leaves = (lo: number, hi: number) => lowC < lo - eps || highC > hi + eps;
+  if (!leaves(k.filmLowC, k.filmHighC)) return;
+  const wire = leaves(k.wireLowC, k.wireHighC);
+  sink.report('class-validity', c.file, fieldSpan(c, 'range'),
+    `range ${fmtC(lowC)} .. ${fmtC(highC)} leaves the range IEC 60751 specifies class ${s.toleranceClass} of '${s.name}' for: ` +
+    `${fmtC(k.filmLowC)} .. ${fmtC(k.filmHighC)} for film elements` +
+    (wire ? ` and ${fmtC(k.wireLowC)} .. ${fmtC(k.wireHighC)} for wire-wound ones` : ` (wire-wound elements: ${fmtC(k.wireLowC)} .. ${fmtC(k.wireHighC)}, which the range stays within)`) +
+    `; outside it the class tolerance is not guaranteed and the error budget's element spread is optimistic: ` +
+    `narrow the range, or choose ${wire ? 'a class valid there' : 'a wire-wound element or a class valid there'} (limits from memory; check the element's datasheet)`);
+}
