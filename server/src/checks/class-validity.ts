@@ -2,9 +2,9 @@
 // specified for. IEC 60751:2008 (table 3) gives each class a temperature range of validity, wider for
 // wire-wound than for film elements (values in physics/callendar-van-dusen.ts RTD_CLASSES, from
 // memory). Outside it the class tolerance ±(a + b|t|) is not guaranteed, so the error budget's element
-// spread (taken from the class) is optimistic there. The spec does not say how the element is built,
-// so the note fires when the range leaves the film range and says whether it also leaves the
-// wire-wound one.
+// spread (taken from the class) is optimistic there. The rtd's `element` field says how the element is
+// built; when it is absent the note fires when the range leaves the film range and says whether it
+// also leaves the wire-wound one.
 import type { CheckContext } from './context';
 import { fieldSpan } from './context';
 import { fmtC } from './format';
@@ -19,8 +19,15 @@ export function checkClassValidity({ channel: c, sink }: CheckContext): void {
   // A hair of slack so a range written exactly at a limit (e.g. 300 °C) does not fire on rounding.
   const eps = 1e-9;
   const leaves = (lo: number, hi: number) => lowC < lo - eps || highC > hi + eps;
-  if (!leaves(k.filmLowC, k.filmHighC)) return;
   const wire = leaves(k.wireLowC, k.wireHighC);
+  if (s.element === 'wire') {
+    if (!wire) return;
+    sink.report('class-validity', c.file, fieldSpan(c, 'range'),
+      `range ${fmtC(lowC)} .. ${fmtC(highC)} leaves the range IEC 60751 specifies class ${s.toleranceClass} of the wire-wound '${s.name}' for: ${fmtC(k.wireLowC)} .. ${fmtC(k.wireHighC)}; ` +
+      `outside it the class tolerance is not guaranteed and the error budget's element spread is optimistic: narrow the range or choose a class valid there (limits from memory; check the element's datasheet)`);
+    return;
+  }
+  if (!leaves(k.filmLowC, k.filmHighC)) return;
   sink.report('class-validity', c.file, fieldSpan(c, 'range'),
     `range ${fmtC(lowC)} .. ${fmtC(highC)} leaves the range IEC 60751 specifies class ${s.toleranceClass} of '${s.name}' for: ` +
     `${fmtC(k.filmLowC)} .. ${fmtC(k.filmHighC)} for film elements` +

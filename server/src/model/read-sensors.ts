@@ -182,6 +182,7 @@ export function readRtd(r: BlockReader, base: Base): RtdDef | null {
   const B = r.quantity('cvd_b', IEC60751.B);
   const C = r.quantity('cvd_c', IEC60751.C);
   const cls = r.terms('class') ? (r.choice('class', 'B') as RtdClass) : null;
+  const element = r.terms('element') ? (r.choice('element', 'film') as 'film' | 'wire') : null;
   const rated = r.range('rated', [CVD_LOW_C + ZERO_C, CVD_HIGH_C + ZERO_C]);
   const theta = readDissipation(r, 2.5e-3);
   if (r0 && !(r0.value >= 1 && r0.value <= 1e6)) {
@@ -202,7 +203,7 @@ export function readRtd(r: BlockReader, base: Base): RtdDef | null {
     r.sink.report('out-of-domain', r.ref.file, name.span, `rtd '${name.text}': the coefficients cannot be inverted at ${trimNumber(tHigh, 4)} °C`);
     return null;
   }
-  return { kind: 'rtd', ...base, params: { kind: 'platinum', R0: r0.value, ...k }, r0, toleranceClass: cls, ratedLowK: rated.low, ratedHighK: rated.high, thetaJA: theta };
+  return { kind: 'rtd', ...base, params: { kind: 'platinum', R0: r0.value, ...k }, r0, toleranceClass: cls, element, ratedLowK: rated.low, ratedHighK: rated.high, thetaJA: theta };
 }
 
 /** The channel's `sensor`: a junction, thermistor or rtd definition. */

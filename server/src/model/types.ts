@@ -68,6 +68,8 @@ export interface RtdDef extends DefBase {
   r0: Toleranced;
   /** IEC 60751 tolerance class, or null when not stated. */
   toleranceClass: 'AA' | 'A' | 'B' | 'C' | null;
+  /** How the element is built, when stated (`element = film|wire`); null: assume film. */
+  element: 'film' | 'wire' | null;
   ratedLowK: number;
   ratedHighK: number;
   /** 1 / self-heating (dissipation) constant, K/W. */
