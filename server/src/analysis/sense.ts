@@ -33,10 +33,14 @@ export function physicsBias(b: BiasDef): Bias {
   return b.kind === 'current' ? { kind: 'current', amps: b.amps.value } : { kind: 'resistor', ohms: b.ohms.value, supply: b.supply.value };
 }
 
+/** The nominal physics bias of each channel definition, made once (sweeps ask per point). */
+const biasOf = new WeakMap<ChannelDef, Bias>();
+
 export function sense(c: ChannelDef, kelvin: number): SensedPoint {
   if (c.sensor.kind !== 'junction') return senseResistive(c, c.sensor, kelvin);
   if (c.secondBias) return senseTwoCurrent(c, c.secondBias, kelvin);
-  const bias = nominalBias(c);
+  let bias = biasOf.get(c);
+  if (!bias) biasOf.set(c, (bias = nominalBias(c)));
   const op = operatingPoint(c.sensor.params, bias, kelvin);
   return {
     volts: op.volts,
