@@ -1,7 +1,7 @@
 // Resolves parsed blocks into typed definitions (base SI units, defaults applied), reporting
 // unknown blocks and fields, duplicates, missing fields, wrong units and out-of-domain values.
 import type { BlockNode, FieldNode, Span, Term } from '../syntax/ast';
-import type { DiagnosticSink } from '../checks/diagnostic';
+import { DiagnosticSink } from '../checks/diagnostic';
 import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
 import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, RtdDef, ThermistorDef, Toleranced } from './types';
@@ -52,14 +52,17 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolut
   }
   for (const ref of blocks.values()) {
     if (ref.kind === 'junction') {
-      const j = readJunction(ref, sink);
+      const j = remembered(ref, sink, (into) => readJunction(ref, into));
       if (j) res.junctions.set(j.name, j);
     } else if (ref.kind === 'thermistor' || ref.kind === 'rtd') {
-      const r = new BlockReader(ref, BLOCKS[ref.kind], sink);
-      const d = ref.kind === 'thermistor' ? readThermistor(r, base(ref, r)) : readRtd(r, base(ref, r));
+      const kind = ref.kind;
+      const d = remembered(ref, sink, (into) => {
+        const r = new BlockReader(ref, BLOCKS[kind], into);
+        return kind === 'thermistor' ? readThermistor(r, base(ref, r)) : readRtd(r, base(ref, r));
+      });
       if (d) res.resistiveSensors.set(d.name, d);
     } else if (ref.kind === 'adc') {
-      const a = readAdc(ref, sink);
+      const a = remembered(ref, sink, (into) => readAdc(ref, into));
       if (a) res.adcs.set(a.name, a);
     }
   }
@@ -69,6 +72,27 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolut
     if (c) res.channels.push(c);
   }
   return res;
+}
+
+/**
+ * Definitions read from a block node before, with the diagnostics they gave. The parse cache hands
+ * back the same node object for a block that an edit did not touch or move, so a keystroke re-reads
+ * only the blocks it changed. A sensor or ADC depends on its own block alone; channels, which refer
+ * to other blocks, are always read again.
+ */
+const REMEMBERED = new WeakMap<BlockNode, { file: string; def: unknown; diagnostics: DiagnosticSink['items'] }>();
+
+function remembered<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: DiagnosticSink) => T | null): T | null {
+  const hit = REMEMBERED.get(ref.node);
+  if (hit && hit.file === ref.file) {
+    sink.items.push(...hit.diagnostics);
+    return hit.def as T | null;
+  }
+  const local = new DiagnosticSink();
+  const def = read(local);
+  sink.items.push(...local.items);
+  REMEMBERED.set(ref.node, { file: ref.file, def, diagnostics: [...local.items] });
+  return def;
 }
 
 /** Fields of a block by canonical name; reports unknown and repeated fields. */
