@@ -4,10 +4,10 @@
 // with the shared chart spec in the editor's colours. The panel follows edits of its spec (debounced).
 import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
+import { specTarget } from './spec-target';
 
 const COMMAND = 'thermoscribe.showPlot';
 const REQUEST = 'thermoscribe/plotData';
-const LANGUAGE_ID = 'tsense';
 /** Extra wait after the server's own debounce, so a burst of typing asks once. */
 const DEBOUNCE_MS = 400;
 
@@ -25,20 +25,9 @@ export function registerPlotPanel(context: vscode.ExtensionContext, getClient: (
 }
 
 async function showPlot(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined, uriArg?: unknown, channelArg?: unknown): Promise<void> {
-  let uri = typeof uriArg === 'string' ? uriArg : uriArg instanceof vscode.Uri ? uriArg.toString() : undefined;
-  if (!uri) {
-    const editor = vscode.window.activeTextEditor;
-    if (!editor || editor.document.languageId !== LANGUAGE_ID) {
-      void vscode.window.showWarningMessage('Thermoscribe: open a .tsense spec to plot one of its channels.');
-      return;
-    }
-    uri = editor.document.uri.toString();
-  }
-  const client = getClient();
-  if (!client?.isRunning()) {
-    void vscode.window.showWarningMessage('Thermoscribe: the language server is not running (see "Thermoscribe: Show Language Server Log").');
-    return;
-  }
+  const target = specTarget(uriArg, getClient, 'plot one of its channels');
+  if (!target) return;
+  const { uri, client } = target;
   let channel = typeof channelArg === 'string' ? channelArg : undefined;
   if (!channel) {
     // No channel given (command palette): ask the server which channels the spec has.

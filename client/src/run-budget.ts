@@ -4,10 +4,10 @@
 // output channel: worst case and Monte Carlo p99 per calibration mode.
 import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
+import { specTarget } from './spec-target';
 
 const COMMAND = 'thermoscribe.runBudget';
 const REQUEST = 'thermoscribe/runBudget';
-const LANGUAGE_ID = 'tsense';
 /** LSP RequestCancelled. */
 const REQUEST_CANCELLED = -32800;
 
@@ -33,20 +33,9 @@ export function registerRunBudget(context: vscode.ExtensionContext, getClient: (
 }
 
 async function runBudget(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined, uriArg?: unknown, channelArg?: unknown): Promise<void> {
-  let uri = typeof uriArg === 'string' ? uriArg : uriArg instanceof vscode.Uri ? uriArg.toString() : undefined;
-  if (!uri) {
-    const editor = vscode.window.activeTextEditor;
-    if (!editor || editor.document.languageId !== LANGUAGE_ID) {
-      void vscode.window.showWarningMessage('Thermoscribe: open a .tsense spec to run the error budget of one of its channels.');
-      return;
-    }
-    uri = editor.document.uri.toString();
-  }
-  const client = getClient();
-  if (!client?.isRunning()) {
-    void vscode.window.showWarningMessage('Thermoscribe: the language server is not running (see "Thermoscribe: Show Language Server Log").');
-    return;
-  }
+  const target = specTarget(uriArg, getClient, 'run the error budget of one of its channels');
+  if (!target) return;
+  const { uri, client } = target;
   let channel = typeof channelArg === 'string' ? channelArg : undefined;
   try {
     if (!channel) {
