@@ -5,7 +5,7 @@ import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
 
 const COMMAND = 'thermoscribe.insertConversion';
-const C_LANGUAGES = new Set(['c', 'cpp', 'arduino', 'objective-c', 'objective-cpp']);
+const C_LANGUAGES = new Set(['c', 'cpp', 'objective-c', 'objective-cpp']);
 
 interface ChannelItem extends vscode.QuickPickItem {
   uri: string;
