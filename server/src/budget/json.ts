@@ -15,12 +15,7 @@ export function budgetJson(b: BudgetResult) {
     celsius: arr(b.celsius),
     contributors: b.contributors,
     modes: b.modes.map((m) => ({
-      mode: m.setting.mode,
-      calibrationCelsius: m.setting.kelvins.map((k) => r6(k - 273.15)),
-      worstAbsK: r6(m.worstAbsK),
-      worstAtCelsius: r6(m.worstAtCelsius),
-      mcP99AbsK: m.mcP99AbsK === null ? null : r6(m.mcP99AbsK),
-      dominant: m.dominant ? m.dominant.id : null,
+      ...modeFigures(m),
       shares: m.shares.map((s) => ({ id: s.id, label: s.label, swingAtWorstK: r6(s.swingAtWorstK), share: r6(s.share), maxSwingK: r6(s.maxSwingK) })),
       worstLow: arr(m.worstLow),
       worstHigh: arr(m.worstHigh),
@@ -38,13 +33,20 @@ export function budgetSummaryJson(b: BudgetResult) {
     monteCarlo: b.monteCarlo,
     accuracyK: b.accuracyK,
     modes: b.modes.map((m) => ({
-      mode: m.setting.mode,
-      calibrationCelsius: m.setting.kelvins.map((k) => r6(k - 273.15)),
-      worstAbsK: r6(m.worstAbsK),
-      worstAtCelsius: r6(m.worstAtCelsius),
-      mcP99AbsK: m.mcP99AbsK === null ? null : r6(m.mcP99AbsK),
-      dominant: m.dominant ? m.dominant.id : null,
+      ...modeFigures(m),
       shares: m.shares.map((s) => ({ id: s.id, share: r6(s.share) })),
     })),
+  };
+}
+
+/** The figures of one calibration mode that both renderings carry. */
+function modeFigures(m: BudgetResult['modes'][number]) {
+  return {
+    mode: m.setting.mode,
+    calibrationCelsius: m.setting.kelvins.map((k) => r6(k - 273.15)),
+    worstAbsK: r6(m.worstAbsK),
+    worstAtCelsius: r6(m.worstAtCelsius),
+    mcP99AbsK: m.mcP99AbsK === null ? null : r6(m.mcP99AbsK),
+    dominant: m.dominant ? m.dominant.id : null,
   };
 }

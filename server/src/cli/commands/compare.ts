@@ -4,7 +4,7 @@
 import { parseArgs } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic, table } from '../text';
-import { loadAnalyses } from './check';
+import { analyseOne } from './check';
 import { compareGroups, type CompareGroup } from '../../compare/compare';
 import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../compare/cells';
 import { CAUTION } from '../../report/caution';
@@ -24,13 +24,8 @@ export function runCompare(argv: string[], io: CliIO): number {
     return EXIT.unusable;
   }
   const host = new DiskHost();
-  const root = args.options.get('root');
-  const analyses = loadAnalyses(args.positional, typeof root === 'string' ? root : undefined, io, host);
-  if (typeof analyses === 'string') {
-    io.err(`thermoscribe: ${analyses}\n`);
-    return EXIT.unusable;
-  }
-  const a = analyses[0]!;
+  const a = analyseOne(args, io, host);
+  if (typeof a === 'number') return a;
   let groups = compareGroups(a);
   const only = args.options.get('group');
   if (typeof only === 'string') {

@@ -8,7 +8,7 @@ import { compareGroups, type CompareRow } from '../../compare/compare';
 import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../compare/cells';
 import { CAUTION } from '../../report/caution';
 import type { ServerContext } from '../context';
-import { analysisOf } from './plot-data';
+import { analysisOf } from './channel-of';
 
 export const COMPARE_DATA = 'thermoscribe/compareData';
 

@@ -3,11 +3,10 @@
 //   thermoscribe/conversionCode     {uri, channel}  -> {text, method, maxErrorC} the marked source block
 // A spec that is not open is read through the document host (open documents first, then the disk).
 import { ResponseError, ErrorCodes } from 'vscode-languageserver/node';
-import { analyse, type Analysis } from '../../engine';
 import { generatableResults } from '../../codegen/channel-input';
 import { conversionBlock } from '../../codegen/spec';
 import type { ServerContext } from '../context';
-import { uriToPath } from '../documents';
+import { analysisOf } from './channel-of';
 
 export const CONVERSION_CHANNELS = 'thermoscribe/conversionChannels';
 export const CONVERSION_CODE = 'thermoscribe/conversionCode';
@@ -25,15 +24,6 @@ export interface ConversionCodeResult {
   text: string;
   method: string;
   maxErrorC: number;
-}
-
-function analysisOf(ctx: ServerContext, uri: string): Analysis | undefined {
-  const open = ctx.documents.get(uri);
-  if (open) return ctx.analyses.get(open);
-  const p = uriToPath(uri, ctx.documents.roots);
-  const host = ctx.documents.host();
-  const text = host.read(p);
-  return text === undefined ? undefined : analyse({ path: p, text, root: ctx.documents.rootFor(p), host });
 }
 
 export function onConversionChannels(ctx: ServerContext, params: ConversionChannelsParams): { uri: string; channel: string }[] {

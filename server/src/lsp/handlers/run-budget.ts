@@ -9,9 +9,8 @@
 import { ErrorCodes, LSPErrorCodes, ResponseError, type CancellationToken, type WorkDoneProgressReporter } from 'vscode-languageserver/node';
 import { channelBudgetAsync } from '../../budget/budget';
 import { budgetSummaryJson } from '../../budget/json';
-import { analyse, type Analysis } from '../../engine';
 import type { ServerContext } from '../context';
-import { uriToPath } from '../documents';
+import { channelOf } from './channel-of';
 
 export const RUN_BUDGET = 'thermoscribe/runBudget';
 
@@ -51,15 +50,9 @@ export async function onRunBudget(ctx: ServerContext, params: RunBudgetParams, t
   }
   const runs = wholeIn(params.runs, 10, 1_000_000, 'runs');
   const seed = wholeIn(params.seed, 0, 4294967295, 'seed');
-  const a = analysisOf(ctx, params.uri);
-  if (!a) return { ok: false, message: `cannot read ${params.uri}`, channels: [] };
-  const own = a.model.channels.filter((c) => c.file === a.path).map((c) => c.name);
-  if (params.channel === undefined) return { ok: false, message: 'name a channel', channels: own };
-  const r = a.channels.find((x) => x.channel.name === params.channel && x.channel.file === a.path);
-  if (!r) {
-    const defined = own.includes(params.channel);
-    return { ok: false, message: defined ? `channel '${params.channel}' cannot be analysed: see the problems list` : `no channel named '${params.channel}' in this file`, channels: own };
-  }
+  const found = channelOf(ctx, params.uri, params.channel);
+  if (!found.ok) return found;
+  const r = found.result;
   const c = r.channel;
   const title = `Error budget of ${c.name}`;
   let progress: WorkDoneProgressReporter;
@@ -111,14 +104,4 @@ export function runBudgetHandler(ctx: ServerContext): (params: RunBudgetParams, 
       return { ok: false, message: `the error budget failed: ${err instanceof Error ? err.message : String(err)}`, channels: [] };
     }
   };
-}
-
-/** The open document's analysis, or the file read through the document host when it is not open. */
-function analysisOf(ctx: ServerContext, uri: string): Analysis | undefined {
-  const open = ctx.documents.get(uri);
-  if (open) return ctx.analyses.get(open);
-  const p = uriToPath(uri, ctx.documents.roots);
-  const host = ctx.documents.host();
-  const text = host.read(p);
-  return text === undefined ? undefined : analyse({ path: p, text, root: ctx.documents.rootFor(p), host });
 }

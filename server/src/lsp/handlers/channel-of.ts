@@ -1,0 +1,27 @@
+// What the custom requests share: the analysis of a spec by URI (the open document's, else the file
+// read through the document host), and one of its channels by name with a message when it is absent.
+import { analyse, type Analysis } from '../../engine';
+import type { ChannelResult } from '../../analysis/types';
+import type { ServerContext } from '../context';
+import { uriToPath } from '../documents';
+
+export function analysisOf(ctx: ServerContext, uri: string): Analysis | undefined {
+  const open = ctx.documents.get(uri);
+  if (open) return ctx.analyses.get(open);
+  const p = uriToPath(uri, ctx.documents.roots);
+  const host = ctx.documents.host();
+  const text = host.read(p);
+  return text === undefined ? undefined : analyse({ path: p, text, root: ctx.documents.rootFor(p), host });
+}
+
+/** The analysed channel `name` of the spec at `uri`, or why not with the spec's own channel names. */
+export function channelOf(ctx: ServerContext, uri: string, name: string | undefined): { ok: true; result: ChannelResult } | { ok: false; message: string; channels: string[] } {
+  const a = analysisOf(ctx, uri);
+  if (!a) return { ok: false, message: `cannot read ${uri}`, channels: [] };
+  const own = a.model.channels.filter((c) => c.file === a.path).map((c) => c.name);
+  if (name === undefined) return { ok: false, message: 'name a channel', channels: own };
+  const result = a.channels.find((x) => x.channel.name === name && x.channel.file === a.path);
+  if (result) return { ok: true, result };
+  const message = own.includes(name) ? `channel '${name}' cannot be analysed: see the problems list` : `no channel named '${name}' in this file`;
+  return { ok: false, message, channels: own };
+}
