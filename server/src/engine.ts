@@ -11,6 +11,7 @@ import type { ChannelResult } from './analysis/types';
 import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel, type Resolution } from './model/resolve';
+import { contentToken } from './model/moved';
 
 export type { Diagnostic } from './checks/diagnostic';
 export type { SourceHost, LoadedFile } from './model/workspace';
@@ -56,23 +57,7 @@ export function analyse(input: AnalyseInput): Analysis {
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {
-      const result = input.cache ? input.cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
-      channels.push(result);
-      try {
-        result.worstCaseBudget = cachedWorstCaseBudget(c);
-        // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
-        let full: ChannelResult['budget'] | null = null;
-        Object.defineProperty(result, 'budget', {
-          enumerable: true,
-          configurable: true,
-          get: () => (full === null ? (full = tryBudget(c)) : full),
-        });
-      } catch (err) {
-        // A tolerance corner outside the physics' domain: say so; the other checks still run.
-        sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}': the error budget cannot be computed: ${err instanceof Error ? err.message : String(err)}`);
-      }
-      const reported = new Set<string>();
-      for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink, reported });
+      channels.push(analyseOne(c, sink, input.cache));
     } catch (err) {
       // The resolver checks domains first; a physics guard firing here is still reported, not thrown.
       sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}' cannot be analysed: ${err instanceof Error ? err.message : String(err)}`);
@@ -81,6 +66,50 @@ export function analyse(input: AnalyseInput): Analysis {
   reportUsedFileProblems(files, sink);
   const diagnostics = sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1));
   return { path: entry, files, model, channels, diagnostics };
+}
+
+/**
+ * What was derived from a channel's content before: sweep and worst-case budget by content token
+ * (model/moved.ts: the same for a channel that only moved), and the checks' diagnostics of the very
+ * same definition object (a moved channel's diagnostics have other offsets, so its checks run again).
+ */
+interface Derived {
+  sweep: ChannelResult['sweep'];
+  summary: ChannelResult['summary'];
+  worstCaseBudget: NonNullable<ChannelResult['worstCaseBudget']>;
+  checked?: { channel: ChannelDef; diagnostics: Diagnostic[] };
+}
+
+const DERIVED = new WeakMap<object, Derived>();
+
+function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined): ChannelResult {
+  const token = contentToken(c);
+  let kept = DERIVED.get(token);
+  const result: ChannelResult = kept ? { channel: c, sweep: kept.sweep, summary: kept.summary } : cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
+  try {
+    result.worstCaseBudget = kept?.worstCaseBudget ?? cachedWorstCaseBudget(c);
+    if (!kept) DERIVED.set(token, (kept = { sweep: result.sweep, summary: result.summary, worstCaseBudget: result.worstCaseBudget }));
+    // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
+    let full: ChannelResult['budget'] | null = null;
+    Object.defineProperty(result, 'budget', {
+      enumerable: true,
+      configurable: true,
+      get: () => (full === null ? (full = tryBudget(c)) : full),
+    });
+  } catch (err) {
+    // A tolerance corner outside the physics' domain: say so; the other checks still run.
+    sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}': the error budget cannot be computed: ${err instanceof Error ? err.message : String(err)}`);
+  }
+  if (kept?.checked?.channel === c) {
+    sink.items.push(...kept.checked.diagnostics);
+    return result;
+  }
+  const local = new DiagnosticSink();
+  const reported = new Set<string>();
+  for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink: local, reported });
+  sink.items.push(...local.items);
+  if (kept) kept.checked = { channel: c, diagnostics: local.items };
+  return result;
 }
 
 function tryBudget(c: ChannelDef): ChannelResult['budget'] {

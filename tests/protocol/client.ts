@@ -68,6 +68,8 @@ export interface StartOptions {
   initializationOptions?: Record<string, unknown>;
   /** Declare window.workDoneProgress (server-created progress); the test answers window/workDoneProgress/create. */
   workDoneProgress?: boolean;
+  /** Node options before the server script (the editor's launch flags; --cpu-prof when profiling). */
+  nodeArgs?: string[];
 }
 
 export class TestClient {
@@ -82,7 +84,7 @@ export class TestClient {
   private constructor(readonly proc: ChildProcess, readonly conn: MessageConnection, readonly settings: Record<string, unknown>) {}
 
   static async start(opts: StartOptions = {}): Promise<TestClient> {
-    const proc = spawn(process.execPath, [CLI, 'serve', '--stdio'], { cwd: ROOT, stdio: ['pipe', 'pipe', 'pipe'] });
+    const proc = spawn(process.execPath, [...(opts.nodeArgs ?? []), CLI, 'serve', '--stdio'], { cwd: ROOT, stdio: ['pipe', 'pipe', 'pipe'] });
     const conn = createMessageConnection(new StreamMessageReader(proc.stdout!), new StreamMessageWriter(proc.stdin!));
     const client = new TestClient(proc, conn, opts.settings ?? {});
     proc.stderr!.on('data', (d: Buffer) => client.stderr.push(d.toString()));

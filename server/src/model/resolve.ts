@@ -1,6 +1,9 @@
 // Resolves parsed blocks into typed definitions (base SI units, defaults applied), reporting
 // unknown blocks and fields, duplicates, missing fields, wrong units and out-of-domain values.
-import type { BlockNode, FieldNode, Span, Term } from '../syntax/ast';
+import type { BlockNode, FieldNode, Span, Term, TopItem } from '../syntax/ast';
+import { pieceOrigin } from '../syntax/parse';
+import { contentToken, movedCopy, sameContent } from './moved';
+import { shiftOffsets } from '../syntax/shift';
 import { DiagnosticSink } from '../checks/diagnostic';
 import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
@@ -68,31 +71,81 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolut
   }
   for (const ref of blocks.values()) {
     if (ref.kind !== 'channel' || ref.file !== entry.path) continue;
-    const c = readChannel(ref, res, sink);
+    const c = rememberedChannel(ref, res, sink);
     if (c) res.channels.push(c);
   }
   return res;
 }
 
 /**
- * Definitions read from a block node before, with the diagnostics they gave. The parse cache hands
- * back the same node object for a block that an edit did not touch or move, so a keystroke re-reads
- * only the blocks it changed. A sensor or ADC depends on its own block alone; channels, which refer
- * to other blocks, are always read again.
+ * Definitions read from a block before, with the diagnostics they gave, by the block's piece of
+ * text (syntax/parse.ts pieceOrigin: the same base node for the same text). A keystroke re-reads
+ * only the blocks it changed; a block that only moved gets a moved copy of what it gave before.
+ * A sensor or ADC depends on its own block alone; a channel also on the sensor and ADC it names.
  */
-const REMEMBERED = new WeakMap<BlockNode, { file: string; def: unknown; diagnostics: DiagnosticSink['items'] }>();
+interface Remembered {
+  file: string;
+  /** Offset of the block's piece when `def` and `diagnostics` were made. */
+  by: number;
+  def: unknown;
+  diagnostics: DiagnosticSink['items'];
+}
 
-function remembered<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: DiagnosticSink) => T | null): T | null {
-  const hit = REMEMBERED.get(ref.node);
-  if (hit && hit.file === ref.file) {
-    sink.items.push(...hit.diagnostics);
-    return hit.def as T | null;
+const REMEMBERED = new WeakMap<TopItem, Remembered>();
+
+function recall(ref: BlockRef, sink: DiagnosticSink, accept: (hit: Remembered) => boolean, move: (hit: Remembered, by: number) => unknown): unknown | undefined {
+  const { base, by } = pieceOrigin(ref.node);
+  const hit = REMEMBERED.get(base);
+  if (!hit || hit.file !== ref.file || !accept(hit)) return undefined;
+  if (hit.by !== by) {
+    hit.def = move(hit, by - hit.by);
+    hit.diagnostics = movedCopy(hit.diagnostics, by - hit.by);
+    hit.by = by;
   }
+  sink.items.push(...hit.diagnostics);
+  return hit.def;
+}
+
+function remember<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: DiagnosticSink) => T | null): T | null {
   const local = new DiagnosticSink();
   const def = read(local);
   sink.items.push(...local.items);
-  REMEMBERED.set(ref.node, { file: ref.file, def, diagnostics: [...local.items] });
+  const { base, by } = pieceOrigin(ref.node);
+  REMEMBERED.set(base, { file: ref.file, by, def, diagnostics: [...local.items] });
   return def;
+}
+
+function remembered<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: DiagnosticSink) => T | null): T | null {
+  const hit = recall(ref, sink, () => true, (h, delta) => (h.def === null ? null : movedCopy(h.def as object, delta)));
+  return hit === undefined ? remember(ref, sink, read) : (hit as T | null);
+}
+
+/** A channel is kept while its block is the same text and the sensor and ADC it names have the same content. */
+function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
+  const sensorOf = (c: ChannelDef) => res.junctions.get(c.sensor.name) ?? res.resistiveSensors.get(c.sensor.name);
+  const adcOf = (c: ChannelDef) => res.adcs.get(c.adc.name);
+  const same = (a: object | undefined, b: object) => a !== undefined && contentToken(a) === contentToken(b);
+  const hit = recall(
+    ref,
+    sink,
+    (h) => h.def !== null && same(sensorOf(h.def as ChannelDef), (h.def as ChannelDef).sensor) && same(adcOf(h.def as ChannelDef), (h.def as ChannelDef).adc),
+    (h, delta) => {
+      // Its own spans move; the sensor and ADC are set to their current definitions below.
+      const c = h.def as ChannelDef;
+      const moved: ChannelDef = { ...shiftOffsets({ ...c, sensor: null, adc: null }, delta), sensor: c.sensor, adc: c.adc };
+      sameContent(moved, c);
+      return moved;
+    },
+  ) as ChannelDef | undefined;
+  if (hit === undefined) return remember(ref, sink, (into) => readChannel(ref, res, into));
+  const sensor = sensorOf(hit)!;
+  const adc = adcOf(hit)!;
+  if (hit.sensor === sensor && hit.adc === adc) return hit;
+  // The sensor or ADC moved: the same channel, pointing at their current definitions.
+  const current: ChannelDef = { ...hit, sensor, adc };
+  sameContent(current, hit);
+  REMEMBERED.get(pieceOrigin(ref.node).base)!.def = current;
+  return current;
 }
 
 /** Fields of a block by canonical name; reports unknown and repeated fields. */

@@ -25,8 +25,8 @@ export function loadWorkspace(entry: string, entryText: string, root: string, ho
   const rootAbs = path.resolve(root);
 
   const visit = (file: string, text: string, stack: string[]): LoadedFile => {
-    // Only the entry file changes keystroke by keystroke; used files are parsed whole.
-    const parsed = parse(text, stack.length === 1 ? parseCache : undefined);
+    // Used files have caches of their own, so their unchanged blocks keep their definitions too.
+    const parsed = parse(text, stack.length === 1 ? parseCache : parseCache?.forUsedFile(file));
     const loaded: LoadedFile = { path: file, text, parse: parsed, uses: [] };
     files.set(file, loaded);
     order.push(loaded);

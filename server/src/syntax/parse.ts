@@ -6,6 +6,7 @@
 
 import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
+import { shiftOffsets } from './shift';
 
 /**
  * Parses `text`. With a cache, the text is cut before every block header line and each piece is
@@ -16,12 +17,23 @@ export function parse(text: string, cache?: ParseCache): ParseResult {
   return cache ? cache.parse(text) : parseWhole(text);
 }
 
-const HEADER_LINE = /^[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/;
+// A block header at the start of a line (sticky: tested at each line start without slicing).
+const HEADER_AT = /[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/y;
 
 /** Reuse of parsed pieces between successive versions of one document. */
 export class ParseCache {
   /** Per piece text: its parse at offset 0, and the copy last placed (at `at`). */
   private pieces = new Map<string, { base: ParseResult; at: number; placed: ParseResult }>();
+
+  /** Caches of the files this document uses, by path (their definitions are then kept too). */
+  private readonly used = new Map<string, ParseCache>();
+
+  /** The cache for a file used by this document. */
+  forUsedFile(path: string): ParseCache {
+    let c = this.used.get(path);
+    if (!c) this.used.set(path, (c = new ParseCache()));
+    return c;
+  }
 
   parse(text: string): ParseResult {
     const next = new Map<string, { base: ParseResult; at: number; placed: ParseResult }>();
@@ -46,20 +58,36 @@ export class ParseCache {
 }
 
 function shiftResult(r: ParseResult, by: number): ParseResult {
-  return { tree: { ...r.tree, items: shift(r.tree.items, by) as TopItem[] }, problems: shift(r.problems, by) as SyntaxProblem[] };
+  const placed = { tree: { ...r.tree, items: shiftOffsets(r.tree.items, by) }, problems: shiftOffsets(r.problems, by) };
+  placed.tree.items.forEach((item, i) => ORIGIN.set(item, { base: r.tree.items[i]!, by }));
+  return placed;
+}
+
+/** For a top-level item placed by a ParseCache: the piece's parse at offset 0 and how far it was moved. */
+const ORIGIN = new WeakMap<TopItem, { base: TopItem; by: number }>();
+
+/**
+ * Where a top-level item came from: the same piece of text parsed at offset 0 (`base`, the same
+ * object for every placement of that text) and the offset it was moved by. Lets later stages keep
+ * what they derived from a block that only moved. Items of a whole parse are their own base.
+ */
+export function pieceOrigin(item: TopItem): { base: TopItem; by: number } {
+  return ORIGIN.get(item) ?? { base: item, by: 0 };
 }
 
 /** Offsets where block header lines start, as [start, end) pieces covering the text. */
 function pieces(text: string): Span[] {
   const cuts = [0];
   let lineStart = 0;
-  for (let i = 0; i <= text.length; i++) {
-    const ch = text.charCodeAt(i);
-    if (i === text.length || ch === 10 || ch === 13) {
-      if (lineStart > 0 && HEADER_LINE.test(text.slice(lineStart, Math.min(i, lineStart + 200)))) cuts.push(lineStart);
-      if (ch === 13 && text.charCodeAt(i + 1) === 10) i++;
-      lineStart = i + 1;
+  while (lineStart < text.length) {
+    // A header cannot span lines (the pattern has no line breaks), so matching at the line start suffices.
+    if (lineStart > 0) {
+      HEADER_AT.lastIndex = lineStart;
+      if (HEADER_AT.test(text)) cuts.push(lineStart);
     }
+    const nl = nextLineBreak(text, lineStart);
+    if (nl < 0) break;
+    lineStart = nl + (text.charCodeAt(nl) === 13 && text.charCodeAt(nl + 1) === 10 ? 2 : 1);
   }
   cuts.push(text.length);
   const out: Span[] = [];
@@ -67,21 +95,13 @@ function pieces(text: string): Span[] {
   return out;
 }
 
-/** A copy of a tree fragment with every span moved by `by` (spans are the only start/end keys). */
-function shift(node: unknown, by: number): unknown {
-  if (Array.isArray(node)) {
-    const out = new Array<unknown>(node.length);
-    for (let i = 0; i < node.length; i++) out[i] = shift(node[i], by);
-    return out;
+/** Offset of the next \n or \r at or after `from`, or -1. */
+function nextLineBreak(text: string, from: number): number {
+  for (let i = from; i < text.length; i++) {
+    const ch = text.charCodeAt(i);
+    if (ch === 10 || ch === 13) return i;
   }
-  if (node === null || typeof node !== 'object') return node;
-  const src = node as Record<string, unknown>;
-  const out: Record<string, unknown> = {};
-  for (const k in src) {
-    const v = src[k];
-    out[k] = (k === 'start' || k === 'end') && typeof v === 'number' ? v + by : typeof v === 'object' && v !== null ? shift(v, by) : v;
-  }
-  return out;
+  return -1;
 }
 
 function parseWhole(text: string): ParseResult {
