@@ -3,7 +3,7 @@
 import * as path from 'node:path';
 import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
 import { CHANNEL_CHECKS } from './checks/index';
-import { analyseChannel } from './analysis/sweep';
+import { analyseChannel, channelResult } from './analysis/sweep';
 import { cachedLiveBudget, cachedWorstCaseBudget } from './budget/cache';
 import { SweepCache } from './analysis/cache';
 import type { ParseCache } from './syntax/parse';
@@ -34,6 +34,11 @@ export interface AnalyseInput {
   cache?: SweepCache;
   /** Parsed pieces kept from earlier versions of the same document (optional). */
   parseCache?: ParseCache;
+  /**
+   * Compute each channel's worst-case error budget, which the accuracy check needs (default true).
+   * Without it every other check runs and `accuracy-unmet` is not reported.
+   */
+  errorBudget?: boolean;
 }
 
 export interface Analysis {
@@ -57,7 +62,7 @@ export function analyse(input: AnalyseInput): Analysis {
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {
-      channels.push(analyseOne(c, sink, input.cache));
+      channels.push(input.errorBudget === false ? analyseWithoutBudget(c, sink, input.cache) : analyseOne(c, sink, input.cache));
     } catch (err) {
       // The resolver checks domains first; a physics guard firing here is still reported, not thrown.
       sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}' cannot be analysed: ${err instanceof Error ? err.message : String(err)}`);
@@ -74,7 +79,7 @@ export function analyse(input: AnalyseInput): Analysis {
  * same definition object (a moved channel's diagnostics have other offsets, so its checks run again).
  */
 interface Derived {
-  sweep: ChannelResult['sweep'];
+  table: ChannelResult['table'];
   summary: ChannelResult['summary'];
   worstCaseBudget: NonNullable<ChannelResult['worstCaseBudget']>;
   checked?: { channel: ChannelDef; diagnostics: Diagnostic[] };
@@ -85,10 +90,10 @@ const DERIVED = new WeakMap<object, Derived>();
 function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined): ChannelResult {
   const token = contentToken(c);
   let kept = DERIVED.get(token);
-  const result: ChannelResult = kept ? { channel: c, sweep: kept.sweep, summary: kept.summary } : cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
+  const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
   try {
     result.worstCaseBudget = kept?.worstCaseBudget ?? cachedWorstCaseBudget(c);
-    if (!kept) DERIVED.set(token, (kept = { sweep: result.sweep, summary: result.summary, worstCaseBudget: result.worstCaseBudget }));
+    if (!kept) DERIVED.set(token, (kept = { table: result.table, summary: result.summary, worstCaseBudget: result.worstCaseBudget }));
     // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
     let full: ChannelResult['budget'] | null = null;
     Object.defineProperty(result, 'budget', {
@@ -109,6 +114,13 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | und
   for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink: local, reported });
   sink.items.push(...local.items);
   if (kept) kept.checked = { channel: c, diagnostics: local.items };
+  return result;
+}
+
+function analyseWithoutBudget(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined): ChannelResult {
+  const result = cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
+  const reported = new Set<string>();
+  for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink, reported });
   return result;
 }
 

@@ -3,6 +3,7 @@
 // except where it was written (spans, file), so a moved or reformatted channel is still a hit.
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult } from './types';
+import { channelResult } from './sweep';
 
 const POSITIONAL = new Set(['span', 'nameSpan', 'fieldSpans', 'file', 'given', 'closeSpan']);
 
@@ -17,15 +18,15 @@ export function channelKey(c: ChannelDef): string {
 
 /** A bounded cache of sweeps by channel key; keep one per open document. */
 export class SweepCache {
-  private map = new Map<string, Omit<ChannelResult, 'channel'>>();
+  private map = new Map<string, Pick<ChannelResult, 'table' | 'summary'>>();
   constructor(private readonly limit = 2000) {}
   get(c: ChannelDef, compute: () => ChannelResult): ChannelResult {
     const key = channelKey(c);
     const hit = this.map.get(key);
-    if (hit) return { channel: c, sweep: hit.sweep, summary: hit.summary };
+    if (hit) return channelResult(c, hit.table, hit.summary);
     const r = compute();
     if (this.map.size >= this.limit) this.map.clear();
-    this.map.set(key, { sweep: r.sweep, summary: r.summary });
+    this.map.set(key, { table: r.table, summary: r.summary });
     return r;
   }
 }

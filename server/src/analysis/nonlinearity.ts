@@ -1,35 +1,36 @@
 // Straight-line conversion error: how far T deviates from a line in V over the sweep.
 // End-point line through the two ends; best fit by ordinary least squares of T on V
 // (normal equations, e.g. any numerical-methods text; conditioned by centring the data).
-import type { Nonlinearity, SweepPoint } from './types';
+import type { Nonlinearity } from './types';
 
-export function nonlinearity(sweep: SweepPoint[]): Nonlinearity {
-  const n = sweep.length;
-  const first = sweep[0]!;
-  const last = sweep[n - 1]!;
+/** `volts[i]` is sensed at `celsius[i]`; both in sweep order. */
+export function nonlinearity(volts: ArrayLike<number>, celsius: ArrayLike<number>): Nonlinearity {
+  const n = volts.length;
+  const v0 = volts[0]!;
+  const t0 = celsius[0]!;
   let endPointK = 0;
-  const dv = last.volts - first.volts;
+  const dv = volts[n - 1]! - v0;
   if (n > 1 && dv !== 0) {
-    const k = (last.celsius - first.celsius) / dv;
-    for (const p of sweep) endPointK = Math.max(endPointK, Math.abs(first.celsius + (p.volts - first.volts) * k - p.celsius));
+    const k = (celsius[n - 1]! - t0) / dv;
+    for (let i = 0; i < n; i++) endPointK = Math.max(endPointK, Math.abs(t0 + (volts[i]! - v0) * k - celsius[i]!));
   }
   let mv = 0;
   let mt = 0;
-  for (const p of sweep) {
-    mv += p.volts;
-    mt += p.celsius;
+  for (let i = 0; i < n; i++) {
+    mv += volts[i]!;
+    mt += celsius[i]!;
   }
   mv /= n;
   mt /= n;
   let sxx = 0;
   let sxy = 0;
-  for (const p of sweep) {
-    sxx += (p.volts - mv) ** 2;
-    sxy += (p.volts - mv) * (p.celsius - mt);
+  for (let i = 0; i < n; i++) {
+    sxx += (volts[i]! - mv) ** 2;
+    sxy += (volts[i]! - mv) * (celsius[i]! - mt);
   }
   const slope = sxx > 0 ? sxy / sxx : 0;
   const intercept = mt - slope * mv;
   let bestFitK = 0;
-  if (sxx > 0) for (const p of sweep) bestFitK = Math.max(bestFitK, Math.abs(intercept + slope * p.volts - p.celsius));
+  if (sxx > 0) for (let i = 0; i < n; i++) bestFitK = Math.max(bestFitK, Math.abs(intercept + slope * volts[i]! - celsius[i]!));
   return { endPointK, bestFitK, fit: { interceptC: intercept, slopeCPerVolt: slope } };
 }

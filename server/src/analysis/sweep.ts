@@ -23,53 +23,114 @@ export function adcCode(volts: number, vref: number, bits: number): number {
 
 export function pointAt(c: ChannelDef, kelvin: number): SweepPoint {
   const p = sense(c, kelvin);
-  const countsPerKelvin = (Math.abs(p.slope) * 2 ** c.adc.bits) / c.adc.reference.value;
+  return pointOf(c, kelvin, p.volts, p.amps, p.slope, p.powerW, p.sourceOhms);
+}
+
+function pointOf(c: ChannelDef, kelvin: number, volts: number, amps: number, slope: number, powerW: number, sourceOhms: number): SweepPoint {
+  const countsPerKelvin = (Math.abs(slope) * 2 ** c.adc.bits) / c.adc.reference.value;
   return {
     celsius: kelvin - ZERO_CELSIUS_K,
     kelvin,
-    volts: p.volts,
-    amps: p.amps,
-    code: adcCode(p.volts, c.adc.reference.value, c.adc.bits),
-    slope: p.slope,
+    volts,
+    amps,
+    code: adcCode(volts, c.adc.reference.value, c.adc.bits),
+    slope,
     countsPerKelvin,
     celsiusPerCount: countsPerKelvin > 0 ? 1 / countsPerKelvin : Infinity,
-    selfHeatingK: p.powerW * c.thetaJA,
-    sourceOhms: p.sourceOhms,
+    selfHeatingK: powerW * c.thetaJA,
+    sourceOhms,
   };
+}
+
+/**
+ * The sweep held as columns, one array per figure. A sweep of 200 channels has tens of
+ * thousands of points; as objects (each number boxed) they cost several times the physics, and
+ * the checks need only the summary. Points are made when something asks for them (hover, plots,
+ * reports) and then kept.
+ */
+export class SweepTable {
+  // Plain arrays of doubles (unboxed in V8, on the managed heap): cheaper to make than typed arrays this size.
+  readonly kelvin: number[];
+  readonly volts: number[] = [];
+  readonly amps: number[] = [];
+  readonly slope: number[] = [];
+  readonly powerW: number[] = [];
+  readonly sourceOhms: number[] = [];
+  private made: SweepPoint[] | undefined;
+
+  constructor(readonly channel: ChannelDef, kelvins: number[]) {
+    this.kelvin = kelvins;
+    for (let i = 0; i < kelvins.length; i++) {
+      const p = sense(channel, kelvins[i]!);
+      this.volts.push(p.volts);
+      this.amps.push(p.amps);
+      this.slope.push(p.slope);
+      this.powerW.push(p.powerW);
+      this.sourceOhms.push(p.sourceOhms);
+    }
+  }
+
+  get length(): number {
+    return this.kelvin.length;
+  }
+
+  point(i: number): SweepPoint {
+    return pointOf(this.channel, this.kelvin[i]!, this.volts[i]!, this.amps[i]!, this.slope[i]!, this.powerW[i]!, this.sourceOhms[i]!);
+  }
+
+  points(): SweepPoint[] {
+    if (!this.made) this.made = Array.from({ length: this.length }, (_, i) => this.point(i));
+    return this.made;
+  }
+}
+
+/** A channel's result over a sweep table; `sweep` (the points) is made on first read. */
+export function channelResult(channel: ChannelDef, table: SweepTable, summary: ChannelSummary): ChannelResult {
+  const result = { channel, table, summary } as ChannelResult;
+  Object.defineProperty(result, 'sweep', { enumerable: true, configurable: true, get: () => table.points() });
+  return result;
 }
 
 export function analyseChannel(c: ChannelDef): ChannelResult {
-  const sweep = sweepKelvins(c).map((k) => pointAt(c, k));
-  return { channel: c, sweep, summary: summarise(c, sweep) };
+  const table = new SweepTable(c, sweepKelvins(c));
+  return channelResult(c, table, summarise(c, table));
 }
 
-function summarise(c: ChannelDef, sweep: SweepPoint[]): ChannelSummary {
-  let worst = sweep[0]!;
-  const s: ChannelSummary = {
-    points: sweep.length,
-    voltsMin: Infinity,
-    voltsMax: -Infinity,
-    ampsMin: Infinity,
-    ampsMax: -Infinity,
-    codeMin: Infinity,
-    codeMax: -Infinity,
-    worst,
-    selfHeatingMaxK: 0,
-    sourceOhmsMax: 0,
-    nonlinearity: nonlinearity(sweep),
-    lsbVolts: c.adc.reference.value / 2 ** c.adc.bits,
-  };
-  for (const p of sweep) {
-    s.voltsMin = Math.min(s.voltsMin, p.volts);
-    s.voltsMax = Math.max(s.voltsMax, p.volts);
-    s.ampsMin = Math.min(s.ampsMin, p.amps);
-    s.ampsMax = Math.max(s.ampsMax, p.amps);
-    s.codeMin = Math.min(s.codeMin, p.code);
-    s.codeMax = Math.max(s.codeMax, p.code);
-    s.selfHeatingMaxK = Math.max(s.selfHeatingMaxK, p.selfHeatingK);
-    s.sourceOhmsMax = Math.max(s.sourceOhmsMax, p.sourceOhms);
-    if (p.countsPerKelvin < worst.countsPerKelvin) worst = p;
+function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
+  const n = t.length;
+  let worst = 0;
+  const at = { voltsMin: 0, voltsMax: 0, ampsMin: 0, ampsMax: 0, selfHeatingMax: 0 };
+  let codeMin = Infinity;
+  let codeMax = -Infinity;
+  let sourceOhmsMax = 0;
+  const vref = c.adc.reference.value;
+  for (let i = 0; i < n; i++) {
+    if (t.volts[i]! < t.volts[at.voltsMin]!) at.voltsMin = i;
+    if (t.volts[i]! > t.volts[at.voltsMax]!) at.voltsMax = i;
+    if (t.amps[i]! < t.amps[at.ampsMin]!) at.ampsMin = i;
+    if (t.amps[i]! > t.amps[at.ampsMax]!) at.ampsMax = i;
+    if (t.powerW[i]! > t.powerW[at.selfHeatingMax]!) at.selfHeatingMax = i;
+    // Counts per kelvin are |slope| times a constant of the channel: the worst point has the smallest |slope|.
+    if (Math.abs(t.slope[i]!) < Math.abs(t.slope[worst]!)) worst = i;
+    const code = adcCode(t.volts[i]!, vref, c.adc.bits);
+    if (code < codeMin) codeMin = code;
+    if (code > codeMax) codeMax = code;
+    if (t.sourceOhms[i]! > sourceOhmsMax) sourceOhmsMax = t.sourceOhms[i]!;
   }
-  s.worst = worst;
-  return s;
+  const heat = t.point(at.selfHeatingMax);
+  return {
+    points: n,
+    voltsMin: t.volts[at.voltsMin]!,
+    voltsMax: t.volts[at.voltsMax]!,
+    ampsMin: t.amps[at.ampsMin]!,
+    ampsMax: t.amps[at.ampsMax]!,
+    codeMin,
+    codeMax,
+    worst: t.point(worst),
+    selfHeatingMaxK: Math.max(0, heat.selfHeatingK),
+    sourceOhmsMax,
+    nonlinearity: nonlinearity(t.volts, t.kelvin.map((k) => k - ZERO_CELSIUS_K)),
+    lsbVolts: vref / 2 ** c.adc.bits,
+    at: { voltsMin: t.point(at.voltsMin), voltsMax: t.point(at.voltsMax), ampsMin: t.point(at.ampsMin), ampsMax: t.point(at.ampsMax), selfHeatingMax: heat },
+  };
 }

@@ -46,11 +46,16 @@ export interface ChannelSummary {
   nonlinearity: Nonlinearity;
   /** LSB size, V. */
   lsbVolts: number;
+  /** The points where the extremes above are reached (the first such point of the sweep). */
+  at: { voltsMin: SweepPoint; voltsMax: SweepPoint; ampsMin: SweepPoint; ampsMax: SweepPoint; selfHeatingMax: SweepPoint };
 }
 
 export interface ChannelResult {
   channel: ChannelDef;
+  /** The sweep's points, made from `table` on first read (analysis/sweep.ts). */
   sweep: SweepPoint[];
+  /** The sweep as columns. */
+  table: import('./sweep').SweepTable;
   summary: ChannelSummary;
   /** Full error budget with Monte Carlo (budget/budget.ts), computed by analyse() on first read; absent when it could not be computed. */
   budget?: import('../budget/types').BudgetResult;

@@ -11,8 +11,7 @@ export function checkBiasWindow({ channel: c, result, sink, reported }: CheckCon
   if (reported.has('supply-too-low') || c.sensor.kind !== 'junction') return;
   const { ampsMin, ampsMax } = result.summary;
   if (ampsMin >= c.windowLowA && ampsMax <= c.windowHighA) return;
-  const atMin = result.sweep.find((p) => p.amps === ampsMin)!;
-  const atMax = result.sweep.find((p) => p.amps === ampsMax)!;
+  const { ampsMin: atMin, ampsMax: atMax } = result.summary.at;
   const suggestion = suggestResistor(c);
   const fix = suggestion ? `; a resistor of ${fmtOhm(suggestion.ohms)} (E24) gives ${fmtA(suggestion.ampsMin)} .. ${fmtA(suggestion.ampsMax)}` : '';
   const data = suggestion ? { suggestedOhms: suggestion.ohms } : undefined;

@@ -6,8 +6,7 @@ import { fmtC, fmtV } from './format';
 export function checkClip({ channel: c, result, sink }: CheckContext): void {
   const vref = c.adc.reference.value;
   const { voltsMax, voltsMin } = result.summary;
-  const hi = result.sweep.find((p) => p.volts === voltsMax)!;
-  const lo = result.sweep.find((p) => p.volts === voltsMin)!;
+  const { voltsMax: hi, voltsMin: lo } = result.summary.at;
   const span = fieldSpan(c, 'adc');
   if (voltsMax >= vref) {
     const neededRef = voltsMax * 1.05;
