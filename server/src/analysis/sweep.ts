@@ -100,8 +100,6 @@ function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
   const n = t.length;
   let worst = 0;
   const at = { voltsMin: 0, voltsMax: 0, ampsMin: 0, ampsMax: 0, selfHeatingMax: 0 };
-  let codeMin = Infinity;
-  let codeMax = -Infinity;
   let sourceOhmsMax = 0;
   const vref = c.adc.reference.value;
   for (let i = 0; i < n; i++) {
@@ -112,9 +110,6 @@ function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
     if (t.powerW[i]! > t.powerW[at.selfHeatingMax]!) at.selfHeatingMax = i;
     // Counts per kelvin are |slope| times a constant of the channel: the worst point has the smallest |slope|.
     if (Math.abs(t.slope[i]!) < Math.abs(t.slope[worst]!)) worst = i;
-    const code = adcCode(t.volts[i]!, vref, c.adc.bits);
-    if (code < codeMin) codeMin = code;
-    if (code > codeMax) codeMax = code;
     if (t.sourceOhms[i]! > sourceOhmsMax) sourceOhmsMax = t.sourceOhms[i]!;
   }
   const heat = t.point(at.selfHeatingMax);
@@ -124,8 +119,9 @@ function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
     voltsMax: t.volts[at.voltsMax]!,
     ampsMin: t.amps[at.ampsMin]!,
     ampsMax: t.amps[at.ampsMax]!,
-    codeMin,
-    codeMax,
+    // The ideal code is a non-decreasing function of the voltage: its extremes are at the voltage's.
+    codeMin: adcCode(t.volts[at.voltsMin]!, vref, c.adc.bits),
+    codeMax: adcCode(t.volts[at.voltsMax]!, vref, c.adc.bits),
     worst: t.point(worst),
     selfHeatingMaxK: Math.max(0, heat.selfHeatingK),
     sourceOhmsMax,

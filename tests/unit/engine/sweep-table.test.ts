@@ -29,6 +29,7 @@ describe('sweep table', () => {
         expect(s.at.ampsMax).toEqual(first('amps', Math.max));
         expect(s.at.selfHeatingMax).toEqual(first('selfHeatingK', Math.max));
         expect(s.worst.countsPerKelvin).toBe(Math.min(...r.sweep.map((p) => p.countsPerKelvin)));
+        expect([s.codeMin, s.codeMax]).toEqual([Math.min(...r.sweep.map((p) => p.code)), Math.max(...r.sweep.map((p) => p.code))]);
         expect([s.voltsMin, s.voltsMax, s.ampsMin, s.ampsMax]).toEqual([s.at.voltsMin.volts, s.at.voltsMax.volts, s.at.ampsMin.amps, s.at.ampsMax.amps]);
       }
     }
