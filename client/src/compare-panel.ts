@@ -5,12 +5,11 @@
 // is rebuilt on each answer. It follows edits of its spec (debounced).
 import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
+import { followEdits, LivePanel } from './live-panel';
 
 const COMMAND = 'thermoscribe.showComparison';
 const REQUEST = 'thermoscribe/compareData';
 const LANGUAGE_ID = 'tsense';
-/** Extra wait after the server's own debounce, so a burst of typing asks once. */
-const DEBOUNCE_MS = 400;
 
 interface CompareAnswer {
   ok: boolean;
@@ -28,9 +27,7 @@ const panels = new Map<string, ComparePanel>();
 export function registerComparePanel(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined): void {
   context.subscriptions.push(
     vscode.commands.registerCommand(COMMAND, (uri?: unknown, group?: unknown) => showComparison(getClient, uri, group)),
-    vscode.workspace.onDidChangeTextDocument((e) => {
-      for (const p of panels.values()) if (p.uri === e.document.uri.toString()) p.schedule();
-    }),
+    followEdits(panels),
   );
 }
 
@@ -54,55 +51,36 @@ function showComparison(getClient: () => LanguageClient | undefined, uriArg?: un
   panels.set(key, new ComparePanel(getClient, uri, group, () => panels.delete(key)));
 }
 
-class ComparePanel {
-  private readonly panel: vscode.WebviewPanel;
-  private timer: ReturnType<typeof setTimeout> | undefined;
-  private asked = 0;
+class ComparePanel extends LivePanel<string> {
   private readonly title: string;
 
-  constructor(private readonly getClient: () => LanguageClient | undefined, readonly uri: string, private readonly group: string | undefined, onDispose: () => void) {
-    const file = vscode.Uri.parse(uri).path.split('/').pop() ?? uri;
-    this.title = `Compare: ${group ?? file}`;
-    this.panel = vscode.window.createWebviewPanel('thermoscribe.compare', this.title, { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, {
+  constructor(private readonly getClient: () => LanguageClient | undefined, uri: string, private readonly group: string | undefined, onDispose: () => void) {
+    const title = `Compare: ${group ?? vscode.Uri.parse(uri).path.split('/').pop() ?? uri}`;
+    super(uri, vscode.window.createWebviewPanel('thermoscribe.compare', title, { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, {
       enableScripts: false,
       localResourceRoots: [],
-    });
+    }), onDispose);
+    this.title = title;
     this.panel.webview.html = page(this.title, `<p class="status">Computing the comparison…</p>`);
-    this.panel.onDidDispose(() => {
-      if (this.timer) clearTimeout(this.timer);
-      onDispose();
-    });
     void this.refresh();
   }
 
-  reveal(): void {
-    this.panel.reveal(undefined, true);
-    void this.refresh();
-  }
-
-  schedule(): void {
-    if (this.timer) clearTimeout(this.timer);
-    const serverDebounce = vscode.workspace.getConfiguration('thermoscribe').get<number>('debounceMs', 200);
-    this.timer = setTimeout(() => void this.refresh(), serverDebounce + DEBOUNCE_MS);
-  }
-
-  private async refresh(): Promise<void> {
-    const n = ++this.asked;
+  /** The page body: the tables, or the problem. */
+  protected async ask(): Promise<string> {
     const client = this.getClient();
-    let body: string;
-    if (!client?.isRunning()) body = problem('The language server is not running (see "Thermoscribe: Show Language Server Log").');
-    else {
-      try {
-        const answer = await client.sendRequest<CompareAnswer | null>(REQUEST, { uri: this.uri, group: this.group });
-        if (!answer) body = problem('The server could not compute the comparison (see the server log).');
-        else if (!answer.ok) body = problem(`${answer.message ?? 'no comparison'}${answer.groupNames.length ? `; groups: ${answer.groupNames.join(', ')}` : ''}`);
-        else body = tables(answer);
-      } catch (err) {
-        body = problem(err instanceof Error ? err.message : String(err));
-      }
+    if (!client?.isRunning()) return problem('The language server is not running (see "Thermoscribe: Show Language Server Log").');
+    try {
+      const answer = await client.sendRequest<CompareAnswer | null>(REQUEST, { uri: this.uri, group: this.group });
+      if (!answer) return problem('The server could not compute the comparison (see the server log).');
+      if (!answer.ok) return problem(`${answer.message ?? 'no comparison'}${answer.groupNames.length ? `; groups: ${answer.groupNames.join(', ')}` : ''}`);
+      return tables(answer);
+    } catch (err) {
+      return problem(err instanceof Error ? err.message : String(err));
     }
-    // A slow answer to an older request must not overwrite a newer one.
-    if (n === this.asked) this.panel.webview.html = page(this.title, body);
+  }
+
+  protected show(body: string): void {
+    this.panel.webview.html = page(this.title, body);
   }
 }
 

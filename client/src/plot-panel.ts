@@ -5,11 +5,10 @@
 import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
 import { specTarget } from './spec-target';
+import { followEdits, LivePanel } from './live-panel';
 
 const COMMAND = 'thermoscribe.showPlot';
 const REQUEST = 'thermoscribe/plotData';
-/** Extra wait after the server's own debounce, so a burst of typing asks once. */
-const DEBOUNCE_MS = 400;
 
 type PlotAnswer = { ok: true; data: unknown } | { ok: false; message: string; channels: string[] };
 
@@ -18,9 +17,7 @@ const panels = new Map<string, PlotPanel>();
 export function registerPlotPanel(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined): void {
   context.subscriptions.push(
     vscode.commands.registerCommand(COMMAND, (uri?: unknown, channel?: unknown) => showPlot(context, getClient, uri, channel)),
-    vscode.workspace.onDidChangeTextDocument((e) => {
-      for (const p of panels.values()) if (p.uri === e.document.uri.toString()) p.schedule();
-    }),
+    followEdits(panels),
   );
 }
 
@@ -55,54 +52,32 @@ async function showPlot(context: vscode.ExtensionContext, getClient: () => Langu
   panels.set(key, new PlotPanel(context, getClient, uri, channel, () => panels.delete(key)));
 }
 
-class PlotPanel {
-  private readonly panel: vscode.WebviewPanel;
-  private timer: ReturnType<typeof setTimeout> | undefined;
-  private asked = 0;
-
-  constructor(context: vscode.ExtensionContext, private readonly getClient: () => LanguageClient | undefined, readonly uri: string, private readonly channel: string, onDispose: () => void) {
-    const scripts = vscode.Uri.joinPath(context.extensionUri, 'dist', 'webview');
-    this.panel = vscode.window.createWebviewPanel('thermoscribe.plot', `Plots: ${channel}`, { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, {
+class PlotPanel extends LivePanel<unknown> {
+  constructor(context: vscode.ExtensionContext, private readonly getClient: () => LanguageClient | undefined, uri: string, private readonly channel: string, onDispose: () => void) {
+    super(uri, vscode.window.createWebviewPanel('thermoscribe.plot', `Plots: ${channel}`, { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, {
       enableScripts: true,
-      localResourceRoots: [scripts],
-    });
-    this.panel.webview.html = html(this.panel.webview, vscode.Uri.joinPath(scripts, 'plot-view.js'), channel);
+      localResourceRoots: [vscode.Uri.joinPath(context.extensionUri, 'dist', 'webview')],
+    }), onDispose);
+    this.panel.webview.html = html(this.panel.webview, vscode.Uri.joinPath(context.extensionUri, 'dist', 'webview', 'plot-view.js'), channel);
     this.panel.webview.onDidReceiveMessage((m: { type?: string }) => {
       if (m?.type === 'ready') void this.refresh();
     });
-    this.panel.onDidDispose(() => {
-      if (this.timer) clearTimeout(this.timer);
-      onDispose();
-    });
   }
 
-  reveal(): void {
-    this.panel.reveal(undefined, true);
-    void this.refresh();
-  }
-
-  schedule(): void {
-    if (this.timer) clearTimeout(this.timer);
-    const serverDebounce = vscode.workspace.getConfiguration('thermoscribe').get<number>('debounceMs', 200);
-    this.timer = setTimeout(() => void this.refresh(), serverDebounce + DEBOUNCE_MS);
-  }
-
-  private async refresh(): Promise<void> {
-    const n = ++this.asked;
+  protected async ask(): Promise<unknown> {
     const client = this.getClient();
-    let message: unknown;
-    if (!client?.isRunning()) message = { type: 'problem', message: 'The language server is not running.', channels: [] };
-    else {
-      try {
-        const answer = await client.sendRequest<PlotAnswer | null>(REQUEST, { uri: this.uri, channel: this.channel });
-        if (!answer) message = { type: 'problem', message: 'The server could not compute the plots (see the server log).', channels: [] };
-        else message = answer.ok ? { type: 'data', data: answer.data } : { type: 'problem', message: answer.message, channels: answer.channels };
-      } catch (err) {
-        message = { type: 'problem', message: err instanceof Error ? err.message : String(err), channels: [] };
-      }
+    if (!client?.isRunning()) return { type: 'problem', message: 'The language server is not running.', channels: [] };
+    try {
+      const answer = await client.sendRequest<PlotAnswer | null>(REQUEST, { uri: this.uri, channel: this.channel });
+      if (!answer) return { type: 'problem', message: 'The server could not compute the plots (see the server log).', channels: [] };
+      return answer.ok ? { type: 'data', data: answer.data } : { type: 'problem', message: answer.message, channels: answer.channels };
+    } catch (err) {
+      return { type: 'problem', message: err instanceof Error ? err.message : String(err), channels: [] };
     }
-    // A slow answer to an older request must not overwrite a newer one.
-    if (n === this.asked) void this.panel.webview.postMessage(message);
+  }
+
+  protected show(message: unknown): void {
+    void this.panel.webview.postMessage(message);
   }
 }
 

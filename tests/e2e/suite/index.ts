@@ -151,6 +151,18 @@ const checks: Check[] = [
     },
   },
   {
+    name: 'compare command: the comparison panel opens beside the sous-vide sample',
+    fn: async () => {
+      const doc = await open('samples/sous-vide.tsense');
+      await vscode.commands.executeCommand('thermoscribe.showComparison', doc.uri.toString(), 'bath');
+      const title = 'Compare: bath';
+      const deadline = Date.now() + 20_000;
+      const tabs = () => vscode.window.tabGroups.all.flatMap((g) => g.tabs).map((t) => t.label);
+      while (!tabs().includes(title) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+      assert(tabs().includes(title), `no tab '${title}' (tabs: ${tabs().join(', ')})`);
+    },
+  },
+  {
     name: 'restart command: the server comes back and republishes diagnostics',
     fn: async () => {
       assert(serverAnswered, 'skipped: the server published nothing for the problems sample');
