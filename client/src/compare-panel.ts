@@ -5,7 +5,7 @@
 // is rebuilt on each answer. It follows edits of its spec (debounced).
 import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
-import { followEdits, LivePanel } from './live-panel';
+import { escapeHtml, followEdits, LivePanel, webviewPage } from './live-panel';
 
 const COMMAND = 'thermoscribe.showComparison';
 const REQUEST = 'thermoscribe/compareData';
@@ -84,45 +84,30 @@ class ComparePanel extends LivePanel<string> {
   }
 }
 
-function esc(s: string): string {
-  return s.replace(/[<>&"']/g, (c) => `&#${c.charCodeAt(0)};`);
-}
-
 function problem(message: string): string {
-  return `<p class="status problem">${esc(message)}</p>`;
+  return `<p class="status problem">${escapeHtml(message)}</p>`;
 }
 
 function tables(a: CompareAnswer): string {
   const headers = a.headers ?? [];
   const out: string[] = [];
   for (const g of a.groups ?? []) {
-    out.push(`<h2>Measurement <code>${esc(g.name)}</code>: ${g.rows.length} candidate${g.rows.length === 1 ? '' : 's'}</h2>`);
-    out.push('<table><thead><tr>' + headers.map((h, i) => `<th class="${i < 2 ? 'text' : 'num'}">${esc(h)}</th>`).join('') + '</tr></thead><tbody>');
-    for (const row of g.cells) out.push('<tr>' + row.map((c, i) => `<td class="${i < 2 ? 'text' : 'num'}">${esc(c)}</td>`).join('') + '</tr>');
+    out.push(`<h2>Measurement <code>${escapeHtml(g.name)}</code>: ${g.rows.length} candidate${g.rows.length === 1 ? '' : 's'}</h2>`);
+    out.push('<table><thead><tr>' + headers.map((h, i) => `<th class="${i < 2 ? 'text' : 'num'}">${escapeHtml(h)}</th>`).join('') + '</tr></thead><tbody>');
+    for (const row of g.cells) out.push('<tr>' + row.map((c, i) => `<td class="${i < 2 ? 'text' : 'num'}">${escapeHtml(c)}</td>`).join('') + '</tr>');
     out.push('</tbody></table>');
-    const notes = g.rows.flatMap((r) => r.notes.map((n) => `<li><code>${esc(r.channel)}</code>: ${esc(n)}</li>`));
+    const notes = g.rows.flatMap((r) => r.notes.map((n) => `<li><code>${escapeHtml(r.channel)}</code>: ${escapeHtml(n)}</li>`));
     if (notes.length) out.push(`<ul class="notes">${notes.join('')}</ul>`);
   }
   if (a.errors) out.push(problem(`The spec has ${a.errors} error${a.errors === 1 ? '' : 's'}; channels with errors may be missing (see the problems list).`));
-  if (a.explain) out.push(`<p class="explain">${esc(a.explain)}</p>`);
-  if (a.caution) out.push(`<p class="caution">${esc(a.caution)}</p>`);
+  if (a.explain) out.push(`<p class="explain">${escapeHtml(a.explain)}</p>`);
+  if (a.caution) out.push(`<p class="caution">${escapeHtml(a.caution)}</p>`);
   return out.join('\n');
 }
 
 function page(title: string, body: string): string {
-  const nonce = Array.from({ length: 32 }, () => 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789'.charAt(Math.floor(Math.random() * 62))).join('');
   // No script, nothing remote: only the inline style, admitted by its nonce.
-  const csp = `default-src 'none'; style-src 'nonce-${nonce}';`;
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="UTF-8">
-<meta http-equiv="Content-Security-Policy" content="${csp}">
-<meta name="viewport" content="width=device-width, initial-scale=1.0">
-<title>${esc(title)}</title>
-<style nonce="${nonce}">
-  body { color: var(--vscode-editor-foreground); background: var(--vscode-editor-background); font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); padding: 8px 16px; }
-  h2 { font-size: 1.1em; font-weight: 600; margin: 16px 0 6px; }
+  const style = `  h2 { font-size: 1.1em; font-weight: 600; margin: 16px 0 6px; }
   table { border-collapse: collapse; margin-bottom: 6px; }
   th, td { padding: 3px 10px; border-bottom: 1px solid var(--vscode-panel-border, var(--vscode-editorWidget-border)); white-space: nowrap; }
   th { color: var(--vscode-descriptionForeground); font-weight: 600; }
@@ -132,11 +117,6 @@ function page(title: string, body: string): string {
   code { font-family: var(--vscode-editor-font-family); }
   .notes, .explain, .caution, .status { color: var(--vscode-descriptionForeground); }
   .problem { color: var(--vscode-errorForeground); }
-  .caution { border-left: 3px solid var(--vscode-editorWarning-foreground); padding-left: 8px; white-space: pre-line; }
-</style>
-</head>
-<body>
-${body}
-</body>
-</html>`;
+  .caution { border-left: 3px solid var(--vscode-editorWarning-foreground); padding-left: 8px; white-space: pre-line; }`;
+  return webviewPage(title, (nonce) => `default-src 'none'; style-src 'nonce-${nonce}';`, style, () => body);
 }

@@ -5,7 +5,7 @@
 import * as vscode from 'vscode';
 import type { LanguageClient } from '../../node_modules/vscode-languageclient/lib/node/main';
 import { specTarget } from './spec-target';
-import { followEdits, LivePanel } from './live-panel';
+import { escapeHtml, followEdits, LivePanel, webviewPage } from './live-panel';
 
 const COMMAND = 'thermoscribe.showPlot';
 const REQUEST = 'thermoscribe/plotData';
@@ -82,28 +82,12 @@ class PlotPanel extends LivePanel<unknown> {
 }
 
 function html(webview: vscode.Webview, script: vscode.Uri, channel: string): string {
-  const nonce = Array.from({ length: 32 }, () => 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789'.charAt(Math.floor(Math.random() * 62))).join('');
   // Nothing remote: the script comes from the extension, styles are inline with a nonce, images are data: URIs.
-  const csp = `default-src 'none'; script-src 'nonce-${nonce}'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:; font-src ${webview.cspSource};`;
-  const title = channel.replace(/[<>&"]/g, '');
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="UTF-8">
-<meta http-equiv="Content-Security-Policy" content="${csp}">
-<meta name="viewport" content="width=device-width, initial-scale=1.0">
-<title>Plots: ${title}</title>
-<style nonce="${nonce}">
-  body { color: var(--vscode-editor-foreground); background: var(--vscode-editor-background); font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); padding: 8px 16px; }
-  #status { color: var(--vscode-descriptionForeground); margin: 4px 0 8px; }
+  const csp = (nonce: string) => `default-src 'none'; script-src 'nonce-${nonce}'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:; font-src ${webview.cspSource};`;
+  const style = `  #status { color: var(--vscode-descriptionForeground); margin: 4px 0 8px; }
   #status.problem { color: var(--vscode-errorForeground); }
-  #chart svg { max-width: 100%; height: auto; }
-</style>
-</head>
-<body>
-<div id="status">Computing the plots of ${title}…</div>
+  #chart svg { max-width: 100%; height: auto; }`;
+  return webviewPage(`Plots: ${channel}`, csp, style, (nonce) => `<div id="status">Computing the plots of ${escapeHtml(channel)}…</div>
 <div id="chart" data-state="waiting"></div>
-<script nonce="${nonce}" src="${webview.asWebviewUri(script).toString()}"></script>
-</body>
-</html>`;
+<script nonce="${nonce}" src="${webview.asWebviewUri(script).toString()}"></script>`);
 }
