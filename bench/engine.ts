@@ -7,7 +7,7 @@ import { parse } from '../server/src/syntax/parse';
 import { DiskHost } from '../server/src/cli/io';
 import { junctionAtTemperature, operatingPointAt, solveResistorBiasAmps } from '../server/src/physics/junction';
 import { generateSpec } from './generate';
-import { median, timeRuns, verdict } from './stats';
+import { median, timeRuns, timeRunsOn, verdict } from './stats';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -65,18 +65,6 @@ export async function benchEngine(): Promise<void> {
   }, n);
   console.log(`  current only (solveResistorBiasAmps): ${(rawRate / 1e6).toFixed(2)} M solves/s  (target >= 2 M/s: ${verdict(rawRate >= 2e6)})`);
   console.log(`  full operating point with exact slope: ${(fullRate / 1e6).toFixed(2)} M solves/s`);
-}
-
-/** Times fn on inputs made before each run (the making is not timed); after 3 warm-up runs. */
-function timeRunsOn<T>(make: () => T, fn: (input: T) => void, runs: number): number[] {
-  const out: number[] = [];
-  for (let r = 0; r < runs + 3; r++) {
-    const input = make();
-    const t0 = process.hrtime.bigint();
-    fn(input);
-    if (r >= 3) out.push(Number(process.hrtime.bigint() - t0) / 1e6);
-  }
-  return out;
 }
 
 function rate(fn: () => number, n: number): number {

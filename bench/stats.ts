@@ -23,3 +23,15 @@ export function timeRuns(fn: () => void, runs: number, warmup = 3): number[] {
 export function verdict(ok: boolean): string {
   return ok ? 'PASS' : 'MISS';
 }
+
+/** Times fn on inputs made before each run (the making is not timed); after 3 warm-up runs. */
+export function timeRunsOn<T>(make: () => T, fn: (input: T) => void, runs: number): number[] {
+  const out: number[] = [];
+  for (let r = 0; r < runs + 3; r++) {
+    const input = make();
+    const t0 = process.hrtime.bigint();
+    fn(input);
+    if (r >= 3) out.push(Number(process.hrtime.bigint() - t0) / 1e6);
+  }
+  return out;
+}

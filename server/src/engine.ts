@@ -62,7 +62,7 @@ export function analyse(input: AnalyseInput): Analysis {
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {
-      channels.push(input.errorBudget === false ? analyseWithoutBudget(c, sink, input.cache) : analyseOne(c, sink, input.cache));
+      channels.push(analyseOne(c, sink, input.cache, input.errorBudget !== false));
     } catch (err) {
       // The resolver checks domains first; a physics guard firing here is still reported, not thrown.
       sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}' cannot be analysed: ${err instanceof Error ? err.message : String(err)}`);
@@ -87,11 +87,12 @@ interface Derived {
 
 const DERIVED = new WeakMap<object, Derived>();
 
-function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined): ChannelResult {
+function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined, withBudget: boolean): ChannelResult {
   const token = contentToken(c);
-  let kept = DERIVED.get(token);
+  // Without the budget nothing is kept (what is kept always carries one).
+  let kept = withBudget ? DERIVED.get(token) : undefined;
   const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
-  try {
+  if (withBudget) try {
     result.worstCaseBudget = kept?.worstCaseBudget ?? cachedWorstCaseBudget(c);
     if (!kept) DERIVED.set(token, (kept = { table: result.table, summary: result.summary, worstCaseBudget: result.worstCaseBudget }));
     // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
@@ -114,13 +115,6 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | und
   for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink: local, reported });
   sink.items.push(...local.items);
   if (kept) kept.checked = { channel: c, diagnostics: local.items };
-  return result;
-}
-
-function analyseWithoutBudget(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined): ChannelResult {
-  const result = cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
-  const reported = new Set<string>();
-  for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink, reported });
   return result;
 }
 
