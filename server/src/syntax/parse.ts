@@ -7,6 +7,7 @@
 import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 import { shiftOffsets } from './shift';
+import { readPieceFast } from './fast-reader';
 
 /**
  * Parses `text`. With a cache, the text is cut before every block header line and each piece is
@@ -14,7 +15,39 @@ import { shiftOffsets } from './shift';
  * parse); pieces seen in the previous parse are reused with their offsets moved.
  */
 export function parse(text: string, cache?: ParseCache): ParseResult {
-  return cache ? cache.parse(text) : parseWhole(text);
+  return cache ? cache.parse(text) : parseByPieces(text);
+}
+
+/**
+ * The same result with the generated parser alone on the whole text (the reference that the fast
+ * reader and the piecewise parse are tested against).
+ */
+export function parseWithGrammarOnly(text: string): ParseResult {
+  return parseWhole(text);
+}
+
+/** Each piece read by the fast reader, or by the generated parser when it holds an error line. */
+function parseByPieces(text: string): ParseResult {
+  const items: TopItem[] = [];
+  const problems: SyntaxProblem[] = [];
+  for (const { start, end } of pieces(text)) {
+    const fast = readPieceFast(text, start, end);
+    if (fast) {
+      for (const item of fast) items.push(item);
+      continue;
+    }
+    const slow = parseWhole(text.slice(start, end));
+    const placed = start === 0 ? slow : { tree: { ...slow.tree, items: shiftOffsets(slow.tree.items, start) }, problems: shiftOffsets(slow.problems, start) };
+    for (const item of placed.tree.items) items.push(item);
+    for (const p of placed.problems) problems.push(p);
+  }
+  return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
+}
+
+/** One piece at offset 0: the fast reader, else the generated parser. */
+function parsePiece(piece: string): ParseResult {
+  const fast = readPieceFast(piece, 0, piece.length);
+  return fast ? { tree: { kind: 'document', items: fast, span: { start: 0, end: piece.length } }, problems: [] } : parseWhole(piece);
 }
 
 // A block header at the start of a line (sticky: tested at each line start without slicing).
@@ -43,7 +76,7 @@ export class ParseCache {
       const piece = text.slice(start, end);
       let entry = next.get(piece) ?? this.pieces.get(piece);
       if (!entry) {
-        const base = parseWhole(piece);
+        const base = parsePiece(piece);
         entry = { base, at: 0, placed: base };
       }
       // A piece that did not move is reused as it is; one that moved is copied with new offsets.
