@@ -120,7 +120,7 @@ const BASE_UNIT: Record<Dimension, string> = {
 };
 
 /** Checks the domain of a quantity field and reports a precise range when it is outside. */
-export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: string): boolean {
+export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: string | (() => string)): boolean {
   const lowOk = form.min === undefined || (form.minInclusive ? value >= form.min : value > form.min);
   const highOk = form.max === undefined || value <= form.max;
   const intOk = !form.integer || Number.isInteger(value);
@@ -130,7 +130,7 @@ export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: 
   if (form.max !== undefined) parts.push(`at most ${form.max}`);
   const kind = form.integer ? 'a whole number ' : '';
   const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
-  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${shown})`);
+  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${typeof shown === 'string' ? shown : shown()})`);
   return false;
 }
 
@@ -144,7 +144,7 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
   if (!noExtra(terms, 1, ctx)) return null;
   const value = readQuantityValue(first, form.dimension, ctx, form.difference ?? false);
   if (value === null) return null;
-  if (!checkDomain(value, form, first.span, ctx, showValue(value, first))) return null;
+  if (!checkDomain(value, form, first.span, ctx, () => showValue(value, first))) return null;
   let tolerance = 0;
   if (first.tolerance) {
     if (!form.tolerance) {

@@ -183,13 +183,13 @@ export class BlockReader {
     return this.fields.get(name)?.node.value;
   }
   missing(name: string): void {
-    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const fs = fieldSpec(this.spec, name)!;
     this.sink.report('missing-field', this.ref.file, this.ref.node.name.span, `${this.spec.kind} '${this.ref.node.name.text}' needs '${name}', e.g. \`${fs.example}\``);
     this.ok = false;
   }
   /** A quantity field in base units, its default when absent, or null (and not ok) when bad. */
   quantity(name: string, fallback?: number): Toleranced | null {
-    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const fs = fieldSpec(this.spec, name)!;
     const terms = this.terms(name);
     if (!terms) {
       if (fallback === undefined) {
@@ -204,7 +204,7 @@ export class BlockReader {
     return q;
   }
   choice(name: string, fallback: string): string {
-    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const fs = fieldSpec(this.spec, name)!;
     const terms = this.terms(name);
     if (!terms || fs.form.form !== 'choice') return fallback;
     const t = terms[0]!;
@@ -218,7 +218,7 @@ export class BlockReader {
     return t.text;
   }
   range(name: string, fallback?: [number, number]): { low: number; high: number } | null {
-    const fs = this.spec.fields.find((f) => f.name === name)!;
+    const fs = fieldSpec(this.spec, name)!;
     const terms = this.terms(name);
     if (!terms) {
       if (!fallback) {

@@ -136,6 +136,16 @@ export function blockSpec(kind: string): BlockSpec | undefined {
   return Object.prototype.hasOwnProperty.call(BLOCKS, kind) ? BLOCKS[kind as BlockKind] : undefined;
 }
 
+/** Each block's fields by name and alias (the resolver asks once per field line, per keystroke). */
+const FIELD_INDEX = new WeakMap<BlockSpec, Map<string, FieldSpec>>();
+
 export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined {
-  return block.fields.find((f) => f.name === name || (f.aliases ?? []).includes(name));
+  let index = FIELD_INDEX.get(block);
+  if (!index) {
+    index = new Map();
+    // Reverse order so that, as with a first-match search, an earlier field wins a shared name.
+    for (const f of [...block.fields].reverse()) for (const n of [...(f.aliases ?? []), f.name]) index.set(n, f);
+    FIELD_INDEX.set(block, index);
+  }
+  return index.get(name);
 }
