@@ -1,7 +1,7 @@
 // The one place that asks a sensor model what the ADC sees at a temperature. Each sensor kind
 // (junction today) answers with the same figures, so sweeps, checks, budgets and code generation
 // work for every kind. Perturbed copies of a ChannelDef give tolerance corners.
-import { operatingPoint, operatingPointAt, junctionAtTemperature } from '../physics/junction';
+import { operatingPoint, operatingPointAt, junctionAtTemperature, sourceOhmsAt } from '../physics/junction';
 import type { Bias } from '../physics/types';
 import type { BiasDef, ChannelDef } from '../model/types';
 import type { JunctionDef, RtdDef, ThermistorDef } from '../model/types';
@@ -36,6 +36,10 @@ export function physicsBias(b: BiasDef): Bias {
 /** The nominal physics bias of each channel definition, made once (sweeps ask per point). */
 const biasOf = new WeakMap<ChannelDef, Bias>();
 
+/**
+ * What the ADC sees at one temperature. A sweep of a single-bias junction channel takes
+ * analysis/junction-sweep.ts instead, which gives the same numbers without an object per point.
+ */
 export function sense(c: ChannelDef, kelvin: number): SensedPoint {
   if (c.sensor.kind !== 'junction') return senseResistive(c, c.sensor, kelvin);
   if (c.secondBias) return senseTwoCurrent(c, c.secondBias, kelvin);
@@ -47,12 +51,8 @@ export function sense(c: ChannelDef, kelvin: number): SensedPoint {
     amps: op.amps,
     slope: op.slope,
     powerW: op.volts * op.amps,
-    sourceOhms: bias.kind === 'resistor' ? parallel(bias.ohms, op.dynamicOhms) : op.dynamicOhms,
+    sourceOhms: sourceOhmsAt(bias, op.dynamicOhms),
   };
-}
-
-function parallel(a: number, b: number): number {
-  return (a * b) / (a + b);
 }
 
 /**
@@ -73,7 +73,7 @@ function senseTwoCurrent(c: ChannelDef, second: BiasDef, kelvin: number): Sensed
     amps: hi.amps,
     slope: hi.slope - lo.slope,
     powerW: hi.volts * hi.amps,
-    sourceOhms: bHi.kind === 'resistor' ? parallel(bHi.ohms, hi.dynamicOhms) : hi.dynamicOhms,
+    sourceOhms: sourceOhmsAt(bHi, hi.dynamicOhms),
   };
 }
 

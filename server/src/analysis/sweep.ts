@@ -1,6 +1,7 @@
 // Sweeps a channel over its range: operating point, ADC code and resolution at each step.
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { sense } from './sense';
+import { nominalBias, sense } from './sense';
+import { senseJunctionColumns } from './junction-sweep';
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult, ChannelSummary, SweepPoint } from './types';
 import { nonlinearity } from './nonlinearity';
@@ -60,6 +61,12 @@ export class SweepTable {
 
   constructor(readonly channel: ChannelDef, kelvins: number[]) {
     this.kelvin = kelvins;
+    const s = channel.sensor;
+    // A single-bias junction: the point-free loop (same bits as sense()). Others: sense() per point.
+    if (s.kind === 'junction' && !channel.secondBias) {
+      senseJunctionColumns(s.params, nominalBias(channel), kelvins, this);
+      return;
+    }
     for (let i = 0; i < kelvins.length; i++) {
       const p = sense(channel, kelvins[i]!);
       this.volts.push(p.volts);
@@ -125,7 +132,7 @@ function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
     worst: t.point(worst),
     selfHeatingMaxK: Math.max(0, heat.selfHeatingK),
     sourceOhmsMax,
-    nonlinearity: nonlinearity(t.volts, t.kelvin.map((k) => k - ZERO_CELSIUS_K)),
+    nonlinearity: nonlinearity(t.volts, t.kelvin, ZERO_CELSIUS_K),
     lsbVolts: vref / 2 ** c.adc.bits,
     at: { voltsMin: t.point(at.voltsMin), voltsMax: t.point(at.voltsMax), ampsMin: t.point(at.ampsMin), ampsMax: t.point(at.ampsMax), selfHeatingMax: heat },
   };

@@ -29,14 +29,18 @@ function fritschFactor(w: number, z: number): number {
   return ((z / w1) * (1 - r)) / (1 - 2 * r);
 }
 
+// Built outside lambertW0, as the junction checks build theirs (physics/junction.ts): there a
+// template literal in a hot function slowed the sweep under V8 even with the throw never taken.
+function negativeArgumentError(x: number): RangeError {
+  return new RangeError(`lambertW0: argument must be a number >= 0 (got ${x})`);
+}
+
 /**
  * W0(x) for x >= 0, relative accuracy about 1e-16. W0(+Infinity) = +Infinity.
  * Throws RangeError for NaN or x < 0 (the lower branch region is not needed here).
  */
 export function lambertW0(x: number): number {
-  if (!(x >= 0)) {
-    throw new RangeError(`lambertW0: argument must be a number >= 0 (got ${x})`);
-  }
+  if (!(x >= 0)) throw negativeArgumentError(x);
   if (x === Infinity) return Infinity;
   if (x < SERIES_LIMIT) return x * (1 - x * (1 - 1.5 * x));
   if (x > Math.E) return lambertW0OfExp(Math.log(x));
