@@ -38,7 +38,7 @@ const biasOf = new WeakMap<ChannelDef, Bias>();
 
 /**
  * What the ADC sees at one temperature. A sweep of a single-bias junction channel takes
- * analysis/junction-sweep.ts instead, which gives the same numbers without an object per point.
+ * physics/junction.ts sweepJunction instead, which gives the same numbers without an object per point.
  */
 export function sense(c: ChannelDef, kelvin: number): SensedPoint {
   if (c.sensor.kind !== 'junction') return senseResistive(c, c.sensor, kelvin);

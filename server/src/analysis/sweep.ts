@@ -1,7 +1,7 @@
 // Sweeps a channel over its range: operating point, ADC code and resolution at each step.
 import { ZERO_CELSIUS_K } from '../physics/constants';
+import { sweepJunction } from '../physics/junction';
 import { nominalBias, sense } from './sense';
-import { senseJunctionColumns } from './junction-sweep';
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult, ChannelSummary, SweepPoint } from './types';
 import { nonlinearity } from './nonlinearity';
@@ -64,7 +64,7 @@ export class SweepTable {
     const s = channel.sensor;
     // A single-bias junction: the point-free loop (same bits as sense()). Others: sense() per point.
     if (s.kind === 'junction' && !channel.secondBias) {
-      senseJunctionColumns(s.params, nominalBias(channel), kelvins, this);
+      sweepJunction(s.params, nominalBias(channel), kelvins, this);
       return;
     }
     for (let i = 0; i < kelvins.length; i++) {

@@ -61,7 +61,7 @@ function requireFinite(name: string, value: number, min: number, minIncluded: bo
 }
 
 /** Throws unless the temperature is a finite number > 0 K (the first check of checkParams). */
-export function checkTemperature(kelvin: number): void {
+function checkTemperature(kelvin: number): void {
   requireFinite('temperature', kelvin, 0, false, ' K');
 }
 
@@ -69,7 +69,7 @@ export function checkTemperature(kelvin: number): void {
  * Checks the temperature, then the parameters. Only the first depends on the temperature: a sweep
  * checks the parameters with its first temperature and then only each further temperature.
  */
-export function checkParams(p: JunctionParams, kelvin: number): void {
+function checkParams(p: JunctionParams, kelvin: number): void {
   checkTemperature(kelvin);
   requireFinite('IS', p.IS, 0, false, ' A');
   requireFinite('N', p.N, 0, false, '');
@@ -99,27 +99,27 @@ function satLog(p: JunctionParams, kelvin: number): number {
 }
 
 /** d ln IS(T) / dT, 1/K (derivative of satLog, see above). */
-export function satLogSlope(p: JunctionParams, kelvin: number): number {
+function satLogSlope(p: JunctionParams, kelvin: number): number {
   const m = p.kind === 'diode' ? p.N : 1;
   return (p.EG / thermalVoltage(kelvin) + p.XTI) / (m * kelvin);
 }
 
 // The arithmetic below is split into small functions of numbers so that junctionAtTemperature and
-// operatingPointAt (one object per call) and the sweep's loop (analysis/junction-sweep.ts, no object
-// per point) run the very same floating-point operations and give the same bits.
+// operatingPointAt (one object per call) and sweepJunction (no object per point, at the end of this
+// file) run the very same floating-point operations and give the same bits.
 
 /** IS(T) before its range check, A (SPICE temperature law, see satLog). */
-export function satAmpsAt(p: JunctionParams, kelvin: number): number {
+function satAmpsAt(p: JunctionParams, kelvin: number): number {
   return p.IS * Math.exp(satLog(p, kelvin));
 }
 
 /** N * kT/q, V. */
-export function emissionVoltage(p: JunctionParams, kelvin: number): number {
+function emissionVoltage(p: JunctionParams, kelvin: number): number {
   return p.N * thermalVoltage(kelvin);
 }
 
 /** Throws unless IS(T) is a positive finite double. */
-export function checkSatAmps(p: JunctionParams, kelvin: number, satAmps: number): void {
+function checkSatAmps(p: JunctionParams, kelvin: number, satAmps: number): void {
   if (!(satAmps > 0 && satAmps < Infinity)) throw satAmpsError(p, kelvin);
 }
 
@@ -128,22 +128,22 @@ export function checkSatAmps(p: JunctionParams, kelvin: number, satAmps: number)
  * XTB = 0 (the SPICE default) skips the power: (T/TNOM)^0 is exactly 1 (ECMA-262 Math.pow), so
  * the result is BF either way.
  */
-export function betaFAt(p: JunctionParams, kelvin: number): number {
+function betaFAt(p: JunctionParams, kelvin: number): number {
   return p.XTB === 0 ? p.BF : p.BF * Math.pow(kelvin / p.TNOM, p.XTB);
 }
 
 /** Collector plus base current prefactor of the diode-connected BJT: IS(T)(e^(Vj/nVt) - 1)(1 + 1/BF(T)). */
-export function bjtIsx(satAmps: number, betaF: number): number {
+function bjtIsx(satAmps: number, betaF: number): number {
   return satAmps * (1 + 1 / betaF);
 }
 
 /** d ln isx/dT of the BJT: d ln(1 + 1/BF)/dT = -(1/BF)(XTB/T)/(1 + 1/BF) = -XTB / (T (BF + 1)). */
-export function bjtDLnIsxDT(p: JunctionParams, kelvin: number, dLnSatDT: number, betaF: number): number {
+function bjtDLnIsxDT(p: JunctionParams, kelvin: number, dLnSatDT: number, betaF: number): number {
   return dLnSatDT - p.XTB / (kelvin * (betaF + 1));
 }
 
 /** Throws unless BF(T) and isx are finite (and BF(T) > 0). */
-export function checkBetaF(p: JunctionParams, kelvin: number, betaF: number, isx: number): void {
+function checkBetaF(p: JunctionParams, kelvin: number, betaF: number, isx: number): void {
   if (!(betaF > 0 && betaF < Infinity && isx < Infinity)) throw betaFError(p, kelvin);
 }
 
@@ -227,7 +227,7 @@ export function solveResistorBiasAmps(isx: number, rt: number, nvt: number, supp
 }
 
 /** Throws unless the bias is usable: current finite >= 0 A; resistor finite > 0 ohm from a supply finite >= 0 V. */
-export function checkBias(bias: Bias): void {
+function checkBias(bias: Bias): void {
   if (bias.kind === 'current') {
     if (!(bias.amps >= 0 && bias.amps < Infinity)) throw finiteError('bias current', bias.amps, 0, true, ' A');
     return;
@@ -237,12 +237,12 @@ export function checkBias(bias: Bias): void {
 }
 
 /** Terminal current under a checked bias, A: the set current, or the resistor solve (solveResistorBiasAmps). */
-export function biasAmps(bias: Bias, isx: number, nVt: number, seriesOhms: number): number {
+function biasAmps(bias: Bias, isx: number, nVt: number, seriesOhms: number): number {
   return bias.kind === 'current' ? bias.amps : solveResistorBiasAmps(isx, bias.ohms + seriesOhms, nVt, bias.supply);
 }
 
 /** Intrinsic junction voltage Vj = nVt ln(I/isx + 1), V (the terminal law inverted). */
-export function junctionVoltsAt(nVt: number, amps: number, isx: number): number {
+function junctionVoltsAt(nVt: number, amps: number, isx: number): number {
   return nVt * Math.log1p(amps / isx);
 }
 
@@ -250,7 +250,7 @@ export function junctionVoltsAt(nVt: number, amps: number, isx: number): number 
  * Voltage at the terminals, V: Vj + I*RS. Equal to supply - I*R for the resistor bias, without
  * that subtraction's cancellation.
  */
-export function terminalVolts(junctionVolts: number, amps: number, seriesOhms: number): number {
+function terminalVolts(junctionVolts: number, amps: number, seriesOhms: number): number {
   return junctionVolts + amps * seriesOhms;
 }
 
@@ -258,7 +258,7 @@ export function terminalVolts(junctionVolts: number, amps: number, seriesOhms: n
  * dVj/dT at fixed current, V/K, by implicit differentiation. With Vj = nVt(T) ln(I/isx(T) + 1),
  * nVt proportional to T:  dVj/dT|I = Vj/T - nVt * I/(I + isx) * d ln isx/dT.  `u` is I + isx.
  */
-export function slopeAtFixedAmps(junctionVolts: number, kelvin: number, nVt: number, amps: number, u: number, dLnIsxDT: number): number {
+function slopeAtFixedAmps(junctionVolts: number, kelvin: number, nVt: number, amps: number, u: number, dLnIsxDT: number): number {
   return junctionVolts / kelvin - nVt * (amps / u) * dLnIsxDT;
 }
 
@@ -267,14 +267,14 @@ export function slopeAtFixedAmps(junctionVolts: number, kelvin: number, nVt: num
  * Resistor bias: G(I,T) = Vs - I*Rt - Vj(I,T) = 0, G_I = -(Rt + nVt/(I+isx)), G_T = -dVj/dT|I;
  * dI/dT = -G_T/G_I = dVj/dT|I / -(Rt + nVt/u); V = Vs - I*R gives dV/dT = -R dI/dT.
  */
-export function terminalSlope(bias: Bias, seriesOhms: number, dVjdTAtFixedI: number, nVt: number, u: number): number {
+function terminalSlope(bias: Bias, seriesOhms: number, dVjdTAtFixedI: number, nVt: number, u: number): number {
   if (bias.kind === 'current') return dVjdTAtFixedI;
   const rt = bias.ohms + seriesOhms;
   return (bias.ohms * dVjdTAtFixedI) / (rt + nVt / u);
 }
 
 /** Small-signal resistance of the junction plus RS, ohm: dVj/dI = nVt/(I + isx), plus RS. */
-export function dynamicOhmsAt(nVt: number, u: number, seriesOhms: number): number {
+function dynamicOhmsAt(nVt: number, u: number, seriesOhms: number): number {
   return nVt / u + seriesOhms;
 }
 
@@ -355,4 +355,60 @@ export function solveResistorBiasNewton(
   }
   const amps = isx * Math.expm1(v / nVt);
   return { amps, volts: v + amps * p.RS, junctionVolts: v, iterations };
+}
+
+/** A sweep's figures as columns, one array per field (analysis/sense.ts SensedPoint, analysis/sweep.ts SweepTable). */
+export interface SweepColumns {
+  volts: number[];
+  amps: number[];
+  slope: number[];
+  powerW: number[];
+  sourceOhms: number[];
+}
+
+/**
+ * Appends, for each temperature, what analysis/sense.ts sense() gives for a single-bias junction
+ * channel: volts, amps, slope, power (volts * amps) and source impedance (sourceOhmsAt), bit for bit
+ * (tests/unit/physics/sweep-fast.test.ts). A large spec is mostly such channels; per point, sense()
+ * makes several objects and checks the same parameters again. This loop runs junctionAtTemperature's
+ * and operatingPointAt's number functions in their order, without objects, and checks as they do:
+ * at the first temperature that temperature, the parameters, IS(T), BF(T), then the bias; at each
+ * later one the temperature, IS(T) and BF(T) (parameters and bias are the same all along, so
+ * checking them again could not fail). So bad input fails with the same message at the same point.
+ * It lives in this module because under the CommonJS transform that tests and bench run with, each
+ * call to another module's export goes through a getter, which made the loop slower than sense().
+ */
+export function sweepJunction(p: JunctionParams, bias: Bias, kelvins: readonly number[], out: SweepColumns): void {
+  const diode = p.kind === 'diode';
+  const seriesOhms = p.RS;
+  for (let i = 0; i < kelvins.length; i++) {
+    const kelvin = kelvins[i]!;
+    if (i === 0) checkParams(p, kelvin);
+    else checkTemperature(kelvin);
+    // junctionAtTemperature
+    const satAmps = satAmpsAt(p, kelvin);
+    const dLnSatDT = satLogSlope(p, kelvin);
+    const nVt = emissionVoltage(p, kelvin);
+    checkSatAmps(p, kelvin, satAmps);
+    let isx = satAmps;
+    let dLnIsxDT = dLnSatDT;
+    if (!diode) {
+      const betaF = betaFAt(p, kelvin);
+      isx = bjtIsx(satAmps, betaF);
+      dLnIsxDT = bjtDLnIsxDT(p, kelvin, dLnSatDT, betaF);
+      checkBetaF(p, kelvin, betaF, isx);
+    }
+    // operatingPointAt
+    if (i === 0) checkBias(bias);
+    const amps = biasAmps(bias, isx, nVt, seriesOhms);
+    const u = amps + isx;
+    const junctionVolts = junctionVoltsAt(nVt, amps, isx);
+    const volts = terminalVolts(junctionVolts, amps, seriesOhms);
+    // sense()
+    out.volts.push(volts);
+    out.amps.push(amps);
+    out.slope.push(terminalSlope(bias, seriesOhms, slopeAtFixedAmps(junctionVolts, kelvin, nVt, amps, u, dLnIsxDT), nVt, u));
+    out.powerW.push(volts * amps);
+    out.sourceOhms.push(sourceOhmsAt(bias, dynamicOhmsAt(nVt, u, seriesOhms)));
+  }
 }

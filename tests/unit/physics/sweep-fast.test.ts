@@ -1,5 +1,5 @@
 // The sweep of a single-bias junction channel is filled by a loop of its own
-// (server/src/analysis/junction-sweep.ts) that makes no object per point. Its columns must be the
+// (sweepJunction, server/src/physics/junction.ts) that makes no object per point. Its columns must be the
 // very doubles that sense() gives point by point, and bad input must fail with the same message at
 // the same point.
 //
@@ -15,7 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { analyse } from '../../../server/src/engine';
 import { DiskHost } from '../../../server/src/cli/io';
 import { nominalBias, sense } from '../../../server/src/analysis/sense';
-import { senseJunctionColumns, type SensedColumns } from '../../../server/src/analysis/junction-sweep';
+import { sweepJunction, type SweepColumns } from '../../../server/src/physics/junction';
 import { SweepTable, sweepKelvins } from '../../../server/src/analysis/sweep';
 import { nonlinearity } from '../../../server/src/analysis/nonlinearity';
 import { ZERO_CELSIUS_K } from '../../../server/src/physics/constants';
@@ -27,11 +27,11 @@ const ROOT = path.resolve(__dirname, '../../..');
 const FIELDS = ['volts', 'amps', 'slope', 'powerW', 'sourceOhms'] as const;
 
 interface Run {
-  cols: SensedColumns;
+  cols: SweepColumns;
   error?: string;
 }
 
-const emptyColumns = (): SensedColumns => ({ volts: [], amps: [], slope: [], powerW: [], sourceOhms: [] });
+const emptyColumns = (): SweepColumns => ({ volts: [], amps: [], slope: [], powerW: [], sourceOhms: [] });
 
 /** What the sweep gave before the loop existed: sense() per temperature, stopping at the first error. */
 function viaSense(c: ChannelDef, kelvins: readonly number[]): Run {
@@ -50,7 +50,7 @@ function viaSense(c: ChannelDef, kelvins: readonly number[]): Run {
 function viaLoop(c: ChannelDef, kelvins: readonly number[]): Run {
   const cols = emptyColumns();
   try {
-    senseJunctionColumns((c.sensor as JunctionDef).params, nominalBias(c), kelvins, cols);
+    sweepJunction((c.sensor as JunctionDef).params, nominalBias(c), kelvins, cols);
   } catch (err) {
     return { cols, error: (err as Error).message };
   }
@@ -58,7 +58,7 @@ function viaLoop(c: ChannelDef, kelvins: readonly number[]): Run {
 }
 
 /** Every point and field where `got` is not the very same double as `want` (at most a few listed). */
-function differences(label: string, got: SensedColumns, want: SensedColumns): string[] {
+function differences(label: string, got: SweepColumns, want: SweepColumns): string[] {
   const out: string[] = [];
   for (const f of FIELDS) {
     if (got[f].length !== want[f].length) out.push(`${label} ${f}: ${got[f].length} points, reference ${want[f].length}`);
