@@ -358,16 +358,17 @@ export function solveResistorBiasNewton(
 }
 
 /** A sweep's figures as columns, one array per field (analysis/sense.ts SensedPoint, analysis/sweep.ts SweepTable). */
+/** Columns written by index (typed arrays of the sweep's length, or plain arrays that grow). */
 export interface SweepColumns {
-  volts: number[];
-  amps: number[];
-  slope: number[];
-  powerW: number[];
-  sourceOhms: number[];
+  volts: number[] | Float64Array;
+  amps: number[] | Float64Array;
+  slope: number[] | Float64Array;
+  powerW: number[] | Float64Array;
+  sourceOhms: number[] | Float64Array;
 }
 
 /**
- * Appends, for each temperature, what analysis/sense.ts sense() gives for a single-bias junction
+ * Writes at index i, for each temperature kelvins[i], what analysis/sense.ts sense() gives for a single-bias junction
  * channel: volts, amps, slope, power (volts * amps) and source impedance (sourceOhmsAt), bit for bit
  * (tests/unit/physics/sweep-fast.test.ts). A large spec is mostly such channels; per point, sense()
  * makes several objects and checks the same parameters again. This loop runs junctionAtTemperature's
@@ -405,10 +406,10 @@ export function sweepJunction(p: JunctionParams, bias: Bias, kelvins: readonly n
     const junctionVolts = junctionVoltsAt(nVt, amps, isx);
     const volts = terminalVolts(junctionVolts, amps, seriesOhms);
     // sense()
-    out.volts.push(volts);
-    out.amps.push(amps);
-    out.slope.push(terminalSlope(bias, seriesOhms, slopeAtFixedAmps(junctionVolts, kelvin, nVt, amps, u, dLnIsxDT), nVt, u));
-    out.powerW.push(volts * amps);
-    out.sourceOhms.push(sourceOhmsAt(bias, dynamicOhmsAt(nVt, u, seriesOhms)));
+    out.volts[i] = volts;
+    out.amps[i] = amps;
+    out.slope[i] = terminalSlope(bias, seriesOhms, slopeAtFixedAmps(junctionVolts, kelvin, nVt, amps, u, dLnIsxDT), nVt, u);
+    out.powerW[i] = volts * amps;
+    out.sourceOhms[i] = sourceOhmsAt(bias, dynamicOhmsAt(nVt, u, seriesOhms));
   }
 }

@@ -26,12 +26,15 @@ import { generateSpec } from '../../../bench/generate';
 const ROOT = path.resolve(__dirname, '../../..');
 const FIELDS = ['volts', 'amps', 'slope', 'powerW', 'sourceOhms'] as const;
 
+/** Plain growing arrays: also shows how far the loop got before an error. */
+type Columns = SweepColumns & { [F in (typeof FIELDS)[number]]: number[] };
+
 interface Run {
-  cols: SweepColumns;
+  cols: Columns;
   error?: string;
 }
 
-const emptyColumns = (): SweepColumns => ({ volts: [], amps: [], slope: [], powerW: [], sourceOhms: [] });
+const emptyColumns = (): Columns => ({ volts: [], amps: [], slope: [], powerW: [], sourceOhms: [] });
 
 /** What the sweep gave before the loop existed: sense() per temperature, stopping at the first error. */
 function viaSense(c: ChannelDef, kelvins: readonly number[]): Run {
