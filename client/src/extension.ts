@@ -8,6 +8,7 @@ import { registerInsertConversion } from './insert-conversion';
 import { registerPlotPanel } from './plot-panel';
 import { registerRunBudget } from './run-budget';
 import { registerComparePanel } from './compare-panel';
+import { SERVER_NODE_FLAGS } from './server-flags';
 
 const LANGUAGE_ID = 'tsense';
 // Client id: vscode-languageclient reads the `thermoscribe.trace.server` setting from it.
@@ -41,8 +42,8 @@ function createClient(context: vscode.ExtensionContext, channel: vscode.LogOutpu
   // With TransportKind.stdio the client forks `module` under the extension host's own Node and
   // appends `--stdio` itself, so the server runs as `cli.js serve --stdio`.
   const serverOptions: ServerOptions = {
-    run: { module, transport: TransportKind.stdio, args: ['serve'] },
-    debug: { module, transport: TransportKind.stdio, args: ['serve'], options: { execArgv: ['--nolazy', '--inspect=6019'] } },
+    run: { module, transport: TransportKind.stdio, args: ['serve'], options: { execArgv: [...SERVER_NODE_FLAGS] } },
+    debug: { module, transport: TransportKind.stdio, args: ['serve'], options: { execArgv: [...SERVER_NODE_FLAGS, '--nolazy', '--inspect=6019'] } },
   };
   const clientOptions: LanguageClientOptions = {
     documentSelector: [

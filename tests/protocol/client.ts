@@ -5,9 +5,18 @@ import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { SERVER_NODE_FLAGS } from '../../client/src/server-flags';
 import { createMessageConnection, StreamMessageReader, StreamMessageWriter, type MessageConnection } from 'vscode-jsonrpc/node';
 
-export const ROOT = path.resolve(__dirname, '..', '..');
+/** The repository root: the nearest folder holding package.json (from tests/protocol, or from dist/ when bundled into the bench). */
+export const ROOT = findRoot(__dirname);
+
+function findRoot(from: string): string {
+  for (let dir = from; ; dir = path.dirname(dir)) {
+    if (fs.existsSync(path.join(dir, 'package.json'))) return dir;
+    if (path.dirname(dir) === dir) return path.resolve(__dirname, '..', '..');
+  }
+}
 export const CLI = path.join(ROOT, 'dist', 'cli.js');
 
 export interface Position { line: number; character: number }
@@ -68,7 +77,7 @@ export interface StartOptions {
   initializationOptions?: Record<string, unknown>;
   /** Declare window.workDoneProgress (server-created progress); the test answers window/workDoneProgress/create. */
   workDoneProgress?: boolean;
-  /** Node options before the server script (the editor's launch flags; --cpu-prof when profiling). */
+  /** Node options before the server script, after the editor's own launch flags (e.g. --cpu-prof when profiling). */
   nodeArgs?: string[];
 }
 
@@ -84,7 +93,8 @@ export class TestClient {
   private constructor(readonly proc: ChildProcess, readonly conn: MessageConnection, readonly settings: Record<string, unknown>) {}
 
   static async start(opts: StartOptions = {}): Promise<TestClient> {
-    const proc = spawn(process.execPath, [...(opts.nodeArgs ?? []), CLI, 'serve', '--stdio'], { cwd: ROOT, stdio: ['pipe', 'pipe', 'pipe'] });
+    // Started as the editor starts it (client/src/server-flags.ts).
+    const proc = spawn(process.execPath, [...SERVER_NODE_FLAGS, ...(opts.nodeArgs ?? []), CLI, 'serve', '--stdio'], { cwd: ROOT, stdio: ['pipe', 'pipe', 'pipe'] });
     const conn = createMessageConnection(new StreamMessageReader(proc.stdout!), new StreamMessageWriter(proc.stdin!));
     const client = new TestClient(proc, conn, opts.settings ?? {});
     proc.stderr!.on('data', (d: Buffer) => client.stderr.push(d.toString()));
