@@ -74,11 +74,14 @@ export class SweepTable {
   constructor(readonly channel: ChannelDef, kelvins: number[]) {
     this.kelvin = kelvins;
     const n = kelvins.length;
-    this.volts = new Float64Array(n);
-    this.amps = new Float64Array(n);
-    this.slope = new Float64Array(n);
-    this.powerW = new Float64Array(n);
-    this.sourceOhms = new Float64Array(n);
+    // One buffer, five views: making a typed array's buffer costs more than filling this one.
+    const buffer = new ArrayBuffer(5 * n * Float64Array.BYTES_PER_ELEMENT);
+    const view = (k: number) => new Float64Array(buffer, k * n * Float64Array.BYTES_PER_ELEMENT, n);
+    this.volts = view(0);
+    this.amps = view(1);
+    this.slope = view(2);
+    this.powerW = view(3);
+    this.sourceOhms = view(4);
     const s = channel.sensor;
     // A single-bias junction: the point-free loop (same bits as sense()). Others: sense() per point.
     if (s.kind === 'junction' && !channel.secondBias) {
