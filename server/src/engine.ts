@@ -58,7 +58,7 @@ export function analyse(input: AnalyseInput): Analysis {
   const root = path.resolve(input.root ?? path.dirname(entry));
   const sink = new DiagnosticSink();
   const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink, input.parseCache);
-  const model = resolveModel(files, sink);
+  const model = resolveModel(files, sink, input.parseCache !== undefined);
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {

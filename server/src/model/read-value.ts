@@ -15,6 +15,8 @@ export interface ReadContext {
 type QuantityForm = Extract<FieldForm, { form: 'quantity' }>;
 
 export function spanOf(terms: Term[]): Span {
+  // One term: its own span (spans are never changed in place; shift.ts makes copies).
+  if (terms.length === 1) return terms[0]!.span;
   return { start: terms[0]!.span.start, end: terms[terms.length - 1]!.span.end };
 }
 

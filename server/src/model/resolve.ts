@@ -31,7 +31,12 @@ export interface Resolution {
 
 const ZERO_C = 273.15;
 
-export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolution {
+/**
+ * `keep`: remember each block's definition for the next resolve of the same document (the language
+ * server's parse cache gives unchanged blocks the same nodes). Without a parse cache nothing could
+ * be found again, so nothing is kept.
+ */
+export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = true): Resolution {
   const entry = files[0]!;
   const blocks = new Map<string, BlockRef>();
   const res: Resolution = { blocks, junctions: new Map(), adcs: new Map(), channels: [], resistiveSensors: new Map() };
@@ -55,23 +60,23 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink): Resolut
   }
   for (const ref of blocks.values()) {
     if (ref.kind === 'junction') {
-      const j = remembered(ref, sink, (into) => readJunction(ref, into));
+      const j = remembered(ref, sink, keep, (into) => readJunction(ref, into));
       if (j) res.junctions.set(j.name, j);
     } else if (ref.kind === 'thermistor' || ref.kind === 'rtd') {
       const kind = ref.kind;
-      const d = remembered(ref, sink, (into) => {
+      const d = remembered(ref, sink, keep, (into) => {
         const r = new BlockReader(ref, BLOCKS[kind], into);
         return kind === 'thermistor' ? readThermistor(r, base(ref, r)) : readRtd(r, base(ref, r));
       });
       if (d) res.resistiveSensors.set(d.name, d);
     } else if (ref.kind === 'adc') {
-      const a = remembered(ref, sink, (into) => readAdc(ref, into));
+      const a = remembered(ref, sink, keep, (into) => readAdc(ref, into));
       if (a) res.adcs.set(a.name, a);
     }
   }
   for (const ref of blocks.values()) {
     if (ref.kind !== 'channel' || ref.file !== entry.path) continue;
-    const c = rememberedChannel(ref, res, sink);
+    const c = keep ? rememberedChannel(ref, res, sink) : readChannel(ref, res, sink);
     if (c) res.channels.push(c);
   }
   return res;
@@ -115,7 +120,8 @@ function remember<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: Diagnosti
   return def;
 }
 
-function remembered<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: DiagnosticSink) => T | null): T | null {
+function remembered<T>(ref: BlockRef, sink: DiagnosticSink, keep: boolean, read: (into: DiagnosticSink) => T | null): T | null {
+  if (!keep) return read(sink);
   const hit = recall(ref, sink, () => true, (h, delta) => (h.def === null ? null : movedCopy(h.def as object, delta)));
   return hit === undefined ? remember(ref, sink, read) : (hit as T | null);
 }
