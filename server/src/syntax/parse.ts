@@ -44,19 +44,13 @@ function parseByPieces(text: string): ParseResult {
   return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
 }
 
-/** One piece at offset 0: the fast reader, else the generated parser. */
-function parsePiece(piece: string): ParseResult {
-  const fast = readPieceFast(piece, 0, piece.length);
-  return fast ? { tree: { kind: 'document', items: fast, span: { start: 0, end: piece.length } }, problems: [] } : parseWhole(piece);
-}
-
 // A block header at the start of a line (sticky: tested at each line start without slicing).
 const HEADER_AT = /[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/y;
 
 /** Reuse of parsed pieces between successive versions of one document. */
 export class ParseCache {
-  /** Per piece text: its parse at offset 0, and the copy last placed (at `at`). */
-  private pieces = new Map<string, { base: ParseResult; at: number; placed: ParseResult }>();
+  /** Per piece text: its first parse (made at `baseAt`), and the copy last placed (at `at`). */
+  private pieces = new Map<string, PieceEntry>();
 
   /** Caches of the files this document uses, by path (their definitions are then kept too). */
   private readonly used = new Map<string, ParseCache>();
@@ -69,18 +63,21 @@ export class ParseCache {
   }
 
   parse(text: string): ParseResult {
-    const next = new Map<string, { base: ParseResult; at: number; placed: ParseResult }>();
+    const next = new Map<string, PieceEntry>();
     const items: TopItem[] = [];
     const problems: SyntaxProblem[] = [];
     for (const { start, end } of pieces(text)) {
       const piece = text.slice(start, end);
       let entry = next.get(piece) ?? this.pieces.get(piece);
       if (!entry) {
-        const base = parsePiece(piece);
-        entry = { base, at: 0, placed: base };
+        // A new well-formed piece is read where it stands (no copy); one with errors at offset 0.
+        const fast = readPieceFast(text, start, end);
+        const base = fast ? { tree: { kind: 'document' as const, items: fast, span: { start, end } }, problems: [] } : parseWhole(piece);
+        const baseAt = fast ? start : 0;
+        entry = { base, baseAt, at: baseAt, placed: base };
       }
       // A piece that did not move is reused as it is; one that moved is copied with new offsets.
-      if (entry.at !== start) entry = { base: entry.base, at: start, placed: shiftResult(entry.base, start) };
+      if (entry.at !== start) entry = { base: entry.base, baseAt: entry.baseAt, at: start, placed: shiftResult(entry.base, start - entry.baseAt) };
       next.set(piece, entry);
       items.push(...entry.placed.tree.items);
       problems.push(...entry.placed.problems);
@@ -90,19 +87,27 @@ export class ParseCache {
   }
 }
 
+/** A piece's first parse, made at offset `baseAt`, and the copy last placed at `at`. */
+interface PieceEntry {
+  base: ParseResult;
+  baseAt: number;
+  at: number;
+  placed: ParseResult;
+}
+
 function shiftResult(r: ParseResult, by: number): ParseResult {
   const placed = { tree: { ...r.tree, items: shiftOffsets(r.tree.items, by) }, problems: shiftOffsets(r.problems, by) };
   placed.tree.items.forEach((item, i) => ORIGIN.set(item, { base: r.tree.items[i]!, by }));
   return placed;
 }
 
-/** For a top-level item placed by a ParseCache: the piece's parse at offset 0 and how far it was moved. */
+/** For a top-level item placed by a ParseCache: the piece's first parse and how far it was moved from there. */
 const ORIGIN = new WeakMap<TopItem, { base: TopItem; by: number }>();
 
 /**
- * Where a top-level item came from: the same piece of text parsed at offset 0 (`base`, the same
- * object for every placement of that text) and the offset it was moved by. Lets later stages keep
- * what they derived from a block that only moved. Items of a whole parse are their own base.
+ * Where a top-level item came from: the first parse of the same piece of text (`base`, the same
+ * object for every placement of that text) and the offset it was moved by from there. Lets later
+ * stages keep what they derived from a block that only moved. Items not moved are their own base.
  */
 export function pieceOrigin(item: TopItem): { base: TopItem; by: number } {
   return ORIGIN.get(item) ?? { base: item, by: 0 };
