@@ -26,19 +26,17 @@ export async function benchEngine(): Promise<void> {
   const lines = big.split('\n').length;
   const channels = analyse({ path: '/bench/big.tsense', text: big }).channels.length;
   console.log(`  generated spec: ${channels} channels, ${lines} lines (every run below uses a spec no cache has seen)`);
-  const cold = coldFigures();
-  console.log(`    parse alone                                             ${cold.parse.toFixed(2)} ms`);
-  console.log(`    parse + analyse (every check but accuracy-unmet)        ${cold.analyse.toFixed(2)} ms  (in a node process with default options)`);
-  // The same in a process started as the editor starts the language server (its node options),
-  // where the engine runs while the user types.
-  const child = spawnSync(process.execPath, [...process.execArgv, ...SERVER_NODE_FLAGS, process.argv[1]!, COLD_ONLY], { encoding: 'utf8' });
-  const asServer = Number(/^analyse ([\d.]+)$/m.exec(child.stdout)?.[1]);
-  if (Number.isFinite(asServer)) {
-    console.log(`      as the language server runs (${SERVER_NODE_FLAGS.join(' ')})  ${asServer.toFixed(2)} ms  (target <= 20 ms: ${verdict(asServer <= 20)})`);
-  } else {
-    console.log(`      as the language server runs: could not be measured (${(child.stderr || child.error?.message || 'no output').trim().split('\n')[0]})`);
-  }
-  console.log(`    parse + analyse with the worst-case error budget        ${cold.budget.toFixed(2)} ms  (all checks; cold)`);
+  // Each cold figure in a node process of its own, so that one figure's garbage never lands in the
+  // next one's collections; the analysis also as the editor starts the language server.
+  const parseMs = coldInChild('parse', []);
+  const analyseMs = coldInChild('analyse', []);
+  const asServer = coldInChild('analyse', SERVER_NODE_FLAGS);
+  const budgetMs = coldInChild('budget', SERVER_NODE_FLAGS);
+  const ms = (v: number | string) => (typeof v === 'number' ? `${v.toFixed(2)} ms` : `not measured (${v})`);
+  console.log(`    parse alone                                             ${ms(parseMs)}`);
+  console.log(`    parse + analyse (every check but accuracy-unmet)        ${ms(analyseMs)}  (a node process with default options)`);
+  console.log(`      the same as the language server runs (${SERVER_NODE_FLAGS.join(' ')}): ${ms(asServer)}${typeof asServer === 'number' ? `  (target <= 20 ms: ${verdict(asServer <= 20)})` : ''}`);
+  console.log(`    parse + analyse with the worst-case error budget        ${ms(budgetMs)}  (all checks; as the server runs)`);
   // The language server keeps a ParseCache and SweepCache per document: after an edit only the
   // blocks it touched are read again. Retype the first channel's upper range end, each version new
   // (124, 123, ... 85 °C: from 99 on the edit also moves every block below it).
@@ -73,24 +71,35 @@ export async function benchEngine(): Promise<void> {
   console.log(`  full operating point with exact slope: ${(fullRate / 1e6).toFixed(2)} M solves/s`);
 }
 
-/** Command-line flag of the bench: print only the cold figures, for a process started with other node options. */
-export const COLD_ONLY = '--cold-only';
+/** Command-line flag of the bench: time one cold figure only (`--cold=analyse`) and print it. */
+const COLD = '--cold=';
+type ColdFigure = 'parse' | 'analyse' | 'budget';
 
-/** Cold parse and analyse of the 200-channel spec, medians; every run on a spec no cache has seen. */
-export function coldFigures(): { parse: number; analyse: number; budget: number } {
+/** Cold parse or analyse of the 200-channel spec, median; every run on a spec no cache has seen. */
+function coldFigure(what: ColdFigure): number {
   // Fresh variants so that no cache (budgets by content, definitions by parsed block) ever hits.
   let variant = 1;
   const fresh = () => generateSpec(200, variant++);
-  const parseMs = median(timeRunsOn(fresh, (t) => parse(t), 31));
-  const analyseMs = median(timeRunsOn(fresh, (t) => analyse({ path: '/bench/big.tsense', text: t, errorBudget: false }), 31));
-  const budgetMs = median(timeRunsOn(fresh, (t) => analyse({ path: '/bench/big.tsense', text: t }), 11));
-  return { parse: parseMs, analyse: analyseMs, budget: budgetMs };
+  if (what === 'parse') return median(timeRunsOn(fresh, (t) => parse(t), 31));
+  if (what === 'analyse') return median(timeRunsOn(fresh, (t) => analyse({ path: '/bench/big.tsense', text: t, errorBudget: false }), 31));
+  return median(timeRunsOn(fresh, (t) => analyse({ path: '/bench/big.tsense', text: t }), 11));
 }
 
-/** What a process started with COLD_ONLY prints (read back by benchEngine). */
-export function printColdOnly(): void {
-  const c = coldFigures();
-  console.log(`parse ${c.parse}\nanalyse ${c.analyse}\nbudget ${c.budget}`);
+/** Runs this bench again in a child with the given node options to time one cold figure. */
+function coldInChild(what: ColdFigure, nodeFlags: readonly string[]): number | string {
+  const child = spawnSync(process.execPath, [...process.execArgv, ...nodeFlags, process.argv[1]!, COLD + what], { encoding: 'utf8' });
+  const v = Number(/^cold ([\d.]+)$/m.exec(child.stdout)?.[1]);
+  return Number.isFinite(v) ? v : (child.stderr || child.error?.message || 'no output').trim().split('\n')[0]!;
+}
+
+/** True when this process was started to time one cold figure (it then prints it and stops). */
+export function runColdOnly(): boolean {
+  const arg = process.argv.find((a) => a.startsWith(COLD));
+  if (!arg) return false;
+  const what = arg.slice(COLD.length);
+  if (what !== 'parse' && what !== 'analyse' && what !== 'budget') throw new Error(`unknown cold figure '${what}'`);
+  console.log(`cold ${coldFigure(what)}`);
+  return true;
 }
 
 function rate(fn: () => number, n: number): number {
@@ -104,7 +113,4 @@ function rate(fn: () => number, n: number): number {
   return n / median(runs);
 }
 
-if (require.main === module) {
-  if (process.argv.includes(COLD_ONLY)) printColdOnly();
-  else void benchEngine();
-}
+if (require.main === module && !runColdOnly()) void benchEngine();

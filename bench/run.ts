@@ -1,6 +1,6 @@
 // npm run bench: every benchmark of the project, printed as figures (never asserted). Run from the
 // bundle dist/bench.js (scripts/bundle.mjs --bench), so the engine is timed as it ships.
-import { benchEngine, COLD_ONLY, printColdOnly } from './engine';
+import { benchEngine, runColdOnly } from './engine';
 import { benchBudget } from './budget';
 import { benchLsp } from './lsp';
 import { benchCodegen } from './codegen';
@@ -13,5 +13,4 @@ async function main(): Promise<void> {
   await benchCodegen();
 }
 
-if (process.argv.includes(COLD_ONLY)) printColdOnly();
-else void main();
+if (!runColdOnly()) void main();
