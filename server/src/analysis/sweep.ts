@@ -140,7 +140,11 @@ function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
     if (Math.abs(t.slope[i]!) < Math.abs(t.slope[worst]!)) worst = i;
     if (t.sourceOhms[i]! > sourceOhmsMax) sourceOhmsMax = t.sourceOhms[i]!;
   }
-  const heat = t.point(at.selfHeatingMax);
+  // Extremes often share a temperature (lowest voltage and highest current both at the hot end):
+  // one point object per temperature, as every point is kept as long as the result.
+  const made: SweepPoint[] = [];
+  const point = (i: number): SweepPoint => made.find((p) => p.kelvin === t.kelvin[i]) ?? (made[made.length] = t.point(i));
+  const heat = point(at.selfHeatingMax);
   return {
     points: n,
     voltsMin: t.volts[at.voltsMin]!,
@@ -150,11 +154,11 @@ function summarise(c: ChannelDef, t: SweepTable): ChannelSummary {
     // The ideal code is a non-decreasing function of the voltage: its extremes are at the voltage's.
     codeMin: adcCode(t.volts[at.voltsMin]!, vref, c.adc.bits),
     codeMax: adcCode(t.volts[at.voltsMax]!, vref, c.adc.bits),
-    worst: t.point(worst),
+    worst: point(worst),
     selfHeatingMaxK: Math.max(0, heat.selfHeatingK),
     sourceOhmsMax,
     nonlinearity: nonlinearity(t.volts, t.kelvin, ZERO_CELSIUS_K),
     lsbVolts: vref / 2 ** c.adc.bits,
-    at: { voltsMin: t.point(at.voltsMin), voltsMax: t.point(at.voltsMax), ampsMin: t.point(at.ampsMin), ampsMax: t.point(at.ampsMax), selfHeatingMax: heat },
+    at: { voltsMin: point(at.voltsMin), voltsMax: point(at.voltsMax), ampsMin: point(at.ampsMin), ampsMax: point(at.ampsMax), selfHeatingMax: heat },
   };
 }

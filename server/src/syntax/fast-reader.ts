@@ -61,6 +61,22 @@ function isUnitText(text: string): boolean {
   return known;
 }
 
+/**
+ * One string object per distinct short text (names, units, numbers repeat all over a spec): a
+ * tree keeps thousands of them, and each kept object is copied by every young-generation
+ * collection that finds it alive. The substring made for the lookup is short-lived garbage.
+ */
+const interned = new Map<string, string>();
+
+function intern(text: string): string {
+  if (text.length > 24) return text;
+  const known = interned.get(text);
+  if (known !== undefined) return known;
+  if (interned.size > 8192) interned.clear(); // random input must not grow it without bound
+  interned.set(text, text);
+  return text;
+}
+
 class Reader {
   private p: number;
   /** Set when the piece holds an error line or an unclosed block: the caller uses peggy. */
@@ -287,7 +303,7 @@ class Reader {
       const k = this.digits(j + 1);
       if (k > j + 1 && !isIdentChar(this.c(k))) {
         const t = this.t;
-        const text = t.substring(s, k);
+        const text = intern(t.substring(s, k));
         const value = (sign === MINUS ? -1 : 1) * Number(t.substring(signEnd, j) + '.' + t.substring(j + 1, k)) * IEC_MULTIPLIER[t[j]!]!;
         this.p = k;
         return { text, value, span: { start: s, end: k } };
@@ -312,7 +328,7 @@ class Reader {
       const m = this.digits(k);
       if (m > k) j = m;
     }
-    const text = this.t.substring(s, j);
+    const text = intern(this.t.substring(s, j));
     this.p = j;
     return { text, value: Number(text), span: { start: s, end: j } };
   }
@@ -340,7 +356,7 @@ class Reader {
       }
     }
     if (isIdentChar(this.c(i))) return null;
-    const text = this.t.substring(s, i);
+    const text = intern(this.t.substring(s, i));
     if (!isUnitText(text)) return null;
     this.p = i;
     return { text, span: { start: s, end: i } };
@@ -363,7 +379,7 @@ class Reader {
     let i = s + 1;
     while (isIdentChar(this.c(i))) i++;
     this.p = i;
-    return { text: this.t.substring(s, i), span: { start: s, end: i } };
+    return { text: intern(this.t.substring(s, i)), span: { start: s, end: i } };
   }
 
   /** Blank = _ Comment? Newline */
