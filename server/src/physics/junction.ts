@@ -51,6 +51,10 @@ function solverArgsError(isx: number, rt: number, nvt: number): RangeError {
   return new RangeError(`solveResistorBiasAmps: need finite isx > 0 A, rt > 0 ohm, nvt > 0 V (got ${isx}, ${rt}, ${nvt})`);
 }
 
+function solverOverflowError(): RangeError {
+  return new RangeError('solveResistorBiasAmps: rt/nvt, isx*rt/nvt or supply/nvt overflows a double');
+}
+
 function solverSupplyError(supply: number): RangeError {
   return new RangeError(`solveResistorBiasAmps: supply must be a finite number >= 0 V (got ${supply})`);
 }
@@ -198,17 +202,26 @@ export function terminalAmps(j: JunctionAtTemperature, junctionVolts: number): n
  * Arguments: isx > 0 A, rt > 0 ohm, nvt > 0 V, supply >= 0 V (all finite).
  */
 export function solveResistorBiasAmps(isx: number, rt: number, nvt: number, supply: number): number {
+  checkSolveArgs(isx, rt, nvt, supply);
+  return solveChecked(isx, rt, nvt, supply);
+}
+
+/** Throws what solveResistorBiasAmps throws for these arguments, before any solving. */
+function checkSolveArgs(isx: number, rt: number, nvt: number, supply: number): void {
   if (!(isx > 0 && isx < Infinity && rt > 0 && rt < Infinity && nvt > 0 && nvt < Infinity)) {
     throw solverArgsError(isx, rt, nvt);
   }
   if (!(supply >= 0 && supply < Infinity)) throw solverSupplyError(supply);
+  if (supply === 0) return;
+  if (!(rt / nvt < Infinity && isx * (rt / nvt) < Infinity && supply / nvt < Infinity)) throw solverOverflowError();
+}
+
+/** solveResistorBiasAmps after checkSolveArgs passed (see there). */
+function solveChecked(isx: number, rt: number, nvt: number, supply: number): number {
   if (supply === 0) return 0;
   const a = rt / nvt;
   const w0 = isx * a;
   const s = supply / nvt;
-  if (!(a < Infinity && w0 < Infinity && s < Infinity)) {
-    throw new RangeError('solveResistorBiasAmps: rt/nvt, isx*rt/nvt or supply/nvt overflows a double');
-  }
   // ln(w0) without underflow when isx*rt/nvt is below the double range.
   const lnW0 = w0 > 0 ? Math.log(w0) : Math.log(isx) + Math.log(a);
   const y = lambertW0OfExp(lnW0 + w0 + s);
@@ -368,48 +381,85 @@ export interface SweepColumns {
 }
 
 /**
- * Writes at index i, for each temperature kelvins[i], what analysis/sense.ts sense() gives for a single-bias junction
- * channel: volts, amps, slope, power (volts * amps) and source impedance (sourceOhmsAt), bit for bit
- * (tests/unit/physics/sweep-fast.test.ts). A large spec is mostly such channels; per point, sense()
- * makes several objects and checks the same parameters again. This loop runs junctionAtTemperature's
- * and operatingPointAt's number functions in their order, without objects, and checks as they do:
- * at the first temperature that temperature, the parameters, IS(T), BF(T), then the bias; at each
- * later one the temperature, IS(T) and BF(T) (parameters and bias are the same all along, so
- * checking them again could not fail). So bad input fails with the same message at the same point.
+ * Writes at index i, for each temperature kelvins[i], what analysis/sense.ts sense() gives for a
+ * single-bias junction channel: volts, amps, slope, power (volts * amps) and source impedance
+ * (sourceOhmsAt), bit for bit (tests/unit/physics/sweep-fast.test.ts). A large spec is mostly such
+ * channels; per point, sense() makes several objects and checks the same parameters again. This
+ * runs junctionAtTemperature's and operatingPointAt's number functions, without objects, in three
+ * passes over the columns:
+ * 1. every check, in sense()'s order (at the first temperature that temperature, the parameters,
+ *    IS(T), BF(T), then the bias; at each later one the temperature, IS(T) and BF(T); and at each
+ *    the resistor solve's own checks), and the per-temperature constants, kept in the columns;
+ * 2. the current: the bias current, or the resistor solve in a loop of its own, small enough for V8
+ *    to inline the solve (called from the big loop, every call boxed its numbers: 65 bytes of
+ *    garbage and about a third of the time per point);
+ * 3. the rest of each point.
+ * When a check fails at a point, the points before it are finished and the error is thrown: the
+ * same message at the same point, with the same columns, as sense() point by point.
  * It lives in this module because under the CommonJS transform that tests and bench run with, each
  * call to another module's export goes through a getter, which made the loop slower than sense().
  */
 export function sweepJunction(p: JunctionParams, bias: Bias, kelvins: readonly number[], out: SweepColumns): void {
   const diode = p.kind === 'diode';
   const seriesOhms = p.RS;
-  for (let i = 0; i < kelvins.length; i++) {
-    const kelvin = kelvins[i]!;
-    if (i === 0) checkParams(p, kelvin);
-    else checkTemperature(kelvin);
-    // junctionAtTemperature
-    const satAmps = satAmpsAt(p, kelvin);
-    const dLnSatDT = satLogSlope(p, kelvin);
-    const nVt = emissionVoltage(p, kelvin);
-    checkSatAmps(p, kelvin, satAmps);
-    let isx = satAmps;
-    let dLnIsxDT = dLnSatDT;
-    if (!diode) {
-      const betaF = betaFAt(p, kelvin);
-      isx = bjtIsx(satAmps, betaF);
-      dLnIsxDT = bjtDLnIsxDT(p, kelvin, dLnSatDT, betaF);
-      checkBetaF(p, kelvin, betaF, isx);
+  // Pass 1. Scratch: isx in powerW, nVt in sourceOhms, d ln isx/dT in slope.
+  let checked = 0;
+  try {
+    for (let i = 0; i < kelvins.length; i++) {
+      const kelvin = kelvins[i]!;
+      if (i === 0) checkParams(p, kelvin);
+      else checkTemperature(kelvin);
+      // junctionAtTemperature
+      const satAmps = satAmpsAt(p, kelvin);
+      const dLnSatDT = satLogSlope(p, kelvin);
+      const nVt = emissionVoltage(p, kelvin);
+      checkSatAmps(p, kelvin, satAmps);
+      let isx = satAmps;
+      let dLnIsxDT = dLnSatDT;
+      if (!diode) {
+        const betaF = betaFAt(p, kelvin);
+        isx = bjtIsx(satAmps, betaF);
+        dLnIsxDT = bjtDLnIsxDT(p, kelvin, dLnSatDT, betaF);
+        checkBetaF(p, kelvin, betaF, isx);
+      }
+      // operatingPointAt's checks
+      if (i === 0) checkBias(bias);
+      if (bias.kind === 'resistor') checkSolveArgs(isx, bias.ohms + seriesOhms, nVt, bias.supply);
+      out.powerW[i] = isx;
+      out.sourceOhms[i] = nVt;
+      out.slope[i] = dLnIsxDT;
+      checked = i + 1;
     }
+  } catch (err) {
+    finishPoints(bias, seriesOhms, kelvins, out, checked);
+    throw err;
+  }
+  finishPoints(bias, seriesOhms, kelvins, out, kelvins.length);
+}
+
+/** Passes 2 and 3 of sweepJunction for the first `count` points. */
+function finishPoints(bias: Bias, seriesOhms: number, kelvins: readonly number[], out: SweepColumns, count: number): void {
+  if (bias.kind === 'resistor') solveAmpsColumn(out.powerW, out.sourceOhms, bias.ohms + seriesOhms, bias.supply, out.amps, count);
+  else for (let i = 0; i < count; i++) out.amps[i] = bias.amps;
+  for (let i = 0; i < count; i++) {
+    const kelvin = kelvins[i]!;
+    const isx = out.powerW[i]!;
+    const nVt = out.sourceOhms[i]!;
+    const dLnIsxDT = out.slope[i]!;
+    const amps = out.amps[i]!;
     // operatingPointAt
-    if (i === 0) checkBias(bias);
-    const amps = biasAmps(bias, isx, nVt, seriesOhms);
     const u = amps + isx;
     const junctionVolts = junctionVoltsAt(nVt, amps, isx);
     const volts = terminalVolts(junctionVolts, amps, seriesOhms);
     // sense()
     out.volts[i] = volts;
-    out.amps[i] = amps;
     out.slope[i] = terminalSlope(bias, seriesOhms, slopeAtFixedAmps(junctionVolts, kelvin, nVt, amps, u, dLnIsxDT), nVt, u);
     out.powerW[i] = volts * amps;
     out.sourceOhms[i] = sourceOhmsAt(bias, dynamicOhmsAt(nVt, u, seriesOhms));
   }
+}
+
+/** amps[i] = solveResistorBiasAmps(isx[i], rt, nVt[i], supply) for arguments already checked. */
+function solveAmpsColumn(isx: ArrayLike<number>, nVt: ArrayLike<number>, rt: number, supply: number, amps: number[] | Float64Array, count: number): void {
+  for (let i = 0; i < count; i++) amps[i] = solveChecked(isx[i]!, rt, nVt[i]!, supply);
 }
