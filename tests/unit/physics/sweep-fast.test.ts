@@ -232,6 +232,21 @@ describe('junction sweep loop', () => {
     expect(differences('part-way', got.cols, want.cols)).toEqual([]);
   });
 
+  it("throws the resistor solve's own errors at the same point, as sense() does", () => {
+    // Reference: sense() (solveResistorBiasAmps checks nVt > 0 and that rt/nVt stays a double).
+    const p = (template.sensor as JunctionDef).params;
+    const resistor = (ohms: number): BiasDef => ({ kind: 'resistor', ohms: tol(ohms), supply: tol(3.3), span });
+    for (const [params, bias, message] of [
+      [{ ...p, N: 5e-324 }, resistor(100e3), /need finite isx > 0 A, rt > 0 ohm, nvt > 0 V/],
+      [p, resistor(1e307), /overflows a double/],
+    ] as const) {
+      const c = withJunction(params, bias);
+      const want = viaSense(c, [300, 310]);
+      expect(want.error).toMatch(message);
+      expect(viaLoop(c, [300, 310])).toEqual(want);
+    }
+  });
+
   it('reports IS(T) at the first temperature before a bad bias, as sense() does', () => {
     // Reference: sense() (junctionAtTemperature runs before operatingPointAt checks the bias).
     const bad: BiasDef = { kind: 'resistor', ohms: tol(0), supply: tol(3.3), span };
