@@ -63,7 +63,7 @@ export class SweepTable {
   readonly kelvin: number[];
   // Typed arrays: their numbers live outside the JS heap, so the collector never copies them. A
   // cold 200-channel analysis keeps 1.6 MB of them; as plain arrays each young-generation
-  // collection copied them again (measured: about a seventh less time in collections).
+  // collection copied them again (measured over 60 cold analyses: 14–24 % less time in those collections).
   readonly volts: Float64Array;
   readonly amps: Float64Array;
   readonly slope: Float64Array;
