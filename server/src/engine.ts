@@ -96,12 +96,7 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | und
     result.worstCaseBudget = kept?.worstCaseBudget ?? cachedWorstCaseBudget(c);
     if (!kept) DERIVED.set(token, (kept = { table: result.table, summary: result.summary, worstCaseBudget: result.worstCaseBudget }));
     // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
-    let full: ChannelResult['budget'] | null = null;
-    Object.defineProperty(result, 'budget', {
-      enumerable: true,
-      configurable: true,
-      get: () => (full === null ? (full = tryBudget(c)) : full),
-    });
+    Object.defineProperty(result, 'budget', BUDGET);
   } catch (err) {
     // A tolerance corner outside the physics' domain: say so; the other checks still run.
     sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}': the error budget cannot be computed: ${err instanceof Error ? err.message : String(err)}`);
@@ -117,6 +112,22 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | und
   if (kept) kept.checked = { channel: c, diagnostics: local.items };
   return result;
 }
+
+/** Monte Carlo budgets made so far, by result (see BUDGET). */
+const FULL_BUDGETS = new WeakMap<ChannelResult, ChannelResult['budget']>();
+
+/**
+ * `budget` of every channel result: one getter for all (a closure per result gives each its own
+ * hidden class, which V8 keeps until a full collection, and the result with it; see analysis/sweep.ts).
+ */
+const BUDGET = {
+  enumerable: true,
+  configurable: true,
+  get(this: ChannelResult): ChannelResult['budget'] {
+    if (!FULL_BUDGETS.has(this)) FULL_BUDGETS.set(this, tryBudget(this.channel));
+    return FULL_BUDGETS.get(this);
+  },
+};
 
 function tryBudget(c: ChannelDef): ChannelResult['budget'] {
   try {
