@@ -31,17 +31,22 @@ function parseByPieces(text: string): ParseResult {
   const items: TopItem[] = [];
   const problems: SyntaxProblem[] = [];
   for (const { start, end } of pieces(text)) {
-    const fast = readPieceFast(text, start, end);
-    if (fast) {
-      for (const item of fast) items.push(item);
-      continue;
-    }
-    const slow = parseWhole(text.slice(start, end));
-    const placed = start === 0 ? slow : { tree: { ...slow.tree, items: shiftOffsets(slow.tree.items, start) }, problems: shiftOffsets(slow.problems, start) };
-    for (const item of placed.tree.items) items.push(item);
-    for (const p of placed.problems) problems.push(p);
+    const { base, baseAt } = readPiece(text, start, end);
+    const by = start - baseAt;
+    for (const item of by === 0 ? base.tree.items : shiftOffsets(base.tree.items, by)) items.push(item);
+    for (const p of by === 0 ? base.problems : shiftOffsets(base.problems, by)) problems.push(p);
   }
   return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
+}
+
+/**
+ * One piece of `text`: a well-formed one read by the fast reader where it stands (`baseAt` = start),
+ * one with an error line by the generated parser at offset 0 (`baseAt` = 0).
+ */
+function readPiece(text: string, start: number, end: number): { base: ParseResult; baseAt: number } {
+  const fast = readPieceFast(text, start, end);
+  if (fast) return { base: { tree: { kind: 'document', items: fast, span: { start, end } }, problems: [] }, baseAt: start };
+  return { base: parseWhole(text.slice(start, end)), baseAt: 0 };
 }
 
 // A block header at the start of a line (sticky: tested at each line start without slicing).
@@ -70,10 +75,7 @@ export class ParseCache {
       const piece = text.slice(start, end);
       let entry = next.get(piece) ?? this.pieces.get(piece);
       if (!entry) {
-        // A new well-formed piece is read where it stands (no copy); one with errors at offset 0.
-        const fast = readPieceFast(text, start, end);
-        const base = fast ? { tree: { kind: 'document' as const, items: fast, span: { start, end } }, problems: [] } : parseWhole(piece);
-        const baseAt = fast ? start : 0;
+        const { base, baseAt } = readPiece(text, start, end);
         entry = { base, baseAt, at: baseAt, placed: base };
       }
       // A piece that did not move is reused as it is; one that moved is copied with new offsets.
