@@ -122,7 +122,8 @@ const BASE_UNIT: Record<Dimension, string> = {
 };
 
 /** Checks the domain of a quantity field and reports a precise range when it is outside. */
-export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: string | (() => string)): boolean {
+/** `shown` gives the value as written, for the message (made only when there is one). */
+export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: () => string): boolean {
   const lowOk = form.min === undefined || (form.minInclusive ? value >= form.min : value > form.min);
   const highOk = form.max === undefined || value <= form.max;
   const intOk = !form.integer || Number.isInteger(value);
@@ -132,7 +133,7 @@ export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: 
   if (form.max !== undefined) parts.push(`at most ${form.max}`);
   const kind = form.integer ? 'a whole number ' : '';
   const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
-  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${typeof shown === 'string' ? shown : shown()})`);
+  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${shown()})`);
   return false;
 }
 
