@@ -102,14 +102,23 @@ export async function walkAsUser(context: BrowserContext, baseUrl: string, works
       await page.keyboard.press('Control+Shift+M');
       const name = page.locator('.monaco-editor .view-line span', { hasText: /^door_seal$/ }).first();
       await name.waitFor({ state: 'visible', timeout: LIMIT });
-      await name.hover();
       // The widget shows "Loading..." until the server answers; wait for real content.
       // (A string: this runs in the page, and the project compiles without DOM types.)
-      await page.waitForFunction(`(() => {
+      const shown = `(() => {
         const el = document.querySelector('.monaco-hover:not(.hidden)');
         const text = el ? el.innerText : '';
         return text.trim().length > 0 && !/Loading/.test(text);
-      })()`, undefined, { timeout: LIMIT });
+      })()`;
+      // Code lenses and inlay hints arriving after the pointer came to rest can move the line away
+      // from under it, and the editor then shows no hover: point at the name again until one shows.
+      const deadline = Date.now() + LIMIT;
+      for (;;) {
+        await page.mouse.move(0, 0);
+        await name.hover();
+        const ok = await page.waitForFunction(shown, undefined, { timeout: 10_000 }).then(() => true, () => false);
+        if (ok) break;
+        if (Date.now() > deadline) throw new Error(`no hover with content within ${LIMIT} ms`);
+      }
       const text = (await page.locator('.monaco-hover:not(.hidden)').first().innerText()).replace(/\s+/g, ' ').trim();
       await page.screenshot({ path: path.join(outDir, 'hover.png') });
       if (text.length === 0) throw new Error('hover is empty');
