@@ -3,12 +3,12 @@
 // fails when README.md is stale.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { BLOCKS } from '../server/src/model/schema';
+import { allBlocks } from '../server/src/model/schema';
 import { CATALOGUE } from '../server/src/checks/catalogue';
 
 export function fieldReference(): string {
   const out: string[] = [];
-  for (const b of Object.values(BLOCKS)) {
+  for (const b of allBlocks().values()) {
     out.push(`#### \`${b.kind}\``, '', b.doc, '', '| field | default | meaning | example |', '| --- | --- | --- | --- |');
     for (const f of b.fields) {
       const name = [f.name, ...(f.aliases ?? [])].map((n) => `\`${n}\``).join(' or ');

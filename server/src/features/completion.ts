@@ -3,7 +3,8 @@
 // the names, options or forms the field takes; after a number the units of its dimension.
 import type { Analysis } from '../engine';
 import type { BlockNode, Span } from '../syntax/ast';
-import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
+import { blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
+import { sensorKind, sensorKinds } from '../sensors/registry';
 import type { Dimension } from '../model/units';
 import { blockAt } from './locate';
 import { formatSI, trimNumber } from './figures';
@@ -55,15 +56,13 @@ function topLevel(replace: Span): CompletionItem[] {
     label: kind,
     kind: 'keyword',
     detail: `${kind} block`,
-    documentation: BLOCKS[kind].doc,
+    documentation: blockSpec(kind)!.doc,
     insertText: `${kind} \${1:name} {\n${body}\n}`,
     snippet: true,
     replace,
   });
   return [
-    block('junction', '  kind = ${2:npn}\n  IS   = ${3:10 fA}'),
-    block('thermistor', '  r25         = ${2:10k ± 1 %}\n  beta        = ${3:3950 K ± 1 %}\n  dissipation = ${4:1.5 mW/K}'),
-    block('rtd', '  r0    = ${2:1000}\n  class = ${3|AA,A,B,C|}'),
+    ...sensorKinds().map((k) => block(k.name, k.snippet)),
     block('adc', '  bits      = ${2:12}\n  reference = ${3:3.3 V}'),
     block('channel', '  sensor = ${2:sensor}\n  adc    = ${3:adc}\n  bias   = ${4:current 10 uA}\n  range  = ${5:-40 °C .. 85 °C}'),
     { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: 'Brings in the definitions (junctions, thermistors, RTDs, ADCs) of another spec file, e.g. `use "parts.tsense"`. The path is relative to this file and may not leave the workspace.', insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
@@ -71,7 +70,7 @@ function topLevel(replace: Span): CompletionItem[] {
 }
 
 function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replace: Span): CompletionItem[] {
-  const spec = BLOCKS[kind];
+  const spec = blockSpec(kind)!;
   const given = new Set<string>();
   for (const fl of block.fields) {
     if (fl.kind !== 'field' || (fl.span.start >= lineStart && fl.span.start <= replace.end)) continue;
@@ -211,15 +210,10 @@ const OPTION_DOCS: Record<string, string> = {
 };
 
 function referenceDoc(a: Analysis, kind: BlockKind, name: string): string {
-  if (kind === 'junction') {
-    const j = a.model.junctions.get(name);
-    return j ? `${j.params.kind}, IS ${formatSI(j.params.IS, 'A')}, N ${trimNumber(j.params.N, 4)}` : 'junction (has errors)';
-  }
-  if (kind === 'thermistor' || kind === 'rtd') {
-    const s = a.model.resistiveSensors.get(name);
-    if (s?.kind === 'thermistor') return `NTC, R at 25 °C ${formatSI(s.r25.value, 'Ω')}${s.beta ? `, beta ${trimNumber(s.beta.value, 5)} K` : ''}`;
-    if (s?.kind === 'rtd') return `platinum, R0 ${formatSI(s.params.R0, 'Ω')}${s.toleranceClass ? `, class ${s.toleranceClass}` : ''}`;
-    return `${kind} (has errors)`;
+  const sensor = sensorKind(kind);
+  if (sensor) {
+    const s = a.model.sensors.get(name);
+    return s ? sensor.summary(s) : `${kind} (has errors)`;
   }
   const adc = a.model.adcs.get(name);
   return adc ? `${adc.bits} bits, reference ${formatSI(adc.reference.value, 'V')}` : 'adc (has errors)';

@@ -2,7 +2,7 @@
 // channels), across the entry file and every file it uses. Offsets in, {file, span} out.
 import type { Analysis } from '../engine';
 import type { Span } from '../syntax/ast';
-import { BLOCKS, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
+import { blockKinds, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
 import { locate } from './locate';
 
 export interface FileSpan {
@@ -87,7 +87,8 @@ export type RenameCheck = { ok: true; span: Span; placeholder: string } | { ok: 
 
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
 /** Words that start a block or a bias; a definition named so would read ambiguously. */
-const RESERVED = new Set(['use', ...Object.keys(BLOCKS), 'resistor', 'current', 'from', 'per']);
+let reserved: Set<string> | undefined;
+const RESERVED = () => (reserved ??= new Set(['use', ...blockKinds(), 'resistor', 'current', 'from', 'per']));
 
 export function prepareRename(a: Analysis, offset: number): RenameCheck {
   const s = symbolAt(a, offset);
@@ -106,7 +107,7 @@ export function rename(a: Analysis, offset: number, newName: string): RenameResu
   if (!IDENTIFIER.test(newName)) {
     return { ok: false, message: `'${newName}' is not a valid name: use letters, digits and _, starting with a letter or _ (e.g. small_npn).` };
   }
-  if (RESERVED.has(newName)) return { ok: false, message: `'${newName}' is a word of the spec language; choose another name.` };
+  if (RESERVED().has(newName)) return { ok: false, message: `'${newName}' is a word of the spec language; choose another name.` };
   if (newName !== s.name && a.model.blocks.has(newName)) return { ok: false, message: `'${newName}' is already defined; choose a name not yet used.` };
   return { ok: true, edits: occurrences(a, s.name, s.kind).map((o) => ({ ...o, newText: newName })) };
 }

@@ -1,14 +1,17 @@
 // The blocks of the spec language and the fields each takes: form, unit, domain, default, docs.
-// The resolver, completion and hover all read this one table.
+// The resolver, completion and hover all read this one table: the adc and channel blocks here, each
+// sensor kind's block from its folder through the registry (sensors/registry.ts).
 import type { Dimension } from './units';
+import { sensorKinds } from '../sensors/registry';
 
-export type BlockKind = 'junction' | 'thermistor' | 'rtd' | 'adc' | 'channel';
+/** A block keyword: `adc`, `channel` or a sensor kind's name. */
+export type BlockKind = string;
 
 export type FieldForm =
   | { form: 'quantity'; dimension: Dimension; tolerance?: boolean; integer?: boolean; min?: number; minInclusive?: boolean; max?: number; difference?: boolean }
   | { form: 'range'; dimension: Dimension }
   | { form: 'choice'; options: string[] }
-  /** `targets`, when given, lists every kind accepted (the channel's sensor: junction, thermistor or rtd). */
+  /** `targets`, when given, lists every kind accepted (the channel's sensor: every sensor kind). */
   | { form: 'ref'; target: BlockKind; targets?: BlockKind[] }
   | { form: 'bias' }
   | { form: 'resolution' }
@@ -20,8 +23,10 @@ export interface FieldSpec {
   name: string;
   aliases?: string[];
   form: FieldForm;
-  /** Default as spec text (documented); absent when the field is required. */
+  /** Default as spec text (documented); absent when the field is required or unchecked when absent. */
   defaultText?: string;
+  /** The resolver reports the block without it (a missing-field error). */
+  required?: true;
   doc: string;
   /** Example shown in completion. */
   example: string;
@@ -33,30 +38,12 @@ export interface BlockSpec {
   fields: FieldSpec[];
 }
 
-const junction: BlockSpec = {
-  kind: 'junction',
-  doc: 'A junction sensor: a diode-connected transistor or a signal diode, described by SPICE model parameters.',
-  fields: [
-    { name: 'kind', form: { form: 'choice', options: ['npn', 'pnp', 'diode'] }, defaultText: 'npn', doc: 'npn or pnp for a diode-connected transistor (base tied to collector; the terminal current includes the base current), diode for a plain junction diode.', example: 'kind = npn' },
-    { name: 'IS', form: { form: 'quantity', dimension: 'current', min: 0, tolerance: true }, doc: 'Saturation current at TNOM (SPICE IS).', example: 'IS = 10 fA' },
-    { name: 'N', aliases: ['NF'], form: { form: 'quantity', dimension: 'dimensionless', min: 0.5, minInclusive: true, max: 4, tolerance: true }, defaultText: '1', doc: 'Emission coefficient (SPICE N for a diode, NF for a transistor), with an optional part-to-part spread (`N = 1.004 ± 0.2 %`).', example: 'N = 1.0' },
-    { name: 'BF', form: { form: 'quantity', dimension: 'dimensionless', min: 0, tolerance: true }, defaultText: '100', doc: 'Forward current gain (SPICE BF), with an optional spread (`BF = 200 ± 50 %`); ignored for a plain diode.', example: 'BF = 200' },
-    { name: 'EG', form: { form: 'quantity', dimension: 'energy', min: 0.1, minInclusive: true, max: 5 }, defaultText: '1.11 eV', doc: 'Activation energy (SPICE EG); 1.11 eV for silicon.', example: 'EG = 1.11 eV' },
-    { name: 'XTI', form: { form: 'quantity', dimension: 'dimensionless', min: -10, minInclusive: true, max: 20 }, defaultText: '3', doc: 'Saturation-current temperature exponent (SPICE XTI).', example: 'XTI = 3' },
-    { name: 'XTB', form: { form: 'quantity', dimension: 'dimensionless', min: -10, minInclusive: true, max: 10 }, defaultText: '0', doc: 'Temperature exponent of BF (SPICE XTB).', example: 'XTB = 1.5' },
-    { name: 'TNOM', form: { form: 'quantity', dimension: 'temperature', min: 0 }, defaultText: '27 °C', doc: 'Temperature at which the parameters were extracted (SPICE TNOM; SPICE\'s default is 27 °C).', example: 'TNOM = 27 °C' },
-    { name: 'RS', form: { form: 'quantity', dimension: 'resistance', min: 0, minInclusive: true }, defaultText: '0 Ω', doc: 'Series resistance in the current path (diode RS; for a transistor fold RB/(1+BF) + RE in here).', example: 'RS = 1.5 ohm' },
-    { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-55 °C .. 150 °C', doc: 'Junction temperature range the part is rated for.', example: 'rated = -55 °C .. 150 °C' },
-    { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true }, defaultText: '500 K/W', doc: 'Junction-to-ambient thermal resistance for self-heating. The default is a conservative figure for a small SOT-23 part on minimal copper (from memory).', example: 'theta_ja = 350 K/W' },
-  ],
-};
-
 const adc: BlockSpec = {
   kind: 'adc',
   doc: 'An analog-to-digital converter: resolution, reference, and input limits.',
   fields: [
-    { name: 'bits', form: { form: 'quantity', dimension: 'dimensionless', integer: true, min: 1, minInclusive: true, max: 24 }, doc: 'Resolution in bits (1 to 24).', example: 'bits = 12' },
-    { name: 'reference', form: { form: 'quantity', dimension: 'voltage', min: 0, tolerance: true }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
+    { name: 'bits', required: true, form: { form: 'quantity', dimension: 'dimensionless', integer: true, min: 1, minInclusive: true, max: 24 }, doc: 'Resolution in bits (1 to 24).', example: 'bits = 12' },
+    { name: 'reference', required: true, form: { form: 'quantity', dimension: 'voltage', min: 0, tolerance: true }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
     { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 0 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm' },
     { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 0 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF' },
     { name: 'offset_error', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Offset error of the converter in LSB (from its datasheet), for the error budget.', example: 'offset_error = ± 2 LSB' },
@@ -66,14 +53,23 @@ const adc: BlockSpec = {
   ],
 };
 
-const channel: BlockSpec = {
+/** The channel's `sensor`: a reference to any sensor kind. */
+function sensorField(): FieldSpec {
+  const kinds = sensorKinds();
+  const names = kinds.map((k) => k.name);
+  const words = kinds.map((k) => k.a);
+  const list = words.length < 2 ? words.join('') : `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
+  return { name: 'sensor', required: true, form: { form: 'ref', target: names[0]!, targets: names }, doc: `Name of the sensor definition used: ${list}.`, example: 'sensor = small_npn' };
+}
+
+const channel = (): BlockSpec => ({
   kind: 'channel',
   doc: 'A temperature channel: a sensor, its bias, the ADC that reads it, and the targets it must meet.',
   fields: [
-    { name: 'sensor', form: { form: 'ref', target: 'junction', targets: ['junction', 'thermistor', 'rtd'] }, doc: 'Name of the sensor definition used: a junction, a thermistor or an rtd.', example: 'sensor = small_npn' },
-    { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
-    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %' },
-    { name: 'range', form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
+    sensorField(),
+    { name: 'adc', required: true, form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
+    { name: 'bias', required: true, form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %' },
+    { name: 'range', required: true, form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
     { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
     { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count' },
     { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C' },
@@ -94,46 +90,22 @@ const channel: BlockSpec = {
     { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm' },
     { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge' },
   ],
-};
+});
 
-const thermistor: BlockSpec = {
-  kind: 'thermistor',
-  doc: 'An NTC thermistor. Give its curve one way: `r25` and `beta` (the beta model), `sh_a`, `sh_b`, `sh_c` (Steinhart-Hart coefficients), or `point_1`..`point_3` (three measured points; the engine fits the Steinhart-Hart coefficients through them exactly).',
-  fields: [
-    { name: 'r25', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 25 °C (R25), with its tolerance. Required with `beta`.', example: 'r25 = 10k ± 1 %' },
-    { name: 'beta', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0, tolerance: true }, doc: 'Beta constant in kelvin, with its tolerance: R(T) = R25 exp(beta (1/T - 1/298.15 K)).', example: 'beta = 3950 K ± 1 %' },
-    { name: 'beta_range', form: { form: 'range', dimension: 'temperature' }, defaultText: '25 °C .. 85 °C', doc: 'The two temperatures beta is specified between on the datasheet (beta 25/85 by default). The beta model is exact at 25 °C and keeps the datasheet\'s resistance ratio between these two; outside them its error grows.', example: 'beta_range = 25 °C .. 50 °C' },
-    { name: 'sh_a', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart A (1/K): 1/T = A + B ln R + C (ln R)^3 with R in ohms.', example: 'sh_a = 1.129e-3' },
-    { name: 'sh_b', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, doc: 'Steinhart-Hart B (1/K).', example: 'sh_b = 2.341e-4' },
-    { name: 'sh_c', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart C (1/K).', example: 'sh_c = 8.775e-8' },
-    { name: 'point_1', form: { form: 'phrase', syntax: 'T R' }, doc: 'A measured point, temperature then resistance; give three (point_1, point_2, point_3) and the engine fits the Steinhart-Hart coefficients through them exactly.', example: 'point_1 = 0 °C 32.65k' },
-    { name: 'point_2', form: { form: 'phrase', syntax: 'T R' }, doc: 'The second measured point (see point_1).', example: 'point_2 = 25 °C 10k' },
-    { name: 'point_3', form: { form: 'phrase', syntax: 'T R' }, doc: 'The third measured point (see point_1).', example: 'point_3 = 70 °C 1.752k' },
-    { name: 'r_tolerance', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Resistance tolerance of a curve given by coefficients or points (with `beta`, put it on `r25`).', example: 'r_tolerance = ± 1 %' },
-    { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '1.5 mW/K', doc: 'Dissipation constant: the power that warms the thermistor 1 K above its surroundings. Self-heating = power / dissipation. The default is a typical figure for a small epoxy bead in still air (from memory); take yours from the datasheet.', example: 'dissipation = 1.5 mW/K' },
-    { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-40 °C .. 125 °C', doc: 'Temperature range the part is rated for.', example: 'rated = -40 °C .. 125 °C' },
-  ],
-};
+let blocks: Map<string, BlockSpec> | undefined;
 
-const rtd: BlockSpec = {
-  kind: 'rtd',
-  doc: 'A platinum resistance thermometer (Pt100, Pt1000, any R0) following the Callendar-Van Dusen equation of IEC 60751.',
-  fields: [
-    { name: 'r0', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 0 °C: 100 for a Pt100, 1000 for a Pt1000, with an optional tolerance.', example: 'r0 = 1000' },
-    { name: 'cvd_a', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '3.9083e-3', doc: 'Callendar-Van Dusen A, 1/°C (IEC 60751 value by default).', example: 'cvd_a = 3.9083e-3' },
-    { name: 'cvd_b', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-5.775e-7', doc: 'Callendar-Van Dusen B, 1/°C² (IEC 60751 value by default).', example: 'cvd_b = -5.775e-7' },
-    { name: 'cvd_c', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-4.183e-12', doc: 'Callendar-Van Dusen C, 1/°C⁴, used below 0 °C (IEC 60751 value by default).', example: 'cvd_c = -4.183e-12' },
-    { name: 'class', form: { form: 'choice', options: ['AA', 'A', 'B', 'C'] }, doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A' },
-    { name: 'element', form: { form: 'choice', options: ['film', 'wire'] }, doc: 'How the element is built: `film` (thin film) or `wire` (wire-wound). IEC 60751 specifies each tolerance class over a wider range for wire-wound elements; when absent the narrower film range is assumed.', example: 'element = wire' },
-    { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '2.5 mW/K', doc: 'Self-heating constant: the power that warms the element 1 K. The default is a typical thin-film element in still air (from memory); in a stirred liquid it is many times higher.', example: 'dissipation = 2.5 mW/K' },
-    { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-200 °C .. 850 °C', doc: 'Temperature range the element is rated for (default: the range of the IEC 60751 equation).', example: 'rated = -50 °C .. 500 °C' },
-  ],
-};
+/** Every block of the language by keyword: the sensor kinds (registry order), adc, channel. Made on first use (the registry is read lazily). */
+export function allBlocks(): ReadonlyMap<string, BlockSpec> {
+  return (blocks ??= new Map([...sensorKinds().map((k) => [k.name, k.block] as const), ['adc', adc], ['channel', channel()]]));
+}
 
-export const BLOCKS: Record<BlockKind, BlockSpec> = { junction, thermistor, rtd, adc, channel };
+/** The block keywords, in order. */
+export function blockKinds(): string[] {
+  return [...allBlocks().keys()];
+}
 
 export function blockSpec(kind: string): BlockSpec | undefined {
-  return Object.prototype.hasOwnProperty.call(BLOCKS, kind) ? BLOCKS[kind as BlockKind] : undefined;
+  return allBlocks().get(kind);
 }
 
 /** Each block's fields by name and alias (the resolver asks once per field line, per keystroke). */

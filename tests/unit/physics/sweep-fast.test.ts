@@ -19,7 +19,8 @@ import { sweepJunction, type SweepColumns } from '../../../server/src/physics/ju
 import { SweepTable, sweepKelvins } from '../../../server/src/analysis/sweep';
 import { nonlinearity } from '../../../server/src/analysis/nonlinearity';
 import { ZERO_CELSIUS_K } from '../../../server/src/physics/constants';
-import type { BiasDef, ChannelDef, JunctionDef } from '../../../server/src/model/types';
+import type { BiasDef, ChannelDef } from '../../../server/src/model/types';
+import type { JunctionDef } from '../../../server/src/sensors/junction/types';
 import type { JunctionParams } from '../../../server/src/physics/types';
 import { generateSpec } from '../../../bench/generate';
 

@@ -1,0 +1,33 @@
+// The junction kind: a diode-connected transistor or a diode read at one or two bias currents.
+import type { SensorKind } from '../kind';
+import { block } from './block';
+import { readJunction, junctionBiasProblem } from './read';
+import { senseJunction, sweepJunctionChannel } from './model';
+import { junctionContributors, perturbJunction } from './spread';
+import { fitJunction } from './fit';
+import { checkSupply } from './supply';
+import { checkBiasWindow } from './bias-window';
+import { checkTwoCurrent } from './two-current';
+import { junctionHover, junctionSummary } from './hover';
+import type { JunctionDef } from './types';
+
+export const junction: SensorKind<JunctionDef> = {
+  name: 'junction',
+  a: 'a junction',
+  block,
+  snippet: '  kind = ${2:npn}\n  IS   = ${3:10 fA}',
+  ratedRange: 'junction range',
+  read: readJunction,
+  channelFields: [],
+  twoCurrent: true,
+  biasProblem: junctionBiasProblem,
+  sense: senseJunction,
+  sweep: sweepJunctionChannel,
+  contributors: junctionContributors,
+  perturb: perturbJunction,
+  fit: fitJunction,
+  // Supply before the bias window, which defers to it; both before self-heating at the same span.
+  checks: { first: [checkSupply, checkBiasWindow], last: [checkTwoCurrent] },
+  hover: junctionHover,
+  summary: junctionSummary,
+};

@@ -1,0 +1,105 @@
+// The one interface every sensor kind implements. Everything that differs between kinds lives in
+// the kind's folder (server/src/sensors/<kind>/) behind these members; sensors/registry.ts lists
+// the kinds. Outside those folders no code names a kind (tests/unit/engine/kind-names.test.ts).
+// Physics stays in server/src/physics/ (pure functions with their published sources); a kind's
+// modules call it and add what the rest of the engine asks of a sensor.
+import type { Analysis } from '../engine';
+import type { ChannelResult } from '../analysis/types';
+import type { SensedPoint } from '../analysis/sense';
+import type { CheckContext } from '../checks/context';
+import type { FitResult } from '../calibration/fit';
+import type { BlockReader } from '../model/resolve';
+import type { BlockSpec } from '../model/schema';
+import type { BiasDef, ChannelDef, DefBase, SensorDef } from '../model/types';
+
+/** A board-to-board spread of the element, as an error-budget contributor (relative half-width). */
+export interface ElementContributor {
+  id: string;
+  label: string;
+  amount: number;
+}
+
+/** Temperature error from the element's own spread, before and after a one-point calibration. */
+export interface SensorSpread {
+  /** Largest |error| over the range and every corner, K. */
+  beforeK: number;
+  /** The same after removing each corner's error at the range centre (one-point calibration), K. */
+  afterOnePointK: number;
+  /** What the figure covers, for the report. */
+  basis: string;
+}
+
+/** Columns a sweep fills (analysis/sweep.ts SweepTable). */
+export interface SweepColumnsOut {
+  // Same shape as physics/junction.ts SweepColumns.
+  volts: Float64Array;
+  amps: Float64Array;
+  slope: Float64Array;
+  powerW: Float64Array;
+  sourceOhms: Float64Array;
+}
+
+export type ChannelCheck = (ctx: CheckContext) => void;
+
+export interface SensorKind<S extends SensorDef = SensorDef> {
+  /** The block keyword, also the `kind` of its definitions. */
+  readonly name: string;
+  /** The name with its article, for messages: "a junction", "an rtd". */
+  readonly a: string;
+  /** Its block in the language: fields with forms, defaults, docs and examples (model/schema.ts). */
+  readonly block: BlockSpec;
+  /** Body of its block in the completion snippet (placeholders from $2; $1 is the name). */
+  readonly snippet: string;
+  /** The noun of its rated range in messages: "rated junction range", "rated range". */
+  readonly ratedRange: string;
+
+  // ---- reading (model/resolve.ts)
+  /** Reads its block; reports through `r.sink` with precise ranges; null when the block has errors. */
+  read(r: BlockReader, base: DefBase): S | null;
+  /** Channel fields beyond the common ones that only some kinds take (gain, offset, wiring). */
+  readonly channelFields: readonly string[];
+  /** Whether the two-current (delta-VBE) bias applies. */
+  readonly twoCurrent: boolean;
+  /** Why a channel's bias does not suit this kind (reported at the bias), or null. */
+  biasProblem(s: S, bias: BiasDef): string | null;
+  /** Why the channel's range is beyond what the model handles (reported at the range), or null. */
+  rangeProblem?(s: S, lowK: number, highK: number): string | null;
+
+  // ---- the model (analysis/)
+  /** What the ADC sees at one temperature: the forward model of the whole channel. */
+  sense(c: ChannelDef, kelvin: number): SensedPoint;
+  /**
+   * Fills a whole sweep at once when the kind has a faster path than sense() per point (same
+   * numbers); returns false to let the sweep call sense().
+   */
+  sweep?(c: ChannelDef, kelvins: readonly number[], out: SweepColumnsOut): boolean;
+  /** Exact inverse in closed form: kelvin at which the sensed voltage is `volts` (NaN when none). Absent: a bracketing search on sense(). */
+  kelvinAtVolts?(c: ChannelDef, volts: number): number;
+  /** A resistive element: its resistance and dR/dT at a temperature. */
+  element?: { at(s: S, kelvin: number): { ohms: number; slope: number } };
+
+  // ---- error budget and comparison (budget/, compare/)
+  /** The element's own spreads as board contributors (ids unique to the kind), amount > 0 only. */
+  contributors(s: S): ElementContributor[];
+  /** The element with drawn relative errors by contributor id (absent ids stay nominal). */
+  perturb(s: S, draws: ReadonlyMap<string, number>): S;
+  /** Element-only error for the comparison when the budget is not available; absent: none. */
+  sensorSpread?(c: ChannelDef): SensorSpread | null;
+  /** Largest tolerance of the element's stated class over the range, K, for the comparison. */
+  classToleranceK?(c: ChannelDef): number | null;
+  /** Kind-specific inputs of the JSON report (base SI units). */
+  reportInputs?(c: ChannelDef): Record<string, unknown>;
+  /** Fit of the channel's `measured` points, or null when the kind fits none (calibration/fit.ts). */
+  fit?(c: ChannelDef): FitResult | null;
+
+  // ---- checks (checks/index.ts): `first` run before the common ones (bias rules the others defer to), `last` after them
+  readonly checks: { readonly first: readonly ChannelCheck[]; readonly last: readonly ChannelCheck[] };
+
+  // ---- editor (features/)
+  /** Markdown hover of a definition. */
+  hover(a: Analysis, s: S): string;
+  /** Extra lines of a channel's hover (its parts beyond bias and ADC). */
+  channelHoverLines?(r: ChannelResult): string[];
+  /** One line for completion of a `sensor = ` value. */
+  summary(s: S): string;
+}

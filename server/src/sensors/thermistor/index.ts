@@ -1,0 +1,35 @@
+// The thermistor kind: an NTC element in a divider or on a current source.
+import type { SensorKind } from '../kind';
+import { block } from './block';
+import { readThermistor } from './read';
+import { perturbThermistor, thermistorContributors, thermistorElementJson, thermistorModel, thermistorRangeProblem, thermistorSpread } from './model';
+import { checkDividerOptimum } from './divider-optimum';
+import { checkBetaExtrapolated } from './beta-extrapolated';
+import { thermistorHover } from './hover';
+import { RESISTIVE_CHANNEL_FIELDS, resistiveBiasProblem } from '../resistive/model';
+import { resistiveChannelLines } from '../resistive/hover';
+import { resistiveInputsJson } from '../resistive/json';
+import { formatSI, trimNumber } from '../../model/read-value';
+import type { ThermistorDef } from './types';
+
+export const thermistor: SensorKind<ThermistorDef> = {
+  name: 'thermistor',
+  a: 'a thermistor',
+  block,
+  snippet: '  r25         = ${2:10k ± 1 %}\n  beta        = ${3:3950 K ± 1 %}\n  dissipation = ${4:1.5 mW/K}',
+  ratedRange: 'range',
+  read: readThermistor,
+  channelFields: RESISTIVE_CHANNEL_FIELDS,
+  twoCurrent: false,
+  biasProblem: resistiveBiasProblem,
+  rangeProblem: thermistorRangeProblem,
+  ...thermistorModel,
+  contributors: thermistorContributors,
+  perturb: perturbThermistor,
+  sensorSpread: thermistorSpread,
+  reportInputs: (c) => resistiveInputsJson(c, thermistorElementJson(c.sensor as ThermistorDef)),
+  checks: { first: [], last: [checkDividerOptimum, checkBetaExtrapolated] },
+  hover: thermistorHover,
+  channelHoverLines: (r) => resistiveChannelLines(r, 'NTC: R falls with T'),
+  summary: (s) => `NTC, R at 25 °C ${formatSI(s.r25.value, 'Ω')}${s.beta ? `, beta ${trimNumber(s.beta.value, 5)} K` : ''}`,
+};
