@@ -111,7 +111,7 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   }
   if (form.form === 'choice') {
     if (!onlyWord) return [];
-    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: OPTION_DOCS[o] ?? fs.doc, replace: wordSpan }));
+    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: form.docs?.[o] ?? fs.doc, replace: wordSpan }));
   }
   if (form.form === 'bias' && onlyWord) {
     return [
@@ -195,19 +195,6 @@ const UNITS: Record<Dimension, [string, string][]> = {
 function unitsFor(d: Dimension): [string, string][] {
   return UNITS[d];
 }
-
-const OPTION_DOCS: Record<string, string> = {
-  npn: 'Diode-connected NPN transistor (base tied to collector).',
-  pnp: 'Diode-connected PNP transistor (base tied to collector).',
-  diode: 'A plain junction diode.',
-  table: 'Firmware converts codes through a generated table (model-exact).',
-  line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.',
-  // IEC 60751 tolerance classes, ±(a + b|t|) °C (from memory).
-  AA: 'IEC 60751 class AA: ±(0.1 + 0.0017|t|) °C.',
-  A: 'IEC 60751 class A: ±(0.15 + 0.002|t|) °C.',
-  B: 'IEC 60751 class B: ±(0.3 + 0.005|t|) °C.',
-  C: 'IEC 60751 class C: ±(0.6 + 0.01|t|) °C.',
-};
 
 function referenceDoc(a: Analysis, kind: BlockKind, name: string): string {
   const sensor = sensorKind(kind);

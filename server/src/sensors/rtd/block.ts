@@ -9,7 +9,11 @@ export const block: BlockSpec = {
     { name: 'cvd_a', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '3.9083e-3', doc: 'Callendar-Van Dusen A, 1/°C (IEC 60751 value by default).', example: 'cvd_a = 3.9083e-3' },
     { name: 'cvd_b', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-5.775e-7', doc: 'Callendar-Van Dusen B, 1/°C² (IEC 60751 value by default).', example: 'cvd_b = -5.775e-7' },
     { name: 'cvd_c', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-4.183e-12', doc: 'Callendar-Van Dusen C, 1/°C⁴, used below 0 °C (IEC 60751 value by default).', example: 'cvd_c = -4.183e-12' },
-    { name: 'class', form: { form: 'choice', options: ['AA', 'A', 'B', 'C'] }, doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A' },
+    {
+      name: 'class',
+      // IEC 60751 tolerance classes, ±(a + b|t|) °C (from memory).
+      form: { form: 'choice', options: ['AA', 'A', 'B', 'C'], docs: { AA: 'IEC 60751 class AA: ±(0.1 + 0.0017|t|) °C.', A: 'IEC 60751 class A: ±(0.15 + 0.002|t|) °C.', B: 'IEC 60751 class B: ±(0.3 + 0.005|t|) °C.', C: 'IEC 60751 class C: ±(0.6 + 0.01|t|) °C.' } },
+      doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A' },
     { name: 'element', form: { form: 'choice', options: ['film', 'wire'] }, doc: 'How the element is built: `film` (thin film) or `wire` (wire-wound). IEC 60751 specifies each tolerance class over a wider range for wire-wound elements; when absent the narrower film range is assumed.', example: 'element = wire' },
     { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '2.5 mW/K', doc: 'Self-heating constant: the power that warms the element 1 K. The default is a typical thin-film element in still air (from memory); in a stirred liquid it is many times higher.', example: 'dissipation = 2.5 mW/K' },
     { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-200 °C .. 850 °C', doc: 'Temperature range the element is rated for (default: the range of the IEC 60751 equation).', example: 'rated = -50 °C .. 500 °C' },
