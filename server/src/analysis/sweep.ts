@@ -1,6 +1,5 @@
 // Sweeps a channel over its range: operating point, ADC code and resolution at each step.
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { kindOf } from '../sensors/registry';
 import { sense } from './sense';
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult, ChannelSummary, SweepPoint } from './types';
@@ -82,8 +81,6 @@ export class SweepTable {
     this.slope = view(2);
     this.powerW = view(3);
     this.sourceOhms = view(4);
-    // A kind with a point-free loop (same bits as sense()) fills the columns itself. Others: sense() per point.
-    if (kindOf(channel.sensor).sweep?.(channel, kelvins, this)) return;
     for (let i = 0; i < kelvins.length; i++) {
       const p = sense(channel, kelvins[i]!);
       this.volts[i] = p.volts;

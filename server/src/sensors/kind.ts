@@ -40,16 +40,6 @@ export interface SensorSpread {
   basis: string;
 }
 
-/** Columns a sweep fills (analysis/sweep.ts SweepTable). */
-export interface SweepColumnsOut {
-  // Same shape as physics/junction.ts SweepColumns.
-  volts: Float64Array;
-  amps: Float64Array;
-  slope: Float64Array;
-  powerW: Float64Array;
-  sourceOhms: Float64Array;
-}
-
 export type ChannelCheck = (ctx: CheckContext) => void;
 
 export interface SensorKind<S extends SensorDef = SensorDef> {
@@ -79,11 +69,6 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   // ---- the model (analysis/)
   /** What the ADC sees at one temperature: the forward model of the whole channel. */
   sense(c: ChannelDef, kelvin: number): SensedPoint;
-  /**
-   * Fills a whole sweep at once when the kind has a faster path than sense() per point (same
-   * numbers); returns false to let the sweep call sense().
-   */
-  sweep?(c: ChannelDef, kelvins: readonly number[], out: SweepColumnsOut): boolean;
   /** Exact inverse in closed form: kelvin at which the sensed voltage is `volts` (NaN when none). Absent: a bracketing search on sense(). */
   kelvinAtVolts?(c: ChannelDef, volts: number): number;
   /** A resistive element: its resistance and dR/dT at a temperature. */

@@ -2,7 +2,7 @@
 import type { SensorKind } from '../kind';
 import { block } from './block';
 import { readJunction, junctionBiasProblem } from './read';
-import { senseJunction, sweepJunctionChannel } from './model';
+import { senseJunction } from './model';
 import { junctionContributors, perturbJunction } from './spread';
 import { fitJunction } from './fit';
 import { checkSupply } from './supply';
@@ -22,7 +22,6 @@ export const junction: SensorKind<JunctionDef> = {
   twoCurrent: true,
   biasProblem: junctionBiasProblem,
   sense: senseJunction,
-  sweep: sweepJunctionChannel,
   contributors: junctionContributors,
   perturb: perturbJunction,
   fit: fitJunction,

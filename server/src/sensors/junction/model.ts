@@ -1,20 +1,15 @@
 // The junction channel's forward model: the exact operating point of the SPICE junction under its
 // bias (physics/junction.ts), or for the two-current (delta-VBE) method the difference of two.
-import { operatingPoint, operatingPointAt, junctionAtTemperature, sourceOhmsAt, sweepJunction } from '../../physics/junction';
+import { operatingPoint, operatingPointAt, junctionAtTemperature, sourceOhmsAt } from '../../physics/junction';
 import type { Bias } from '../../physics/types';
 import type { BiasDef, ChannelDef } from '../../model/types';
 import { nominalBias, physicsBias, type SensedPoint } from '../../analysis/sense';
-import type { SweepColumnsOut } from '../kind';
 import type { JunctionDef } from './types';
 
 /** The nominal physics bias of each channel definition, made once (sweeps ask per point). */
 const biasOf = new WeakMap<ChannelDef, Bias>();
 
-/**
- * What the ADC sees at one temperature. A sweep of a single-bias junction channel takes
- * physics/junction.ts sweepJunction instead (sweepJunctionChannel), which gives the same numbers
- * without an object per point.
- */
+/** What the ADC sees at one temperature. */
 export function senseJunction(c: ChannelDef, kelvin: number): SensedPoint {
   if (c.secondBias) return senseTwoCurrent(c, c.secondBias, kelvin);
   let bias = biasOf.get(c);
@@ -49,11 +44,4 @@ function senseTwoCurrent(c: ChannelDef, second: BiasDef, kelvin: number): Sensed
     powerW: hi.volts * hi.amps,
     sourceOhms: sourceOhmsAt(bHi, hi.dynamicOhms),
   };
-}
-
-/** A single-bias junction: the point-free loop (same bits as sense()). */
-export function sweepJunctionChannel(c: ChannelDef, kelvins: readonly number[], out: SweepColumnsOut): boolean {
-  if (c.secondBias) return false;
-  sweepJunction((c.sensor as JunctionDef).params, nominalBias(c), kelvins, out);
-  return true;
 }
