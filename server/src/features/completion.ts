@@ -111,7 +111,7 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   }
   if (form.form === 'choice') {
     if (!onlyWord) return [];
-    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: form.docs?.[o] ?? fs.doc, replace: wordSpan }));
+    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: fs.optionDocs?.[o] ?? fs.doc, replace: wordSpan }));
   }
   if (form.form === 'bias' && onlyWord) {
     return [

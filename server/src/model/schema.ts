@@ -10,8 +10,7 @@ export type BlockKind = string;
 export type FieldForm =
   | { form: 'quantity'; dimension: Dimension; tolerance?: boolean; integer?: boolean; min?: number; minInclusive?: boolean; max?: number; difference?: boolean }
   | { form: 'range'; dimension: Dimension }
-  /** `docs`: what each option means, shown by completion (absent: the field's doc). */
-  | { form: 'choice'; options: string[]; docs?: Record<string, string> }
+  | { form: 'choice'; options: string[] }
   /** `targets`, when given, lists every kind accepted (the channel's sensor: every sensor kind). */
   | { form: 'ref'; target: BlockKind; targets?: BlockKind[] }
   | { form: 'bias' }
@@ -28,6 +27,8 @@ export interface FieldSpec {
   defaultText?: string;
   /** The resolver reports the block without it (a missing-field error). */
   required?: true;
+  /** For a choice: what each option means. */
+  optionDocs?: Record<string, string>;
   doc: string;
   /** Example shown in completion. */
   example: string;
@@ -38,8 +39,6 @@ export interface BlockSpec {
   doc: string;
   fields: FieldSpec[];
 }
-
-const TABLE_DOC = 'Firmware converts codes through a generated table (model-exact).';
 
 const adc: BlockSpec = {
   kind: 'adc',
@@ -77,14 +76,14 @@ const channel = (): BlockSpec => ({
     { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count' },
     { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C' },
     { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true }, defaultText: 'the sensor\'s theta_ja', doc: 'Thermal resistance for this channel\'s mounting, overriding the sensor\'s.', example: 'theta_ja = 250 K/W' },
-    { name: 'conversion', form: { form: 'choice', options: ['table', 'line'], docs: { table: TABLE_DOC, line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table' },
+    { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table', optionDocs: { table: 'Firmware converts codes through a generated table (model-exact).', line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } },
     { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: 'Sound window for the bias current (see bias-current-low/high).', example: 'current_window = 5 uA .. 500 uA' },
     { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C' },
     { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. The model is fitted to them (IS with one point; IS and N with two or more) and points that disagree are flagged.', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C' },
     { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7' },
     { name: 'output', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.01 °C', doc: 'Unit of the integer the generated conversion code returns: `0.01 °C` returns signed hundredths of a degree. 1 divided by it must be a whole number from 1 to 10000.', example: 'output = 0.1 °C' },
     { name: 'code_error', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.02 °C', doc: 'Largest error the generated conversion code may add to the model, checked at every in-range ADC code by simulating its integer arithmetic exactly. At least half an `output` unit.', example: 'code_error = 0.05 °C' },
-    { name: 'code_method', form: { form: 'choice', options: ['auto', 'table', 'polynomial'], docs: { table: TABLE_DOC } }, defaultText: 'auto', doc: 'How the generated code converts: `table` (points with linear interpolation), `polynomial` (piecewise quadratic) or `auto` (whichever meets `code_error` in fewer bytes).', example: 'code_method = table' },
+    { name: 'code_method', form: { form: 'choice', options: ['auto', 'table', 'polynomial'] }, defaultText: 'auto', doc: 'How the generated code converts: `table` (points with linear interpolation), `polynomial` (piecewise quadratic) or `auto` (whichever meets `code_error` in fewer bytes).', example: 'code_method = table' },
     { name: 'float_variant', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes to generate, beside the integer function, one returning a float in °C (no maths library needed).', example: 'float_variant = yes' },
     { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits' },
     { name: 'ratiometric', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes when the ADC reference is the divider\'s own supply: the code then follows the divider ratio and the supply cancels. The divider supply must equal the ADC reference.', example: 'ratiometric = yes' },
