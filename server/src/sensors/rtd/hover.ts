@@ -13,11 +13,6 @@ export function rtdAlpha(s: RtdDef): number {
   return (cvdResistance(r0, s.params, 100) - r0) / (100 * r0);
 }
 
-/** Half-width of the RTD's class tolerance at t °C, or null without a class. */
-export function rtdClassToleranceC(s: RtdDef, celsius: number): number | null {
-  return s.toleranceClass ? classToleranceC(s.toleranceClass, celsius) : null;
-}
-
 export function rtdHover(a: Analysis, s: RtdDef): string {
   const p = s.params;
   const cls = s.toleranceClass;
