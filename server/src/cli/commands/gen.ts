@@ -17,6 +17,7 @@ import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic } from '../text';
 import { writeFilesTogether } from '../write-files';
 import { readDisk } from '../../disk';
+import { shown } from '../../checks/shown';
 import { loadAnalyses } from './check';
 
 export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR]';
@@ -51,7 +52,7 @@ export function runGen(argv: string[], io: CliIO): number {
     return EXIT.errors;
   }
   if (channel !== undefined && !a.channels.some((r) => r.channel.name === channel)) {
-    io.err(`thermoscribe gen: no channel '${channel}' in ${path.basename(a.path)}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}\n`);
+    io.err(`thermoscribe gen: no channel '${shown(channel)}' in ${shown(path.basename(a.path))}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}\n`);
     return EXIT.unusable;
   }
   const cPath = out !== undefined ? path.resolve(io.cwd, out) : conversionFilePath(a.path);
