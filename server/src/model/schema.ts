@@ -149,3 +149,8 @@ export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined
   }
   return index.get(name);
 }
+
+/** A block kind with its article as read aloud: "an adc", "an rtd" (ar-tee-dee), "a channel". */
+export function kindWithArticle(kind: string): string {
+  return `${/^(adc|rtd)$/.test(kind) ? 'an' : 'a'} ${kind}`;
+}
