@@ -8,6 +8,8 @@ import type { AdcDef, BiasDef, SensorDef, WiringDef } from './types';
 import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, formatSI } from './read-value';
 import { closest } from './suggest';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
+import { shown } from '../checks/shown';
+import { kindWithArticle } from './schema';
 
 /** The channel's `sensor`: a definition of any sensor kind. */
 export function readSensorRef(r: BlockReader, res: Resolution): SensorDef | null {
@@ -27,12 +29,12 @@ export function readSensorRef(r: BlockReader, res: Resolution): SensorDef | null
   if (!block) {
     const pool = [...res.blocks.values()].filter((b) => sensorKind(b.kind)).map((b) => b.node.name.text);
     const near = closest(t.text, pool);
-    r.sink.report('unknown-name', r.ref.file, t.span, `no sensor named '${t.text}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
+    r.sink.report('unknown-name', r.ref.file, t.span, `no sensor named '${shown(t.text)}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
     r.ok = false;
     return null;
   }
   if (!sensorKind(block.kind)) {
-    r.sink.report('wrong-kind', r.ref.file, t.span, `'${t.text}' is an ${block.kind}, but sensor needs ${kindsInWords()}`);
+    r.sink.report('wrong-kind', r.ref.file, t.span, `'${shown(t.text)}' is ${kindWithArticle(block.kind)}, but sensor needs ${kindsInWords()}`);
     r.ok = false;
     return null;
   }
@@ -56,11 +58,11 @@ export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
   const volts = readQuantityValue(vq, 'voltage', ctx);
   if (ohms === null || volts === null) return (r.ok = false), null;
   if (!(ohms >= 1e-3) || ohms > 1e9) {
-    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${rq.number.text})`);
+    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${shown(rq.number.text)})`);
     return (r.ok = false), null;
   }
   if (!(volts > 0) || volts > 1000) {
-    r.sink.report('out-of-domain', r.ref.file, vq.span, `divider supply must be above 0 V and at most 1000 V (found ${vq.number.text} V)`);
+    r.sink.report('out-of-domain', r.ref.file, vq.span, `divider supply must be above 0 V and at most 1000 V (found ${shown(vq.number.text)} V)`);
     return (r.ok = false), null;
   }
   const tol = (q: QuantityTerm, v: number, dim: 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
@@ -84,7 +86,7 @@ function readWiring(r: BlockReader): WiringDef | null | undefined {
   if (!n || n.kind !== 'quantity' || n.unit || !w || w.kind !== 'word' || (w.text !== 'wires' && w.text !== 'wire')) return bad();
   const wires = n.number.value;
   if (wires !== 2 && wires !== 3 && wires !== 4) {
-    r.sink.report('out-of-domain', r.ref.file, n.span, `wiring: a sensor has 2, 3 or 4 wires (found ${n.number.text})`);
+    r.sink.report('out-of-domain', r.ref.file, n.span, `wiring: a sensor has 2, 3 or 4 wires (found ${shown(n.number.text)})`);
     return (r.ok = false), null;
   }
   let lead = 0;
@@ -93,7 +95,7 @@ function readWiring(r: BlockReader): WiringDef | null | undefined {
     const v = readQuantityValue(q, 'resistance', r.ctx('wiring'));
     if (v === null) return (r.ok = false), null;
     if (!(v >= 0) || v > 1e4) {
-      r.sink.report('out-of-domain', r.ref.file, q.span, `wiring: the lead resistance must be from 0 Ω to 10 kΩ (found ${q.number.text})`);
+      r.sink.report('out-of-domain', r.ref.file, q.span, `wiring: the lead resistance must be from 0 Ω to 10 kΩ (found ${shown(q.number.text)})`);
       return (r.ok = false), null;
     }
     lead = v;

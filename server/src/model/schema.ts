@@ -2,7 +2,7 @@
 // The resolver, completion and hover all read this one table: the adc and channel blocks here, each
 // sensor kind's block from its folder through the registry (sensors/registry.ts).
 import type { Dimension } from './units';
-import { sensorKinds } from '../sensors/registry';
+import { sensorKind, sensorKinds } from '../sensors/registry';
 
 /** A block keyword: `adc`, `channel` or a sensor kind's name. */
 export type BlockKind = string;
@@ -122,4 +122,9 @@ export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined
     FIELD_INDEX.set(block, index);
   }
   return index.get(name);
+}
+
+/** A block kind with its article as read aloud: "an adc", "a channel"; a sensor kind says its own ("an rtd"). */
+export function kindWithArticle(kind: string): string {
+  return sensorKind(kind)?.a ?? `${kind === 'adc' ? 'an' : 'a'} ${kind}`;
 }

@@ -8,6 +8,7 @@ import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 import { shiftOffsets } from './shift';
 import { readPieceFast } from './fast-reader';
+import { shown } from '../checks/shown';
 
 /**
  * Parses `text`. With a cache, the text is cut before every block header line and each piece is
@@ -172,7 +173,7 @@ function collectProblems(item: TopItem, text: string, out: SyntaxProblem[]): voi
   if (!item.closed) {
     const at = item.span.end;
     out.push({
-      message: `block '${item.name.text}' is not closed: add '}' after its last field`,
+      message: `block '${shown(item.name.text)}' is not closed: add '}' after its last field`,
       span: { start: item.name.span.start, end: item.name.span.end },
     });
     void at;

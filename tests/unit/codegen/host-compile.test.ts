@@ -92,8 +92,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         retrimmed.set(name, list);
       }
     }
-    // Generation and the host compiler on a shared machine: a generous hook timeout.
-  }, 600_000);
+  }, 120_000);
   afterAll(() => dir?.dispose());
 
   it('compiles without a warning and runs every code of every channel', () => {

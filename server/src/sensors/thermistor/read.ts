@@ -1,9 +1,11 @@
 // Reads a thermistor block: its curve given one way (beta and R25, Steinhart-Hart coefficients, or
 // three measured points fitted exactly), the resistance tolerance, rated range and dissipation.
 import type { BlockReader } from '../../model/resolve';
-import type { DefBase, Toleranced } from '../../model/types';
+import type { Toleranced } from '../../model/types';
 import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, formatSI } from '../../model/read-value';
 import { betaToSteinhartHart, fitSteinhartHart, shMonotonicMessage, shResistanceAt, type ShCoefficients } from '../../physics/steinhart-hart';
+import { shown } from '../../checks/shown';
+import type { DefBase } from '../../model/types';
 import { readDissipation } from '../resistive/read';
 import type { ThermistorDef } from './types';
 
@@ -81,8 +83,8 @@ export function readThermistor(r: BlockReader, base: DefBase): ThermistorDef | n
   if (forms.length !== 1) {
     r.sink.report(forms.length ? 'bad-value' : 'missing-field', r.ref.file, name.span,
       forms.length
-        ? `thermistor '${name.text}' gives its curve ${forms.length} ways (${forms.join(', ')}); give exactly one`
-        : `thermistor '${name.text}' needs its curve: \`r25\` with \`beta\`, or \`sh_a\`, \`sh_b\`, \`sh_c\`, or \`point_1\`..\`point_3\``);
+        ? `thermistor '${shown(name.text)}' gives its curve ${forms.length} ways (${forms.join(', ')}); give exactly one`
+        : `thermistor '${shown(name.text)}' needs its curve: \`r25\` with \`beta\`, or \`sh_a\`, \`sh_b\`, \`sh_c\`, or \`point_1\`..\`point_3\``);
     return null;
   }
   const form = forms[0]!;
@@ -121,7 +123,7 @@ export function readThermistor(r: BlockReader, base: DefBase): ThermistorDef | n
       if (pts.every((p) => Array.isArray(p))) {
         const fit = fitSteinhartHart(pts as [number, number][]);
         if (typeof fit === 'string') {
-          r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${name.text}': ${fit}`);
+          r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${shown(name.text)}': ${fit}`);
           r.ok = false;
         } else coeffs = fit;
       }
@@ -134,12 +136,12 @@ export function readThermistor(r: BlockReader, base: DefBase): ThermistorDef | n
   if (!r.ok || !coeffs || !r25 || !rated || theta === null) return null;
   const mono = shMonotonicMessage(coeffs, rated.low, rated.high);
   if (mono) {
-    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${name.text}': ${mono} (checked over its rated ${trimNumber(rated.low - ZERO_C, 4)} °C .. ${trimNumber(rated.high - ZERO_C, 4)} °C)`);
+    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${shown(name.text)}': ${mono} (checked over its rated ${trimNumber(rated.low - ZERO_C, 4)} °C .. ${trimNumber(rated.high - ZERO_C, 4)} °C)`);
     return null;
   }
   if (form !== 'beta') r25 = { ...r25, value: shResistanceAt(coeffs, T25) };
   if (!Number.isFinite(r25.value) || !(r25.value > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${name.text}': the curve gives no finite resistance at 25 °C`);
+    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${shown(name.text)}': the curve gives no finite resistance at 25 °C`);
     return null;
   }
   return { kind: 'thermistor', ...base, params: { kind: 'ntc', ...coeffs }, form, r25, beta, ratedLowK: rated.low, ratedHighK: rated.high, thetaJA: theta };
