@@ -7,7 +7,6 @@
 import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 import { shiftOffsets } from './shift';
-import { readPieceFast } from './fast-reader';
 
 /**
  * Parses `text`. With a cache, the text is cut before every block header line and each piece is
@@ -15,38 +14,7 @@ import { readPieceFast } from './fast-reader';
  * parse); pieces seen in the previous parse are reused with their offsets moved.
  */
 export function parse(text: string, cache?: ParseCache): ParseResult {
-  return cache ? cache.parse(text) : parseByPieces(text);
-}
-
-/**
- * The same result with the generated parser alone on the whole text (the reference that the fast
- * reader and the piecewise parse are tested against).
- */
-export function parseWithGrammarOnly(text: string): ParseResult {
-  return parseWhole(text);
-}
-
-/** Each piece read by the fast reader, or by the generated parser when it holds an error line. */
-function parseByPieces(text: string): ParseResult {
-  const items: TopItem[] = [];
-  const problems: SyntaxProblem[] = [];
-  for (const { start, end } of pieces(text)) {
-    const { base, baseAt } = readPiece(text, start, end);
-    const by = start - baseAt;
-    for (const item of by === 0 ? base.tree.items : shiftOffsets(base.tree.items, by)) items.push(item);
-    for (const p of by === 0 ? base.problems : shiftOffsets(base.problems, by)) problems.push(p);
-  }
-  return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
-}
-
-/**
- * One piece of `text`: a well-formed one read by the fast reader where it stands (`baseAt` = start),
- * one with an error line by the generated parser at offset 0 (`baseAt` = 0).
- */
-function readPiece(text: string, start: number, end: number): { base: ParseResult; baseAt: number } {
-  const fast = readPieceFast(text, start, end);
-  if (fast) return { base: { tree: { kind: 'document', items: fast, span: { start, end } }, problems: [] }, baseAt: start };
-  return { base: parseWhole(text.slice(start, end)), baseAt: 0 };
+  return cache ? cache.parse(text) : parseWhole(text);
 }
 
 // A block header at the start of a line (sticky: tested at each line start without slicing).
@@ -54,7 +22,7 @@ const HEADER_AT = /[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/y;
 
 /** Reuse of parsed pieces between successive versions of one document. */
 export class ParseCache {
-  /** Per piece text: its first parse (made at `baseAt`), and the copy last placed (at `at`). */
+  /** Per piece text: its first parse (made alone, at offset 0), and the copy last placed (at `at`). */
   private pieces = new Map<string, PieceEntry>();
 
   /** Caches of the files this document uses, by path (their definitions are then kept too). */
@@ -75,11 +43,11 @@ export class ParseCache {
       const piece = text.slice(start, end);
       let entry = next.get(piece) ?? this.pieces.get(piece);
       if (!entry) {
-        const { base, baseAt } = readPiece(text, start, end);
-        entry = { base, baseAt, at: baseAt, placed: base };
+        const base = parseWhole(piece);
+        entry = { base, at: 0, placed: base };
       }
       // A piece that did not move is reused as it is; one that moved is copied with new offsets.
-      if (entry.at !== start) entry = { base: entry.base, baseAt: entry.baseAt, at: start, placed: shiftResult(entry.base, start - entry.baseAt) };
+      if (entry.at !== start) entry = { base: entry.base, at: start, placed: shiftResult(entry.base, start) };
       next.set(piece, entry);
       items.push(...entry.placed.tree.items);
       problems.push(...entry.placed.problems);
@@ -89,10 +57,9 @@ export class ParseCache {
   }
 }
 
-/** A piece's first parse, made at offset `baseAt`, and the copy last placed at `at`. */
+/** A piece's first parse, made at offset 0, and the copy last placed at `at`. */
 interface PieceEntry {
   base: ParseResult;
-  baseAt: number;
   at: number;
   placed: ParseResult;
 }
