@@ -22,7 +22,7 @@ const HEADER_AT = /[ \t]*[A-Za-z_]\w*[ \t]+[A-Za-z_]\w*[ \t]*\{/y;
 
 /** Reuse of parsed pieces between successive versions of one document. */
 export class ParseCache {
-  /** Per piece text: its first parse (made alone, at offset 0), and the copy last placed (at `at`). */
+  /** Per piece text: its first parse (made at `baseAt`), and the copy last placed (at `at`). */
   private pieces = new Map<string, PieceEntry>();
 
   /** Caches of the files this document uses, by path (their definitions are then kept too). */
@@ -39,27 +39,56 @@ export class ParseCache {
     const next = new Map<string, PieceEntry>();
     const items: TopItem[] = [];
     const problems: SyntaxProblem[] = [];
-    for (const { start, end } of pieces(text)) {
-      const piece = text.slice(start, end);
+    const spans = pieces(text);
+    const slices = spans.map(({ start, end }) => text.slice(start, end));
+    // Several new pieces (a document opened, text pasted): one parse of the whole text, whose
+    // items are cut into the pieces where they stand (the same tree: see parse()). One new piece
+    // (a keystroke): that piece alone.
+    let fresh = 0;
+    for (const piece of slices) if (!this.pieces.has(piece) && ++fresh > 1) break;
+    const whole = fresh > 1 ? new WholeParse(parseWhole(text)) : undefined;
+    spans.forEach(({ start, end }, k) => {
+      const piece = slices[k]!;
       let entry = next.get(piece) ?? this.pieces.get(piece);
       if (!entry) {
-        const base = parseWhole(piece);
-        entry = { base, at: 0, placed: base };
+        const base = whole ? whole.cut(start, end) : parseWhole(piece);
+        const baseAt = whole ? start : 0;
+        entry = { base, baseAt, at: baseAt, placed: base };
       }
       // A piece that did not move is reused as it is; one that moved is copied with new offsets.
-      if (entry.at !== start) entry = { base: entry.base, at: start, placed: shiftResult(entry.base, start) };
+      if (entry.at !== start) entry = { base: entry.base, baseAt: entry.baseAt, at: start, placed: shiftResult(entry.base, start - entry.baseAt) };
       next.set(piece, entry);
       items.push(...entry.placed.tree.items);
       problems.push(...entry.placed.problems);
-    }
+    });
     this.pieces = next;
     return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
   }
 }
 
-/** A piece's first parse, made at offset 0, and the copy last placed at `at`. */
+/** A whole-text parse handed out piece by piece, in order (items and problems by where they start). */
+class WholeParse {
+  private item = 0;
+  private problem = 0;
+  constructor(private readonly r: ParseResult) {}
+
+  cut(start: number, end: number): ParseResult {
+    const items: TopItem[] = [];
+    const problems: SyntaxProblem[] = [];
+    const all = this.r.tree.items;
+    while (this.item < all.length && all[this.item]!.span.start < start) this.item++;
+    while (this.item < all.length && all[this.item]!.span.start < end) items.push(all[this.item++]!);
+    const ps = this.r.problems;
+    while (this.problem < ps.length && ps[this.problem]!.span.start < start) this.problem++;
+    while (this.problem < ps.length && ps[this.problem]!.span.start < end) problems.push(ps[this.problem++]!);
+    return { tree: { kind: 'document', items, span: { start, end } }, problems };
+  }
+}
+
+/** A piece's first parse, made at offset `baseAt`, and the copy last placed at `at`. */
 interface PieceEntry {
   base: ParseResult;
+  baseAt: number;
   at: number;
   placed: ParseResult;
 }
