@@ -5,6 +5,7 @@ import type { ChannelResult, SweepPoint } from '../analysis/types';
 import type { AdcDef } from '../model/types';
 import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
 import { blockSpec, fieldSpec, type BlockKind } from '../model/schema';
+import { needOf } from '../model/language';
 import { DiagnosticSink } from '../checks/diagnostic';
 import { readQuantityValue } from '../model/read-value';
 import { readUnit, type Dimension } from '../model/units';
@@ -175,7 +176,7 @@ export function fieldDoc(kind: BlockKind, name: string): string {
   return [
     `**${fs.name}**${alias}, in ${kind}`,
     fs.doc,
-    fs.defaultText !== undefined ? `Default: \`${fs.defaultText}\`` : fs.required ? 'Required.' : 'Optional: unchecked when absent.',
+    fs.defaultText !== undefined ? `Default: \`${fs.defaultText}\`` : needOf(fs).need === 'required' ? 'Required.' : 'Optional: unchecked when absent.',
     `Example: \`${fs.example}\``,
   ].join('\n\n');
 }

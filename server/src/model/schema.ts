@@ -1,10 +1,11 @@
 // The blocks of the spec language and the fields each takes: form, unit, domain, default, docs.
-// The resolver, completion and hover all read this one table: the adc and channel blocks here, each
-// sensor kind's block from its folder through the registry (sensors/registry.ts).
+// The resolver, completion and hover all read this one table; the editor grammar, the snippets and
+// docs/reference.md are generated from it (scripts/gen-docs.ts, model/language.ts). The adc and
+// channel blocks are here; each sensor kind's block is in its folder, found through the registry.
 import type { Dimension } from './units';
 import { sensorKind, sensorKinds } from '../sensors/registry';
 
-/** A block keyword: `adc`, `channel` or a sensor kind's name. */
+/** A block keyword: `adc`, `channel` or a sensor kind's name (sensors/registry.ts). */
 export type BlockKind = string;
 
 export type FieldForm =
@@ -23,80 +24,91 @@ export interface FieldSpec {
   name: string;
   aliases?: string[];
   form: FieldForm;
-  /** Default as spec text (documented); absent when the field is required or unchecked when absent. */
+  /** Default as spec text (documented); absent when the field is required. */
   defaultText?: string;
-  /** The resolver reports the block without it (a missing-field error). */
-  required?: true;
-  /** For a choice: what each option means. */
-  optionDocs?: Record<string, string>;
   doc: string;
   /** Example shown in completion. */
   example: string;
+  /** No default, and the spec may leave it out (what that means is in `doc`). */
+  optional?: boolean;
+  /** One of several ways to give the same thing: the name of this field's way; one way is required. */
+  alternative?: string;
+  /** The fixed words of the value's phrase (`resistor`, `from`, ...), for highlighting. */
+  words?: string[];
+  /** For a choice: what each option means. */
+  optionDocs?: Record<string, string>;
 }
 
 export interface BlockSpec {
   kind: BlockKind;
   doc: string;
+  /** The fields a new block is written with (completion and snippets), each filled with its example. */
+  template: string[];
   fields: FieldSpec[];
 }
 
 const adc: BlockSpec = {
   kind: 'adc',
   doc: 'An analog-to-digital converter: resolution, reference, and input limits.',
+  template: ['bits', 'reference'],
   fields: [
-    { name: 'bits', required: true, form: { form: 'quantity', dimension: 'dimensionless', integer: true, min: 1, minInclusive: true, max: 24 }, doc: 'Resolution in bits (1 to 24).', example: 'bits = 12' },
-    { name: 'reference', required: true, form: { form: 'quantity', dimension: 'voltage', min: 0, tolerance: true }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
-    { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 0 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm' },
-    { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 0 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF' },
+    { name: 'bits', form: { form: 'quantity', dimension: 'dimensionless', integer: true, min: 1, minInclusive: true, max: 24 }, doc: 'Resolution in bits (1 to 24).', example: 'bits = 12' },
+    { name: 'reference', form: { form: 'quantity', dimension: 'voltage', min: 0, tolerance: true }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
+    { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 0 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm', optional: true },
+    { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 0 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF', optional: true },
     { name: 'offset_error', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Offset error of the converter in LSB (from its datasheet), for the error budget.', example: 'offset_error = ± 2 LSB' },
     { name: 'gain_error', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Gain (full-scale) error of the converter, relative, for the error budget.', example: 'gain_error = ± 0.2 %' },
     { name: 'inl', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Integral nonlinearity in LSB, for the error budget (taken as a bound on every reading; calibration does not remove it).', example: 'inl = ± 1 LSB' },
-    { name: 'noise', form: { form: 'phrase', syntax: 'n LSB rms | v mV rms' }, doc: 'Noise at the converter input, rms, in LSB or volts. Oversampling gains resolution only when it is at least 0.5 LSB rms. Unknown when absent.', example: 'noise = 0.8 LSB rms' },
+    { name: 'noise', form: { form: 'phrase', syntax: 'n LSB rms | v mV rms' }, doc: 'Noise at the converter input, rms, in LSB or volts. Oversampling gains resolution only when it is at least 0.5 LSB rms. Unknown when absent.', example: 'noise = 0.8 LSB rms', optional: true, words: ['rms'] },
   ],
 };
 
-/** The channel's `sensor`: a reference to any sensor kind. */
+/** The channel's `sensor`: a reference to a definition of any sensor kind. */
 function sensorField(): FieldSpec {
   const kinds = sensorKinds();
   const names = kinds.map((k) => k.name);
   const words = kinds.map((k) => k.a);
   const list = words.length < 2 ? words.join('') : `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
-  return { name: 'sensor', required: true, form: { form: 'ref', target: names[0]!, targets: names }, doc: `Name of the sensor definition used: ${list}.`, example: 'sensor = small_npn' };
+  return { name: 'sensor', form: { form: 'ref', target: names[0]!, targets: names }, doc: `Name of the sensor definition used: ${list}.`, example: 'sensor = small_npn' };
 }
 
 const channel = (): BlockSpec => ({
   kind: 'channel',
   doc: 'A temperature channel: a sensor, its bias, the ADC that reads it, and the targets it must meet.',
+  template: ['sensor', 'adc', 'bias', 'range', 'accuracy'],
   fields: [
     sensorField(),
-    { name: 'adc', required: true, form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
-    { name: 'bias', required: true, form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %' },
-    { name: 'range', required: true, form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
+    { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
+    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %', words: ['resistor', 'resistors', 'current', 'currents', 'divider', 'above', 'below', 'from', 'and'] },
+    { name: 'range', form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
     { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
-    { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count' },
-    { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C' },
+    { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count', optional: true, words: ['per'] },
+    { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C', optional: true },
     { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true }, defaultText: 'the sensor\'s theta_ja', doc: 'Thermal resistance for this channel\'s mounting, overriding the sensor\'s.', example: 'theta_ja = 250 K/W' },
     { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table', optionDocs: { table: 'Firmware converts codes through a generated table (model-exact).', line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } },
     { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: 'Sound window for the bias current (see bias-current-low/high).', example: 'current_window = 5 uA .. 500 uA' },
-    { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C' },
-    { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. The model is fitted to them (IS with one point; IS and N with two or more) and points that disagree are flagged.', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C' },
-    { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7' },
+    { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C', words: ['none', 'one', 'two', 'point', 'points', 'at', 'and'] },
+    { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. The model is fitted to them (IS with one point; IS and N with two or more) and points that disagree are flagged.', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C', optional: true, words: ['at', 'and'] },
+    { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7', words: ['runs', 'seed', 'normal', 'uniform'] },
     { name: 'output', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.01 °C', doc: 'Unit of the integer the generated conversion code returns: `0.01 °C` returns signed hundredths of a degree. 1 divided by it must be a whole number from 1 to 10000.', example: 'output = 0.1 °C' },
     { name: 'code_error', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.02 °C', doc: 'Largest error the generated conversion code may add to the model, checked at every in-range ADC code by simulating its integer arithmetic exactly. At least half an `output` unit.', example: 'code_error = 0.05 °C' },
     { name: 'code_method', form: { form: 'choice', options: ['auto', 'table', 'polynomial'] }, defaultText: 'auto', doc: 'How the generated code converts: `table` (points with linear interpolation), `polynomial` (piecewise quadratic) or `auto` (whichever meets `code_error` in fewer bytes).', example: 'code_method = table' },
     { name: 'float_variant', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes to generate, beside the integer function, one returning a float in °C (no maths library needed).', example: 'float_variant = yes' },
-    { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits' },
+    { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits', words: ['bits', 'bit'] },
     { name: 'ratiometric', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes when the ADC reference is the divider\'s own supply: the code then follows the divider ratio and the supply cancels. The divider supply must equal the ADC reference.', example: 'ratiometric = yes' },
     { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between a thermistor or RTD and the ADC: V_adc = gain × V + offset.', example: 'gain = 20' },
     { name: 'offset', form: { form: 'quantity', dimension: 'voltage' }, defaultText: '0 V', doc: 'Output offset of that amplifier, V (may be negative).', example: 'offset = -0.1 V' },
-    { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm' },
-    { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge' },
+    { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm', words: ['wires', 'wire'] },
+    { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge', optional: true },
   ],
 });
 
 let blocks: Map<string, BlockSpec> | undefined;
 
-/** Every block of the language by keyword: the sensor kinds (registry order), adc, channel. Made on first use (the registry is read lazily). */
+/**
+ * Every block of the language by keyword: the sensor kinds (registry order), adc, channel. Made on
+ * first use: the registry's kinds import modules that import this one, so nothing reads it at load.
+ */
 export function allBlocks(): ReadonlyMap<string, BlockSpec> {
   return (blocks ??= new Map([...sensorKinds().map((k) => [k.name, k.block] as const), ['adc', adc], ['channel', channel()]]));
 }

@@ -47,10 +47,8 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   readonly name: string;
   /** The name with its article, for messages: "a junction", "an rtd". */
   readonly a: string;
-  /** Its block in the language: fields with forms, defaults, docs and examples (model/schema.ts). */
+  /** Its block in the language: fields with forms, defaults, docs, examples and the template completion and snippets write (model/schema.ts). */
   readonly block: BlockSpec;
-  /** Body of its block in the completion snippet (placeholders from $2; $1 is the name). */
-  readonly snippet: string;
   /** The noun of its rated range in messages: "rated junction range", "rated range". */
   readonly ratedRange: string;
 

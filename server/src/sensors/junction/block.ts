@@ -4,9 +4,10 @@ import type { BlockSpec } from '../../model/schema';
 export const block: BlockSpec = {
   kind: 'junction',
   doc: 'A junction sensor: a diode-connected transistor or a signal diode, described by SPICE model parameters.',
+  template: ['kind', 'IS', 'N', 'BF'],
   fields: [
     { name: 'kind', form: { form: 'choice', options: ['npn', 'pnp', 'diode'] }, defaultText: 'npn', doc: 'npn or pnp for a diode-connected transistor (base tied to collector; the terminal current includes the base current), diode for a plain junction diode.', example: 'kind = npn', optionDocs: { npn: 'Diode-connected NPN transistor (base tied to collector).', pnp: 'Diode-connected PNP transistor (base tied to collector).', diode: 'A plain junction diode.' } },
-    { name: 'IS', required: true, form: { form: 'quantity', dimension: 'current', min: 0, tolerance: true }, doc: 'Saturation current at TNOM (SPICE IS).', example: 'IS = 10 fA' },
+    { name: 'IS', form: { form: 'quantity', dimension: 'current', min: 0, tolerance: true }, doc: 'Saturation current at TNOM (SPICE IS).', example: 'IS = 10 fA' },
     { name: 'N', aliases: ['NF'], form: { form: 'quantity', dimension: 'dimensionless', min: 0.5, minInclusive: true, max: 4, tolerance: true }, defaultText: '1', doc: 'Emission coefficient (SPICE N for a diode, NF for a transistor), with an optional part-to-part spread (`N = 1.004 ± 0.2 %`).', example: 'N = 1.0' },
     { name: 'BF', form: { form: 'quantity', dimension: 'dimensionless', min: 0, tolerance: true }, defaultText: '100', doc: 'Forward current gain (SPICE BF), with an optional spread (`BF = 200 ± 50 %`); ignored for a plain diode.', example: 'BF = 200' },
     { name: 'EG', form: { form: 'quantity', dimension: 'energy', min: 0.1, minInclusive: true, max: 5 }, defaultText: '1.11 eV', doc: 'Activation energy (SPICE EG); 1.11 eV for silicon.', example: 'EG = 1.11 eV' },

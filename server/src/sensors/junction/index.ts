@@ -15,7 +15,6 @@ export const junction: SensorKind<JunctionDef> = {
   name: 'junction',
   a: 'a junction',
   block,
-  snippet: '  kind = ${2:npn}\n  IS   = ${3:10 fA}',
   ratedRange: 'junction range',
   read: readJunction,
   channelFields: [],

@@ -16,7 +16,6 @@ export const rtd: SensorKind<RtdDef> = {
   name: 'rtd',
   a: 'an rtd',
   block,
-  snippet: '  r0    = ${2:1000}\n  class = ${3|AA,A,B,C|}',
   ratedRange: 'range',
   read: readRtd,
   channelFields: RESISTIVE_CHANNEL_FIELDS,

@@ -16,7 +16,6 @@ export const thermistor: SensorKind<ThermistorDef> = {
   name: 'thermistor',
   a: 'a thermistor',
   block,
-  snippet: '  r25         = ${2:10k ± 1 %}\n  beta        = ${3:3950 K ± 1 %}\n  dissipation = ${4:1.5 mW/K}',
   ratedRange: 'range',
   read: readThermistor,
   channelFields: RESISTIVE_CHANNEL_FIELDS,
