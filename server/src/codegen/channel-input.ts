@@ -14,7 +14,8 @@ import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelDef } from '../model/types';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import type { ConversionInput } from './types';
+import { sensorFaults, usableCodes, type SensorFault } from '../sensors/faults';
+import { CodegenInputError, type ConversionInput } from './types';
 
 /** Defaults when the channel gives no code options: hundredths of a degC, 0.02 degC, auto. */
 export const CODE_DEFAULTS = { outputScale: 100, errorC: 0.02, method: 'auto', floatVariant: false } as const;
@@ -90,6 +91,34 @@ export function generatableResults(channels: readonly ChannelResult[], diagnosti
   });
 }
 
+/**
+ * Fault tests of the conversion: a value is taken as a fault when it is at least as near a fault's
+ * code as the range end on that side (common practice, no source: the nearer explanation wins, and
+ * a tie goes to the safe side). A fault whose code is in range is left out; one on a saturated end
+ * code that the range also reaches is kept, the safe side (fault-in-range warns of both).
+ */
+export function faultLimits(faults: readonly SensorFault[], codeLow: number, codeHigh: number, n: number): { faultBelow?: number; faultAbove?: number } {
+  let faultBelow: number | undefined;
+  let faultAbove: number | undefined;
+  const w = 2 ** n;
+  for (const f of faults) {
+    const first = f.code * w;
+    const last = (f.code + 1) * w - 1;
+    if (first > codeHigh) {
+      const t = Math.max(codeHigh + 1, Math.ceil((codeHigh + first) / 2));
+      faultAbove = faultAbove === undefined ? t : Math.min(faultAbove, t);
+    } else if (last < codeLow) {
+      const t = Math.min(codeLow - 1, Math.floor((codeLow + last) / 2));
+      faultBelow = faultBelow === undefined ? t : Math.max(faultBelow, t);
+    }
+  }
+  return { ...(faultBelow !== undefined ? { faultBelow } : {}), ...(faultAbove !== undefined ? { faultAbove } : {}) };
+}
+
+function faultNotes(faults: readonly SensorFault[]): string[] {
+  return faults.map((f) => `${f.what[0]!.toUpperCase()}${f.what.slice(1)}: ADC code ${f.code}${f.distinct ? '' : ' (a temperature of the range gives it too: cannot be told apart)'}; assumes ${f.assumption}.`);
+}
+
 export function conversionInput(r: ChannelResult, specPath: string): ConversionInput {
   const c = r.channel;
   const opts = c.codegen ?? CODE_DEFAULTS;
@@ -112,9 +141,16 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     codeMin = Math.min(a, b);
     codeMax = Math.max(a, b);
   }
+  // The end codes of the converter's scale stand for every voltage beyond them: never in range.
+  const usable = usableCodes(c.adc.bits, codeMin, codeMax);
+  if (!usable) {
+    throw new CodegenInputError(c.name, 'range', `every code of the range is an end code of '${c.adc.name}' (0 or ${2 ** c.adc.bits - 1}), which stands for any voltage beyond it; move the sensed voltage inside 1 .. ${2 ** c.adc.bits - 2} LSB`);
+  }
   // Decimated values: ADC code k covers the values k * 2^n .. (k + 1) * 2^n - 1.
-  const codeLow = codeMin * 2 ** n;
-  const codeHigh = Math.min(2 ** bits - 1, (codeMax + 1) * 2 ** n - 1);
+  const codeLow = usable.low * 2 ** n;
+  const codeHigh = Math.min(2 ** bits - 1, (usable.high + 1) * 2 ** n - 1);
+  const faults = sensorFaults(c, codeMin, codeMax);
+  const limits = faultLimits(faults, codeLow, codeHigh, n);
   // Board calibration from the spec: the trims differ per board, so the firmware sets them at run
   // time (offset 0 and gain 1 until it does).
   const cal = c.calibration?.mode;
@@ -132,9 +168,11 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
         `${bits} bits, 0 .. ${2 ** bits - 1}; pass that value, not a single ${c.adc.bits}-bit reading.`,
     );
   }
+  notes.push(...faultNotes(faults));
   return {
     channelName: c.name,
     bits,
+    ...limits,
     ...(n > 0 ? { oversamplingBits: n } : {}),
     codeLow,
     codeHigh,

@@ -40,7 +40,10 @@ describe('thermoscribe gen', () => {
     expect(findGeneratedBlocks(read('pump_conversion.c')).map((b) => b.channel)).toEqual(['coolant', 'housing']);
     expect(findGeneratedBlocks(read('pump_conversion.h')).map((b) => b.channel)).toEqual(['coolant', 'housing']);
     // Channel options from the spec: output = 0.1 °C is tenths, float_variant = yes adds the float function.
-    expect(read('pump_conversion.c')).toContain('#define COOLANT_SCALE 10 ');
+    expect(read('pump_conversion.h')).toContain('#define COOLANT_SCALE 10 ');
+    // The source includes its own header and does not repeat its typedefs (#13 item 9).
+    expect(read('pump_conversion.c')).toContain('#include "pump_conversion.h"');
+    expect(read('pump_conversion.c')).not.toContain('typedef');
     expect(read('pump_conversion.c')).toContain('housing_code_to_celsius_f(');
     expect(read('pump_conversion.h')).toContain('#ifndef THSC_PUMP_CONVERSION_H');
     expect(r.out).toMatch(/^coolant: table, \d+ points, max error 0\.\d{4} °C over codes \d+\.\.\d+ \(target 0\.2 °C\)/m);
