@@ -208,7 +208,9 @@ function declarations(p: ChannelPlan): string {
     );
   }
   if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
-  return out.join('\n');
+  // Guarded: a self-contained block and the header may meet in one translation unit, and a
+  // typedef given twice is an error before C11.
+  return [`#ifndef ${n.up}_DECLARED`, `#define ${n.up}_DECLARED 1`, ...out, '#endif'].join('\n');
 }
 
 export function emitHeaderBody(p: ChannelPlan): string {

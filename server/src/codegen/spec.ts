@@ -58,7 +58,7 @@ export function conversionBlock(a: SpecLike, channel: string, eol = '\n'): { ok:
   if (typeof chosen === 'string') return { ok: false, message: chosen };
   try {
     const input = conversionInput(chosen[0]!, a.path);
-    const ch = generateC([input], { fileStem: 'conversion' }).channels[0]!;
+    const ch = generateC([input], { fileStem: 'conversion', selfContained: true }).channels[0]!;
     return { ok: true, text: renderBlock({ channel, hash: input.specHash, text: ch.code }, eol), maxErrorC: ch.maxErrorC, method: ch.method };
   } catch (err) {
     return failure(err);

@@ -5,7 +5,7 @@
 import * as path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { conversionInput, generatableResults } from '../../../server/src/codegen/channel-input';
-import { generateC } from '../../../server/src/codegen';
+import { generateC, spliceGenerated } from '../../../server/src/codegen';
 import { planChannels } from '../../../server/src/codegen/generate';
 import type { ConversionInput } from '../../../server/src/codegen/types';
 import { channelHover } from '../../../server/src/features/hover';
@@ -153,6 +153,13 @@ describe.skipIf(COMPILERS.length === 0)('generated C at the edges, every code, s
     expect(pasted).toContain('typedef');
     dir.write('pasted.c', pasted);
     for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'pasted.c', '-o', `pasted_${cc}.o`], dir.path, 120_000);
+    // The editor's code action splices a self-contained block into a file the CLI made (which
+    // includes the header): the declarations are guarded, so both meet cleanly.
+    const block = generateC([oneCode], { fileStem: 'conv', selfContained: true }).channels[0]!;
+    const mixed = spliceGenerated(src, [{ channel: oneCode.channelName, hash: oneCode.specHash, text: block.code }]);
+    expect(mixed.ok).toBe(true);
+    dir.write('mixed.c', mixed.ok ? mixed.text : '');
+    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'mixed.c', '-o', `mixed_${cc}.o`], dir.path, 120_000);
   });
 
   it('the header says what a code stands for, the degC per count, the clamped values and how to set trims safely', () => {
