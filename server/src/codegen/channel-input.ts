@@ -79,16 +79,21 @@ export function channelSpecHash(c: ChannelDef): string {
 }
 
 /**
+ * The first error reported inside the channel's block or the blocks of its sensor and ADC (a
+ * definition with an error may have taken a default in its place), or undefined.
+ */
+export function channelError(c: ChannelDef, diagnostics: readonly Diagnostic[]): Diagnostic | undefined {
+  const inside = (d: Diagnostic, b: { file: string; span: { start: number; end: number } }) => d.file === b.file && d.span.start >= b.span.start && d.span.end <= b.span.end;
+  return diagnostics.find((d) => d.severity === 'error' && (inside(d, c) || inside(d, c.sensor) || inside(d, c.adc)));
+}
+
+/**
  * Channels whose code can be generated: analysed, ADC of at most 16 bits, and (when the analysis'
- * diagnostics are given) no error reported inside the channel's block, since an erroneous design
+ * diagnostics are given) no error reported inside the channel's block or its sensor's or ADC's, since an erroneous design
  * (a clipping ADC, a junction that is not biased) has no sound inverse over its codes.
  */
 export function generatableResults(channels: readonly ChannelResult[], diagnostics: readonly Diagnostic[] = []): ChannelResult[] {
-  const errs = diagnostics.filter((d) => d.severity === 'error');
-  return channels.filter((r) => {
-    const c = r.channel;
-    return conversionBits(c) <= MAX_CODE_BITS && !errs.some((d) => d.file === c.file && d.span.start >= c.span.start && d.span.end <= c.span.end);
-  });
+  return channels.filter((r) => conversionBits(r.channel) <= MAX_CODE_BITS && channelError(r.channel, diagnostics) === undefined);
 }
 
 /**

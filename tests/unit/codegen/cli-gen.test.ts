@@ -105,15 +105,35 @@ describe('thermoscribe gen', () => {
     expect(listing()).toEqual(['pump.tsense']);
   });
 
-  it('exits 1 when a channel option cannot be met, and reports out-of-range options as spec errors', () => {
+  it('generates the clean channels and names the one left out, exit 1 (#13 item 11); --channel of a clean one exits 0', () => {
     // Half an output unit of 1 °C is 0.5 °C: a 0.2 °C target is refused by the resolver.
     fs.writeFileSync(path.join(dir, 'pump.tsense'), read('pump.tsense').replace('output     = 0.1 °C', 'output     = 1 °C'));
     const r = runCli(['gen', 'pump.tsense']);
     expect(r.code).toBe(1);
     expect(r.err).toContain('code_error must be from half an output unit (0.5 °C) to 100 °C; got 0.2 °C');
+    expect(r.err).toMatch(/left out 'coolant': out-of-domain: code_error must be/);
+    expect(r.out).toContain('left out 1 channel: coolant');
+    expect(findGeneratedBlocks(read('pump_conversion.c')).map((b) => b.channel)).toEqual(['housing']);
+    const one = runCli(['gen', 'pump.tsense', '--channel', 'housing']);
+    expect(one.code).toBe(0);
+    expect(one.err).toContain('note: the spec has 1 error outside the channels generated');
     fs.writeFileSync(path.join(dir, 'pump.tsense'), fs.readFileSync(SPEC, 'utf8').replace('output     = 0.1 °C', 'output     = 0.3 °C'));
     expect(runCli(['gen', 'pump.tsense']).err).toContain('output must divide 1 °C into a whole number of units');
-    expect(listing()).toEqual(['pump.tsense']);
+  });
+
+  it('names orphan blocks of removed or renamed channels, and removes them only with --prune (#13 item 10)', () => {
+    expect(runCli(['gen', 'pump.tsense']).code).toBe(0);
+    fs.writeFileSync(path.join(dir, 'pump.tsense'), read('pump.tsense').replace('channel housing {', 'channel casing {'));
+    const r = runCli(['gen', 'pump.tsense']);
+    expect(r.code).toBe(0);
+    expect(r.out).toContain("orphan block 'housing' in pump_conversion.c: no channel of this name in the spec; remove it with --prune");
+    expect(r.out).toContain("orphan block 'housing' in pump_conversion.h");
+    expect(findGeneratedBlocks(read('pump_conversion.c')).map((b) => b.channel)).toEqual(['coolant', 'housing', 'casing']);
+    const p = runCli(['gen', 'pump.tsense', '--prune']);
+    expect(p.code).toBe(0);
+    expect(p.out).toContain("removed block 'housing' in pump_conversion.c");
+    for (const f of ['pump_conversion.c', 'pump_conversion.h']) expect(findGeneratedBlocks(read(f)).map((b) => b.channel)).toEqual(['coolant', 'casing']);
+    expect(read('pump_conversion.h')).toMatch(/#endif \/\* THSC_PUMP_CONVERSION_H \*\/\n$/);
   });
 
   it('exits 2 on unusable arguments', () => {
