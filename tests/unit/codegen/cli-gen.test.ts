@@ -7,6 +7,7 @@ import * as os from 'node:os';
 import * as path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { runGen } from '../../../server/src/cli/commands/gen';
+import { runCheck } from '../../../server/src/cli/commands/check';
 import { findGeneratedBlocks, scanGeneratedBlocks } from '../../../server/src/codegen';
 import { FIXTURES } from '../helpers/fixtures';
 
@@ -134,6 +135,26 @@ describe('thermoscribe gen', () => {
     expect(p.out).toContain("removed block 'housing' in pump_conversion.c");
     for (const f of ['pump_conversion.c', 'pump_conversion.h']) expect(findGeneratedBlocks(read(f)).map((b) => b.channel)).toEqual(['coolant', 'casing']);
     expect(read('pump_conversion.h')).toMatch(/#endif \/\* THSC_PUMP_CONVERSION_H \*\/\n$/);
+  });
+
+  it('check reports generated code out of date with its spec, beside it or named with --code (#13 item 13)', () => {
+    const check = (args: string[]) => {
+      let out = '';
+      const code = runCheck(args, { out: (t) => (out += t), err: (t) => (out += t), cwd: dir });
+      return { code, out };
+    };
+    expect(runCli(['gen', 'pump.tsense']).code).toBe(0);
+    expect(check(['pump.tsense']).out).not.toContain('generated-stale');
+    fs.writeFileSync(path.join(dir, 'pump.tsense'), read('pump.tsense').replace('range      = 0 °C .. 100 °C', 'range      = 0 °C .. 90 °C'));
+    const r = check(['pump.tsense']);
+    expect(r.out).toMatch(/pump\.tsense:11:9: warning \[generated-stale\] the generated code for 'coolant' in pump_conversion\.c was made from an earlier version/);
+    // A conversion file elsewhere, named with --code.
+    fs.mkdirSync(path.join(dir, 'fw'));
+    fs.renameSync(path.join(dir, 'pump_conversion.c'), path.join(dir, 'fw', 'temps.c'));
+    expect(check(['pump.tsense']).out).not.toContain('generated-stale');
+    expect(check(['pump.tsense', '--code', 'fw/temps.c']).out).toContain("[generated-stale] the generated code for 'coolant' in temps.c");
+    const sarif = check(['pump.tsense', '--code', 'fw/temps.c', '--format', 'sarif']).out;
+    expect(sarif).toContain('"ruleId": "generated-stale"');
   });
 
   it('exits 2 on unusable arguments', () => {

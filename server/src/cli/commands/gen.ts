@@ -4,14 +4,15 @@
 // marked blocks replaced (blocks of channels not in it are added); hand-written code is kept.
 // Channels with errors (in their block, their sensor's or their ADC's) or whose code cannot be made
 // as asked are left out and named with the reason; the clean ones are still written. Blocks of
-// channels the spec no longer has (orphans) are named, and removed only with --prune.
+// channels the spec no longer has (orphans) are named, and removed only with --prune (which
+// removes every block this spec does not define: never prune a file that several specs share).
 // Exit 0 when written, 1 when a channel was left out (or none could be generated), 2 when an input
 // is unusable (bad arguments, unreadable spec, damaged markers, a write failing).
 // Both files are planned (and any damaged marker refused) before either is written.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { orphanBlocks, scanGeneratedBlocks, spliceGenerated } from '../../codegen/markers';
-import type { DocumentNode } from '../../syntax/ast';
+import { specChannelNames } from '../../codegen/stale';
 import { conversionFilePath, headerPathFor } from '../../codegen/channel-input';
 import { generateForSpec, splitChannels } from '../../codegen/spec';
 import type { GenerateResult, SpliceBlock } from '../../codegen/types';
@@ -95,13 +96,6 @@ export function runGen(argv: string[], io: CliIO): number {
 }
 
 /** The new text of one file, or why it cannot be written. */
-/** Every channel the spec defines (analysed or not): a block of any other name is an orphan. */
-function specChannelNames(a: { channels: readonly { channel: { name: string } }[]; files: readonly { parse: { tree: DocumentNode } }[] }): Set<string> {
-  const names = new Set(a.channels.map((r) => r.channel.name));
-  for (const item of a.files[0]?.parse.tree.items ?? []) if (item.kind === 'block' && item.keyword.text === 'channel') names.add(item.name.text);
-  return names;
-}
-
 function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[], specNames: ReadonlySet<string>, prune: boolean, orphans: string[]): Planned | string {
   let existing: string | undefined;
   try {
