@@ -236,14 +236,16 @@ function ownHeader(stem: string): string | undefined {
 }
 
 /** Plans (validated and designed) for each input, in order; shared by generateC and the tests. */
-export function planChannels(inputs: readonly ConversionInput[]): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
+export function planChannels(inputs: readonly ConversionInput[], prefix = ''): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
   for (const c of inputs) validateInput(c);
+  const badPrefix = prefixProblem(prefix);
+  if (badPrefix && inputs[0]) fail(inputs[0], 'prefix', badPrefix);
   const seen = new Set<string>();
   for (const c of inputs) {
     if (seen.has(c.channelName)) fail(c, 'channelName', 'two channels have this name; markers need unique names');
     seen.add(c.channelName);
   }
-  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName));
+  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id) => prefix + id);
   const plans: ChannelPlan[] = [];
   const samples: Samples[] = [];
   const bytes: number[] = [];
@@ -290,8 +292,16 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
   return { plans, samples, bytes };
 }
 
+/** Why `prefix` cannot start a generated identifier, or undefined when it can. */
+export function prefixProblem(prefix: string): string | undefined {
+  // A leading underscore is reserved to the implementation in many cases (C99 7.1.3).
+  return prefix === '' || /^[A-Za-z][A-Za-z0-9_]{0,31}$/.test(prefix)
+    ? undefined
+    : `must be a C identifier of 1 to 32 letters, digits and underscores starting with a letter (got '${prefix.replace(/[^\x20-\x7e]/g, '?')}')`;
+}
+
 export function generateC(inputs: ConversionInput[], options: GenerateOptions): GenerateResult {
-  const { plans, bytes } = planChannels(inputs);
+  const { plans, bytes } = planChannels(inputs, options.prefix);
   const header = options.header === true;
   const channels: GeneratedChannel[] = plans.map((p, i) => ({
     identifier: p.ident,

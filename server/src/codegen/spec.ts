@@ -82,7 +82,7 @@ function failure(err: unknown): { ok: false; message: string } {
  * and guard. A channel whose code cannot be made as asked is left out (named in `leftOut`, with
  * the generator's message) and the others are still generated.
  */
-export function generateForSpec(a: SpecLike, opts: { channel?: string; fileStem: string }): SpecGeneration {
+export function generateForSpec(a: SpecLike, opts: { channel?: string; fileStem: string; prefix?: string }): SpecGeneration {
   const chosen = pick(a, opts.channel);
   if (typeof chosen === 'string') return { ok: false, message: chosen, leftOut: [] };
   let pool = chosen;
@@ -90,8 +90,8 @@ export function generateForSpec(a: SpecLike, opts: { channel?: string; fileStem:
   for (;;) {
     try {
       const inputs = pool.map((r) => conversionInput(r, a.path));
-      const source = generateC(inputs, { fileStem: opts.fileStem });
-      const header = generateC(inputs, { fileStem: opts.fileStem, header: true });
+      const source = generateC(inputs, { fileStem: opts.fileStem, prefix: opts.prefix });
+      const header = generateC(inputs, { fileStem: opts.fileStem, header: true, prefix: opts.prefix });
       return { ok: true, inputs, source, header, leftOut };
     } catch (err) {
       const f = failure(err);

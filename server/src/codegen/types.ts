@@ -65,6 +65,12 @@ export interface GenerateOptions {
   /** true: emit the header (declarations); false/absent: the C source (definitions). */
   header?: boolean;
   /**
+   * Put before every identifier generated for a channel (functions, types, tables, macros), so
+   * that two specs with a channel of the same name link together: a C identifier of 1..32
+   * characters starting with a letter. Absent: none.
+   */
+  prefix?: string;
+  /**
    * Source only. false/absent: each block includes `<fileStem>.h` for its types and prototypes
    * (never repeats them, so a file that also includes the header compiles cleanly); true: each
    * block declares them itself (a block pasted into a file of the user's own).

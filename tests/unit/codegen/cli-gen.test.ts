@@ -10,6 +10,7 @@ import { runGen } from '../../../server/src/cli/commands/gen';
 import { runCheck } from '../../../server/src/cli/commands/check';
 import { findGeneratedBlocks, scanGeneratedBlocks } from '../../../server/src/codegen';
 import { FIXTURES } from '../helpers/fixtures';
+import { hasTool, run } from '../../fixtures/codegen/toolchain';
 
 const SPEC = path.join(FIXTURES, 'codegen', 'gen', 'pump.tsense');
 let dir: string;
@@ -155,6 +156,25 @@ describe('thermoscribe gen', () => {
     expect(check(['pump.tsense', '--code', 'fw/temps.c']).out).toContain("[generated-stale] the generated code for 'coolant' in temps.c");
     const sarif = check(['pump.tsense', '--code', 'fw/temps.c', '--format', 'sarif']).out;
     expect(sarif).toContain('"ruleId": "generated-stale"');
+  });
+
+  it.skipIf(!hasTool('gcc'))('--prefix: two specs with a same-named channel link into one program (#13 item 12)', () => {
+    fs.copyFileSync(SPEC, path.join(dir, 'other.tsense'));
+    const main = '#include "pump_conversion.h"\n#include "other_conversion.h"\nint main(void)\n{\n    pa_coolant_temp_t a;\n    pb_coolant_temp_t b;\n    return (int)(pa_coolant_code_to_temp(500u, &a) + pb_coolant_code_to_temp(500u, &b)) + (int)(a - b);\n}\n';
+    fs.writeFileSync(path.join(dir, 'main.c'), main);
+    const flags = ['-std=c99', '-pedantic', '-Wall', '-Wextra', '-Wconversion', '-Wsign-conversion', '-Werror'];
+    // Without a prefix both files define coolant_code_to_temp: the link fails.
+    expect(runCli(['gen', 'pump.tsense']).code).toBe(0);
+    expect(runCli(['gen', 'other.tsense']).code).toBe(0);
+    expect(() => run('gcc', [...flags, '-c', 'pump_conversion.c', 'other_conversion.c'], dir, 120_000)).not.toThrow();
+    expect(() => run('gcc', [...flags, 'pump_conversion.o', 'other_conversion.o', '-o', 'clash'], dir, 120_000)).toThrow(/multiple definition/);
+    for (const f of fs.readdirSync(dir).filter((x) => /_conversion\.[cho]$/.test(x))) fs.rmSync(path.join(dir, f));
+    const a = runCli(['gen', 'pump.tsense', '--prefix', 'pa_']);
+    expect(a.code).toBe(0);
+    expect(runCli(['gen', 'other.tsense', '--prefix', 'pb_']).code).toBe(0);
+    expect(read('pump_conversion.h')).toContain('#define PA_COOLANT_SCALE 10 ');
+    run('gcc', [...flags, 'main.c', 'pump_conversion.c', 'other_conversion.c', '-o', 'linked'], dir, 120_000);
+    expect(runCli(['gen', 'pump.tsense', '--prefix', '9x']).err).toContain('--prefix must be a C identifier of 1 to 32 letters');
   });
 
   it('exits 2 on unusable arguments', () => {

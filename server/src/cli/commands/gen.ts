@@ -1,4 +1,5 @@
-// thermoscribe gen FILE [--channel NAME] [--out PATH] [--root DIR] [--prune]
+// thermoscribe gen FILE [--channel NAME] [--out PATH] [--root DIR] [--prune] [--prefix NAME]
+// --prefix goes before every identifier generated (two specs with a same-named channel then link).
 // Writes the conversion code of every channel (or one) to PATH (default `<spec-stem>_conversion.c`
 // beside the spec) and the header beside it (same stem, `.h`). An existing file has only the
 // marked blocks replaced (blocks of channels not in it are added); hand-written code is kept.
@@ -15,13 +16,14 @@ import { orphanBlocks, scanGeneratedBlocks, spliceGenerated } from '../../codege
 import { specChannelNames } from '../../codegen/stale';
 import { conversionFilePath, headerPathFor } from '../../codegen/channel-input';
 import { generateForSpec, splitChannels } from '../../codegen/spec';
+import { prefixProblem } from '../../codegen/generate';
 import type { GenerateResult, SpliceBlock } from '../../codegen/types';
 import { parseArgs } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic } from '../text';
 import { loadAnalyses } from './check';
 
-export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR] [--prune]';
+export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR] [--prune] [--prefix NAME]';
 
 interface Planned {
   file: string;
@@ -31,13 +33,17 @@ interface Planned {
 }
 
 export function runGen(argv: string[], io: CliIO): number {
-  const args = parseArgs(argv, ['channel', 'out', 'root']);
+  const args = parseArgs(argv, ['channel', 'out', 'root', 'prefix']);
   if (typeof args === 'string') return usage(io, args);
   if (args.positional.length !== 1) return usage(io, 'name exactly one .tsense file');
   const channel = args.options.get('channel');
   const out = args.options.get('out');
   const root = args.options.get('root');
   if (channel === true || out === true || root === true) return usage(io, 'options --channel, --out and --root need a value');
+  const prefix = args.options.get('prefix');
+  if (prefix === true) return usage(io, 'option --prefix needs a value');
+  const badPrefix = prefix === undefined ? undefined : prefixProblem(prefix);
+  if (badPrefix) return usage(io, `--prefix ${badPrefix}`);
   if (out !== undefined && !/\.c$/.test(out)) return usage(io, `--out names the C source file and must end in .c (got '${out}'); the header is written beside it with .h`);
   const host = new DiskHost();
   const analyses = loadAnalyses(args.positional, root, io, host);
@@ -57,7 +63,7 @@ export function runGen(argv: string[], io: CliIO): number {
   const cPath = out !== undefined ? path.resolve(io.cwd, out) : conversionFilePath(a.path);
   const hPath = headerPathFor(cPath);
   const stem = path.basename(cPath, '.c');
-  const gen = split.clean.length > 0 ? generateForSpec({ path: a.path, channels: split.clean }, { fileStem: stem }) : undefined;
+  const gen = split.clean.length > 0 ? generateForSpec({ path: a.path, channels: split.clean }, { fileStem: stem, prefix }) : undefined;
   const leftOut = [...split.leftOut, ...(gen?.leftOut ?? [])];
   for (const l of leftOut) io.err(`thermoscribe gen: left out '${l.channel}': ${l.why}\n`);
   if (!gen || !gen.ok) {
