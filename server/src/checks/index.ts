@@ -11,6 +11,8 @@ import { checkSourceImpedance } from './source-impedance';
 import { checkOversampling } from './oversampling';
 import { checkAccuracy } from './accuracy';
 import { checkCalibrationFit } from './calibration-fit';
+import { checkSaturation } from './saturation';
+import { checkSensorFault } from './sensor-fault';
 import type { ChannelDef } from '../model/types';
 import { kindOf } from '../sensors/registry';
 
@@ -18,6 +20,8 @@ type Check = (ctx: CheckContext) => void;
 
 const COMMON: readonly Check[] = [
   checkClip,
+  checkSaturation,
+  checkSensorFault,
   checkResolution,
   checkSelfHeating,
   checkNonlinearity,

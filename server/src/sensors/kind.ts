@@ -22,6 +22,7 @@ import type { FitResult } from '../calibration/fit';
 import type { BlockReader } from '../model/resolve';
 import type { BlockSpec } from '../model/schema';
 import type { BiasDef, ChannelDef, DefBase, SensorDef } from '../model/types';
+import type { FaultVolts } from './faults';
 
 /** A board-to-board spread of the element, as an error-budget contributor (relative half-width). */
 export interface ElementContributor {
@@ -83,6 +84,8 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   classToleranceK?(c: ChannelDef): number | null;
   /** Kind-specific inputs of the JSON report (base SI units). */
   reportInputs?(c: ChannelDef): Record<string, unknown>;
+  /** The ADC pin's voltage with the sensor open and shorted (sensors/faults.ts turns them into codes). */
+  faults(c: ChannelDef): FaultVolts[];
   /** Fit of the channel's `measured` points, or null when the kind fits none (calibration/fit.ts). */
   fit?(c: ChannelDef): FitResult | null;
 

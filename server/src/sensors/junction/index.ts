@@ -1,5 +1,6 @@
 // The junction kind: a diode-connected transistor or a diode read at one or two bias currents.
 import type { SensorKind } from '../kind';
+import { junctionFaultVolts } from './faults';
 import { block } from './block';
 import { readJunction, junctionBiasProblem } from './read';
 import { senseJunction } from './model';
@@ -25,6 +26,7 @@ export const junction: SensorKind<JunctionDef> = {
   perturb: perturbJunction,
   fit: fitJunction,
   // Supply before the bias window, which defers to it; both before self-heating at the same span.
+  faults: junctionFaultVolts,
   checks: { first: [checkSupply, checkBiasWindow], last: [checkTwoCurrent] },
   hover: junctionHover,
   summary: junctionSummary,

@@ -1,5 +1,6 @@
 // The rtd kind: a platinum element (IEC 60751) in a divider or on a current source.
 import type { SensorKind } from '../kind';
+import { rtdFaultVolts } from './faults';
 import { block } from './block';
 import { readRtd } from './read';
 import { perturbRtd, rtdClassToleranceK, rtdContributors, rtdElementJson, rtdModel, rtdRangeProblem, rtdSpread } from './model';
@@ -28,6 +29,7 @@ export const rtd: SensorKind<RtdDef> = {
   sensorSpread: rtdSpread,
   classToleranceK: rtdClassToleranceK,
   reportInputs: (c) => resistiveInputsJson(c, rtdElementJson(c.sensor as RtdDef)),
+  faults: rtdFaultVolts,
   checks: { first: [], last: [checkLeadResistance, checkClassValidity] },
   hover: rtdHover,
   channelHoverLines: (r) => resistiveChannelLines(r, 'platinum: R rises with T'),

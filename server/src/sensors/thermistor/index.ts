@@ -1,5 +1,6 @@
 // The thermistor kind: an NTC element in a divider or on a current source.
 import type { SensorKind } from '../kind';
+import { thermistorFaultVolts } from './faults';
 import { block } from './block';
 import { readThermistor } from './read';
 import { perturbThermistor, thermistorContributors, thermistorElementJson, thermistorModel, thermistorRangeProblem, thermistorSpread } from './model';
@@ -27,6 +28,7 @@ export const thermistor: SensorKind<ThermistorDef> = {
   perturb: perturbThermistor,
   sensorSpread: thermistorSpread,
   reportInputs: (c) => resistiveInputsJson(c, thermistorElementJson(c.sensor as ThermistorDef)),
+  faults: thermistorFaultVolts,
   checks: { first: [], last: [checkDividerOptimum, checkBetaExtrapolated] },
   hover: thermistorHover,
   channelHoverLines: (r) => resistiveChannelLines(r, 'NTC: R falls with T'),
