@@ -1,7 +1,7 @@
 // C99 text for one channel. Integer-only unless the float variant is asked for; no libm ever.
 // Every constant below comes from a design that was simulated exactly in TypeScript first.
 
-import { GAIN_Q, type TrimDesign } from './calibration';
+import { GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, type TrimDesign } from './calibration';
 import { commentLines } from './names';
 import type { PolyDesign } from './polynomial';
 import type { TableDesign } from './table';
@@ -21,6 +21,12 @@ export interface ChannelPlan {
   outBits: 16 | 32;
   /** The trimmed output can leave the output type's range: clamp in C. */
   needClamp: boolean;
+  /** Smallest and largest untrimmed value over the in-range codes (run-time trim setters bound the trims with them). */
+  kernelMin: number;
+  kernelMax: number;
+  /** Untrimmed values at the low and high in-range codes. */
+  kernelAtLow: number;
+  kernelAtHigh: number;
   floatVariant: boolean;
   /** Final outputs at the low and high in-range codes (what a clamped code returns). */
   outAtLow: number;
@@ -149,7 +155,9 @@ function declarations(p: ChannelPlan): string {
     out.push(
       p.trim.mode === 'offset'
         ? `void ${n.setter}(int16_t offset_units); /* offset in 1/${p.scale} degC */`
-        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
+        : `/* Two-point trim: out = y + floor((y * D + 32768) / 65536) + offset_units, with y the untrimmed\n` +
+          `   value and D = 4 * gain_q${GAIN_Q} - 65536; gain_q${GAIN_Q} = gain * 2^${GAIN_Q}, held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5). */\n` +
+          `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
     );
   }
   if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
@@ -264,9 +272,48 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
 
 function trimExpr(p: ChannelPlan, n: ReturnType<typeof names>, value: string): string {
   const off = p.trim.runtime ? `(int32_t)${n.trims}.offset` : lit32(p.trim.offsetScaled);
-  const gain = p.trim.runtime ? `(int32_t)${n.trims}.gain_q${GAIN_Q}` : lit32(p.trim.gainQ);
   if (p.trim.mode === 'offset') return `(int32_t)${value} + ${off}`;
-  return `THSC_ASR32((int32_t)${value} * ${gain} + ${lit32(2 ** (GAIN_Q - 1))}, ${GAIN_Q}) + ${off}`;
+  // y + floor((y * D + 2^15) / 2^16) + O (calibration.ts): a 16 x 16 -> 32-bit product, whose
+  // high half is the correction (the value fits int16 whenever a two-point trim is designed).
+  return `(int32_t)${value} + THSC_ASR32((int32_t)(int16_t)${value} * ${p.trim.gainD}L + 32768L, 16) + ${off}`;
+}
+
+/** The setter of run-time trims; it bounds them so that every in-range output fits the output type. */
+function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string {
+  const bounded = p.outBits === 16;
+  const kmin = lit32(p.kernelMin);
+  const kmax = lit32(p.kernelMax);
+  if (p.trim.mode === 'offset') {
+    if (!bounded) return `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`;
+    return [
+      `void ${n.setter}(int16_t offset_units)`,
+      '{',
+      '    /* Held so that no in-range output leaves int16_t: the conversion then needs no clamp. */',
+      `    if (offset_units > ${32767 - p.kernelMax}) offset_units = ${32767 - p.kernelMax};`,
+      `    if (offset_units < ${-32768 - p.kernelMin}) offset_units = ${-32768 - p.kernelMin};`,
+      `    ${n.trims}.offset = offset_units;`,
+      '}',
+    ].join('\n');
+  }
+  const g = `gain_q${GAIN_Q}`;
+  return [
+    `void ${n.setter}(int16_t offset_units, uint16_t ${g})`,
+    '{',
+    '    int32_t d, lo, hi, off;',
+    `    /* The gain is held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5) and stored as D = 4 * gain - 65536; the`,
+    '       offset is held so that no in-range output leaves int16_t (the conversion needs no clamp). */',
+    `    if (${g} < ${GAIN_Q_MIN}u) ${g} = ${GAIN_Q_MIN}u;`,
+    `    else if (${g} > ${GAIN_Q_MAX}u) ${g} = ${GAIN_Q_MAX}u;`,
+    `    d = (int32_t)${g} * 4 - (int32_t)65536L;`,
+    `    lo = (int32_t)(${kmin} + THSC_ASR32(${kmin} * d + 32768L, 16));`,
+    `    hi = (int32_t)(${kmax} + THSC_ASR32(${kmax} * d + 32768L, 16));`,
+    '    off = offset_units;',
+    '    if (off > 32767L - hi) off = 32767L - hi;',
+    '    if (off < -32768L - lo) off = -32768L - lo;',
+    `    ${n.trims}.offset = (int16_t)off;`,
+    `    ${n.trims}.gain_d = (int16_t)d;`,
+    '}',
+  ].join('\n');
 }
 
 function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
@@ -286,17 +333,37 @@ export function emitSourceBody(p: ChannelPlan): string {
   const outT = `int${p.outBits}_t`;
   const parts: string[] = [headComment(p), '#include <stdint.h>', SHARED_STATUS, SHARED_IMPL, declarations(p), dataCode(p, n)];
   if (p.trim.runtime) {
-    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : `int16_t offset; uint16_t gain_q${GAIN_Q};`;
-    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainQ}u`;
+    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int16_t offset; int16_t gain_d;';
+    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainD}`;
     parts.push(`static struct { ${fields} } ${n.trims} = { ${init} };`);
-    parts.push(
-      p.trim.mode === 'offset'
-        ? `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`
-        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q})\n{\n    ${n.trims}.offset = offset_units;\n    ${n.trims}.gain_q${GAIN_Q} = gain_q${GAIN_Q};\n}`,
-    );
+    parts.push(trimRuntimeSetter(p, n));
   }
+  if (p.trim.runtime && p.outBits === 16) {
+    // Run-time trims on a 16-bit output: the untrimmed conversion (with its early returns at the
+    // range ends) and the trim applied once to whatever it gives; the compiler inlines the first.
+    const inner: ChannelPlan = { ...p, trim: { ...p.trim, mode: 'none', runtime: false }, outAtLow: p.kernelAtLow, outAtHigh: p.kernelAtHigh };
+    parts.push(conversionFunction(inner, n, kernelCode(inner, n), `static uint8_t ${n.id}_untrimmed(uint16_t code, int16_t *out)`));
+    const corr = p.trim.mode === 'two-point' ? ['    int16_t corr;'] : [];
+    const apply =
+      p.trim.mode === 'offset'
+        ? [`    *out = (int16_t)(kernel + ${n.trims}.offset);`]
+        : [
+            `    corr = (int16_t)THSC_ASR32((int32_t)kernel * ${n.trims}.gain_d + 32768L, 16);`,
+            `    *out = (int16_t)(kernel + corr + ${n.trims}.offset);`,
+          ];
+    parts.push([`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    int16_t kernel;', ...corr, `    uint8_t status = ${n.id}_untrimmed(code, &kernel);`, ...apply, '    return status;', '}'].join('\n'));
+  } else {
+    parts.push(conversionFunction(p, n, k, `uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`));
+  }
+  if (p.floatVariant) parts.push(floatVariant(p, n));
+  return `${parts.join('\n')}\n`;
+}
+
+/** The conversion function with the given signature (early returns unless trims are set at run time). */
+function conversionFunction(p: ChannelPlan, n: ReturnType<typeof names>, k: ReturnType<typeof kernelCode>, signature: string): string {
+  const outT = `int${p.outBits}_t`;
   const early = !p.trim.runtime;
-  const lines: string[] = [`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{'];
+  const lines: string[] = [signature, '{'];
   if (!early) lines.push('    uint8_t status = THSC_IN_RANGE;');
   lines.push(...k.decl);
   if (p.trim.mode !== 'none') lines.push('    int32_t trimmed;');
@@ -312,9 +379,7 @@ export function emitSourceBody(p: ChannelPlan): string {
     lines.push(`    *out = (${outT})trimmed;`);
   }
   lines.push(early ? '    return THSC_IN_RANGE;' : '    return status;', '}');
-  parts.push(lines.join('\n'));
-  if (p.floatVariant) parts.push(floatVariant(p, n));
-  return `${parts.join('\n')}\n`;
+  return lines.join('\n');
 }
 
 /** Same points, float interpolation without the integer rounding; no libm. */
@@ -349,7 +414,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
     lines.push(`    y += (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`);
   } else if (p.trim.mode === 'two-point') {
     lines.push(
-      `    y = y * ((float)${p.trim.runtime ? `${n.trims}.gain_q${GAIN_Q}` : p.trim.gainQ} / ${2 ** GAIN_Q}.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
+      `    y = y * ((65536.0f + (float)${p.trim.runtime ? `${n.trims}.gain_d` : p.trim.gainD}) / 65536.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
     );
   }
   lines.push(`    *celsius = y / ${p.scale}.0f;`, '    return status;', '}');

@@ -3,7 +3,7 @@
 // and emits marker-wrapped C blocks.
 
 import { INT16_MAX, INT16_MIN } from './arith';
-import { trimDesign } from './calibration';
+import { GAIN_Q, GAIN_Q_MAX, trimDesign } from './calibration';
 import { CAUTION_LINES, emitHeaderBody, emitSourceBody, type ChannelPlan } from './emit';
 import { renderBlock } from './markers';
 import { commentLines, uniqueIdentifiers } from './names';
@@ -63,8 +63,8 @@ export function validateInput(c: ConversionInput): void {
     fail(c, 'calibration.mode', `must be none, offset or two-point, got ${String(cal?.mode)}`);
   if (cal.offset !== undefined && (!Number.isFinite(cal.offset) || Math.abs(cal.offset * c.outputScale) > 32767))
     fail(c, 'calibration.offset', `must be finite with |offset| <= ${(32767 / c.outputScale).toFixed(2)} degC, got ${cal.offset}`);
-  if (cal.gain !== undefined && (!Number.isFinite(cal.gain) || cal.gain < 0.5 || cal.gain > 2))
-    fail(c, 'calibration.gain', `must be in 0.5..2, got ${cal.gain}`);
+  if (cal.gain !== undefined && (!Number.isFinite(cal.gain) || cal.gain < 0.5 || cal.gain > GAIN_Q_MAX / 2 ** GAIN_Q))
+    fail(c, 'calibration.gain', `must be in 0.5..${(GAIN_Q_MAX / 2 ** GAIN_Q).toFixed(4)}, got ${cal.gain}`);
   if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
@@ -203,9 +203,13 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
     let lo = Infinity;
     let hi = -Infinity;
     let worst = 0;
+    let kLo = Infinity;
+    let kHi = -Infinity;
     for (let code = s.low; code <= s.high; code++) {
       const k = kernelAt(ch.design, s, code);
-      const t = s.trim.mode === 'none' ? k : s.trim.mode === 'offset' ? k + s.trim.offsetScaled : (k * s.trim.gainQ) / 16384 + s.trim.offsetScaled;
+      kLo = Math.min(kLo, k);
+      kHi = Math.max(kHi, k);
+      const t = s.trim.mode === 'none' ? k : s.trim.mode === 'offset' ? k + s.trim.offsetScaled : k + (k * s.trim.gainD) / 65536 + s.trim.offsetScaled;
       lo = Math.min(lo, t);
       hi = Math.max(hi, t);
       worst = Math.max(worst, Math.abs(finish(s, k) - s.ideal[code - s.low]!));
@@ -223,7 +227,12 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
       design: ch.design,
       trim: s.trim,
       outBits,
-      needClamp: s.trim.runtime || lo - 1 < s.outMin || hi + 1 > s.outMax,
+      // Run-time trims: the setter holds them so that no output leaves the type (emit.ts).
+      needClamp: !s.trim.runtime && (lo - 1 < s.outMin || hi + 1 > s.outMax),
+      kernelMin: kLo,
+      kernelMax: kHi,
+      kernelAtLow: kernelAt(ch.design, s, s.low),
+      kernelAtHigh: kernelAt(ch.design, s, s.high),
       floatVariant: c.floatVariant,
       outAtLow: finish(s, kernelAt(ch.design, s, s.low)),
       outAtHigh: finish(s, kernelAt(ch.design, s, s.high)),
