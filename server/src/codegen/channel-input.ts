@@ -141,7 +141,8 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     celsiusAtCode: (code: number) => kelvinAtVolts(model, (meanReadingOfDecimated(code, n) + 0.5) * lsb, lowK, highK) - ZERO_CELSIUS_K,
     outputScale: opts.outputScale,
     errorTarget: opts.errorC,
-    method: opts.method,
+    // `conversion = line`: the firmware converts with one straight line, as the spec says.
+    method: c.conversion === 'line' ? 'line' : opts.method,
     calibration,
     floatVariant: opts.floatVariant,
     specHash: channelSpecHash(c),

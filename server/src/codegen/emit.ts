@@ -33,6 +33,8 @@ export interface ChannelPlan {
   outAtHigh: number;
   maxErrorC: number;
   errorTarget: number;
+  /** A straight line asked for by the spec (`conversion = line`): its error is not held to the target. */
+  line?: boolean;
   note?: string;
 }
 
@@ -65,6 +67,47 @@ const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
 #define THSC_MUL_HI8(s, f) ((uint16_t)((__extension__((__uint24)(s) * (uint8_t)(f) + 128u)) >> 8))
 #else
 #define THSC_MUL_HI8(s, f) ((uint16_t)(((uint32_t)(s) * (uint8_t)(f) + 128UL) >> 8))
+#endif
+#endif
+#ifndef THSC_GAIN_HELPER
+#define THSC_GAIN_HELPER 1
+/* floor((y * d + 32768) / 65536) for 16-bit y and d: the gain correction of a run-time trim. On
+   an 8-bit AVR with a multiplier, the signed 16 x 16 -> 32-bit multiply of Atmel application note
+   AVR201 (four hardware multiplies, inline) instead of a library call; the low byte is not formed,
+   as it cannot carry into the result. */
+#if defined(__AVR__) && defined(__GNUC__) && defined(__AVR_HAVE_MUL__)
+static inline int16_t thsc_gain_corr(int16_t y, int16_t d)
+{
+    int16_t r;
+    uint8_t b1, z;
+    __asm__ (
+        "clr %[z]\\n\\t"
+        "muls %B[y], %B[d]\\n\\t"
+        "mov %A[r], __tmp_reg__\\n\\t"
+        "mov %B[r], __zero_reg__\\n\\t"
+        "mul %A[y], %A[d]\\n\\t"
+        "mov %[b1], __zero_reg__\\n\\t"
+        "mulsu %B[y], %A[d]\\n\\t"
+        "sbc %B[r], %[z]\\n\\t"
+        "add %[b1], __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "mulsu %B[d], %A[y]\\n\\t"
+        "sbc %B[r], %[z]\\n\\t"
+        "add %[b1], __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "lsl %[b1]\\n\\t"
+        "adc %A[r], %[z]\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "clr __zero_reg__"
+        : [r] "=&r" (r), [b1] "=&r" (b1), [z] "=&r" (z)
+        : [y] "a" (y), [d] "a" (d));
+    return r;
+}
+#define THSC_GAIN_CORR(y, d) thsc_gain_corr((y), (d))
+#else
+#define THSC_GAIN_CORR(y, d) ((int16_t)THSC_ASR32((int32_t)(y) * (d) + 32768L, 16))
 #endif
 #endif`;
 
@@ -127,7 +170,9 @@ function describe(p: ChannelPlan): string[] {
       : []),
     `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code).`,
     `Method: ${what}; ${trim}.`,
-    `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
+    p.line
+      ? `Straight line (conversion = line in the spec), not held to a code error target: max error vs the model over every in-range code ${p.maxErrorC.toFixed(4)} degC,`
+      : `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
     'from an exact simulation of this integer arithmetic.',
     `${names(p).fn}() returns THSC_IN_RANGE, or THSC_CLAMPED_COLD / THSC_CLAMPED_HOT when the code is`,
     'outside the range; the output is then pinned to the nearest range end (never wrapped).',
@@ -348,7 +393,7 @@ export function emitSourceBody(p: ChannelPlan): string {
       p.trim.mode === 'offset'
         ? [`    *out = (int16_t)(kernel + ${n.trims}.offset);`]
         : [
-            `    corr = (int16_t)THSC_ASR32((int32_t)kernel * ${n.trims}.gain_d + 32768L, 16);`,
+            `    corr = THSC_GAIN_CORR(kernel, ${n.trims}.gain_d);`,
             `    *out = (int16_t)(kernel + corr + ${n.trims}.offset);`,
           ];
     parts.push([`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    int16_t kernel;', ...corr, `    uint8_t status = ${n.id}_untrimmed(code, &kernel);`, ...apply, '    return status;', '}'].join('\n'));

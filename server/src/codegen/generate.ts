@@ -57,7 +57,7 @@ export function validateInput(c: ConversionInput): void {
     fail(c, 'errorTarget', `must be a number in (0, 100] degC, got ${c.errorTarget}`);
   if (c.errorTarget * c.outputScale < 0.5)
     fail(c, 'errorTarget', `${c.errorTarget} degC is below half an output unit (0.5/${c.outputScale} degC); raise outputScale or the target`);
-  if (!['auto', 'table', 'polynomial'].includes(c.method)) fail(c, 'method', `must be auto, table or polynomial, got ${String(c.method)}`);
+  if (!['auto', 'table', 'polynomial', 'line'].includes(c.method)) fail(c, 'method', `must be auto, table, polynomial or line, got ${String(c.method)}`);
   const cal = c.calibration;
   if (!cal || !['none', 'offset', 'two-point'].includes(cal.mode))
     fail(c, 'calibration.mode', `must be none, offset or two-point, got ${String(cal?.mode)}`);
@@ -133,7 +133,30 @@ interface Choice {
   bytes: number;
 }
 
+/** A straight line: two points, one segment over every in-range code (linear interpolation between them). */
+function chooseLine(c: ConversionInput, s: Samples): Choice {
+  let shift = 0;
+  while (shift < 15 && Math.floor(s.low / 2 ** shift) !== Math.floor(s.high / 2 ** shift)) shift++;
+  // Start from the line of least maximum error for a curve that bends one way: the chord's slope,
+  // moved halfway between the chord and the farthest point (Chebyshev equioscillation; e.g. any
+  // numerical-analysis text on minimax approximation). The table search then refines it.
+  const n = s.f.length;
+  const slope = n > 1 ? (s.f[n - 1]! - s.f[0]!) / (n - 1) : 0;
+  let dMin = Infinity;
+  let dMax = -Infinity;
+  for (let k = 0; k < n; k++) {
+    const d = s.f[k]! - (s.f[0]! + slope * k);
+    dMin = Math.min(dMin, d);
+    dMax = Math.max(dMax, d);
+  }
+  const line = (code: number) => s.f[0]! + (dMin + dMax) / 2 + slope * (code - s.low);
+  const r = Math.floor(s.low / 2 ** shift) === Math.floor(s.high / 2 ** shift) ? designTable(s, shift, line) : undefined;
+  if (!r) fail(c, 'method', `a straight line over codes ${s.low}..${s.high} cannot be represented (the range crosses code 32768); use a table`);
+  return { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) };
+}
+
 function choose(c: ConversionInput, s: Samples): Choice {
+  if (c.method === 'line') return chooseLine(c, s);
   const target = c.errorTarget * c.outputScale;
   const n = s.high - s.low + 1;
   const maxShift = Math.min(15, Math.max(0, Math.ceil(Math.log2(Math.max(1, n)))));
@@ -238,6 +261,7 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
       outAtHigh: finish(s, kernelAt(ch.design, s, s.high)),
       maxErrorC: worst / c.outputScale,
       errorTarget: c.errorTarget,
+      ...(c.method === 'line' ? { line: true } : {}),
       note: c.note,
     });
     samples.push(s);

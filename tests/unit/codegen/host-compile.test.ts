@@ -132,7 +132,9 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         if (got[code]!.f !== undefined) worstFloat = Math.max(worstFloat, Math.abs(got[code]!.f! - want));
       }
       console.log(`host gcc: ${c.channelName}: ${c.codeHigh - c.codeLow + 1} codes, max error ${worst.toFixed(4)} degC (target ${c.errorTarget})${c.floatVariant ? `, float variant ${worstFloat.toFixed(4)} degC` : ''}`);
-      expect(worst, c.channelName).toBeLessThanOrEqual(c.errorTarget);
+      // A straight line (`conversion = line`) is held to its own claimed error, not to the target.
+      const claimed = c.method === 'line' ? planChannels([c]).plans[0]!.maxErrorC + 1e-9 : c.errorTarget;
+      expect(worst, c.channelName).toBeLessThanOrEqual(claimed);
       // The float variant skips only the final integer rounding: within target plus one output unit.
       if (c.floatVariant) expect(worstFloat, c.channelName).toBeLessThanOrEqual(c.errorTarget + 1 / c.outputScale);
     }
