@@ -24,6 +24,8 @@ export interface ChannelPlan {
   /** Smallest and largest untrimmed value over the in-range codes (run-time trim setters bound the trims with them). */
   kernelMin: number;
   kernelMax: number;
+  /** Internal fraction bits of the kernel: it works in 1/(scale * 2^fracBits) degC and rounds at the end. */
+  fracBits: number;
   /** Untrimmed values at the low and high in-range codes. */
   kernelAtLow: number;
   kernelAtHigh: number;
@@ -334,8 +336,9 @@ function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string 
       `void ${n.setter}(int16_t offset_units)`,
       '{',
       '    /* Held so that no in-range output leaves int16_t: the conversion then needs no clamp. */',
-      `    if (offset_units > ${32767 - p.kernelMax}) offset_units = ${32767 - p.kernelMax};`,
-      `    if (offset_units < ${-32768 - p.kernelMin}) offset_units = ${-32768 - p.kernelMin};`,
+      // A side whose bound lies outside int16_t needs no test (-Wtype-limits).
+      ...(32767 - p.kernelMax < 32767 ? [`    if (offset_units > ${32767 - p.kernelMax}) offset_units = ${32767 - p.kernelMax};`] : []),
+      ...(-32768 - p.kernelMin > -32768 ? [`    if (offset_units < ${-32768 - p.kernelMin}) offset_units = ${-32768 - p.kernelMin};`] : []),
       `    ${n.trims}.offset = offset_units;`,
       '}',
     ].join('\n');
@@ -404,6 +407,18 @@ export function emitSourceBody(p: ChannelPlan): string {
   return `${parts.join('\n')}\n`;
 }
 
+/**
+ * The kernel's internal fraction bits rounded off: floor((kernel + 2^(F-1)) / 2^F). 16-bit: biased
+ * into uint16 and shifted (no right shift of a negative number, C99 6.5.7p5); the design keeps
+ * kernel + 2^(F-1) inside int16.
+ */
+function roundFraction(p: ChannelPlan, wide: boolean): string[] {
+  const f = p.fracBits;
+  if (f === 0) return [];
+  if (wide) return [`    kernel = THSC_ASR32(kernel + ${2 ** (f - 1)}L, ${f}); /* to 1/${p.scale} degC, rounded */`];
+  return [`    kernel = (int16_t)((int16_t)((uint16_t)((uint16_t)kernel + ${0x8000 + 2 ** (f - 1)}u) >> ${f}) - ${0x8000 >> f}); /* to 1/${p.scale} degC, rounded */`];
+}
+
 /** The conversion function with the given signature (early returns unless trims are set at run time). */
 function conversionFunction(p: ChannelPlan, n: ReturnType<typeof names>, k: ReturnType<typeof kernelCode>, signature: string): string {
   const outT = `int${p.outBits}_t`;
@@ -412,7 +427,7 @@ function conversionFunction(p: ChannelPlan, n: ReturnType<typeof names>, k: Retu
   if (!early) lines.push('    uint8_t status = THSC_IN_RANGE;');
   lines.push(...k.decl);
   if (p.trim.mode !== 'none') lines.push('    int32_t trimmed;');
-  lines.push(...clampCode(p, early), ...k.body);
+  lines.push(...clampCode(p, early), ...k.body, ...roundFraction(p, k.wide));
   if (p.trim.mode === 'none') {
     lines.push(`    *out = (${outT})kernel;`);
   } else {
@@ -448,6 +463,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
       `    b = (float)${rd}(&${n.data}[idx + 1u]);`,
       `    y = a + (b - a) * ((float)(off & ${2 ** d.shift - 1}u) / ${2 ** d.shift}.0f);`,
     );
+    if (p.fracBits > 0) lines.push(`    y = y / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
   } else if (d.kind === 'table') {
     lines.push(`    y = (float)${rd}(&${n.data}[code - ${p.low}u]);`);
   } else {

@@ -58,6 +58,9 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
     // model is the engine's exact inverse (analysis/inverse.ts), itself checked against published
     // equations in the physics and sensor tests.
     channels.push(...sampleChannels());
+    // The same channels with a coarse output unit (0.1 degC, 0.08 degC target): the kernel then
+    // carries internal fraction bits and rounds at the end, which must match the simulation too.
+    channels.push(...sampleChannels().map((c) => ({ ...c, channelName: `${c.channelName}.coarse`, outputScale: 10, errorTarget: 0.08 })));
     const src = generateC(channels, { fileStem: 'conv' });
     const hdr = generateC(channels, { fileStem: 'conv', header: true });
     const { plans } = planChannels(channels);
