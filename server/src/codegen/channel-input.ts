@@ -147,6 +147,7 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     errorTarget: opts.errorC,
     // `conversion = line`: the firmware converts with one straight line, as the spec says.
     method: c.conversion === 'line' ? 'line' : opts.method,
+    optimise: ('optimise' in opts ? opts.optimise : undefined) ?? 'balanced',
     calibration,
     floatVariant: opts.floatVariant,
     specHash: channelSpecHash(c),

@@ -57,6 +57,7 @@ export function validateInput(c: ConversionInput): void {
     fail(c, 'errorTarget', `must be a number in (0, 100] degC, got ${c.errorTarget}`);
   if (c.errorTarget * c.outputScale < 0.5)
     fail(c, 'errorTarget', `${c.errorTarget} degC is below half an output unit (0.5/${c.outputScale} degC); raise outputScale or the target`);
+  if (c.optimise !== undefined && !['size', 'speed', 'balanced'].includes(c.optimise)) fail(c, 'optimise', `must be size, speed or balanced, got ${String(c.optimise)}`);
   if (!['auto', 'table', 'polynomial', 'line'].includes(c.method)) fail(c, 'method', `must be auto, table, polynomial or line, got ${String(c.method)}`);
   const cal = c.calibration;
   if (!cal || !['none', 'offset', 'two-point'].includes(cal.mode))
@@ -136,10 +137,19 @@ interface Choice {
   s: Samples;
 }
 
+/**
+ * Rough cycles of one conversion on an 8-bit AVR (simavr, atmega328p, -Os; `npm run bench` prints
+ * the measured figures): they only rank designs for `optimise`.
+ */
+function cyclesEstimate(d: Design, s: Samples): number {
+  const base = d.kind === 'polynomial' ? 170 : d.shift === 0 ? 40 : d.entryBits === 16 && d.spanMax <= 32767 ? 72 : 120;
+  return base + (s.frac > 0 ? 18 : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 70);
+}
+
 /** Largest number of internal fraction bits tried. */
 const MAX_FRAC = 4;
-/** Bytes of the final rounding shift (atmega328p, -Os, measured like CODE_BYTES). */
-const ROUND_BYTES = 12;
+/** Bytes of the final rounding step (atmega328p, -Os, linked; bench: 188 against 164 bytes for the junction channel). */
+const ROUND_BYTES = 24;
 
 /** A straight line: two points, one segment over every in-range code (linear interpolation between them). */
 function chooseLine(c: ConversionInput, s0: Samples): Choice {
@@ -205,9 +215,12 @@ function choose(c: ConversionInput, s0: Samples): Choice {
     const best = bestMissed ? ` (best reached: ${(bestMissed.maxErr / c.outputScale).toFixed(4)} degC)` : '';
     fail(c, 'errorTarget', `${c.errorTarget} degC cannot be met by the ${c.method} method${best}; raise the target or outputScale`);
   }
-  // Fewest bytes; ties: fewer fraction bits (fewer cycles), smaller error, then table before
-  // polynomial, then wider spacing.
-  candidates.sort((a, b) => a.bytes - b.bytes || a.s.frac - b.s.frac || a.maxErr - b.maxErr || (a.design.kind === 'table' ? -1 : 1) - (b.design.kind === 'table' ? -1 : 1) || b.design.shift - a.design.shift);
+  // size: fewest bytes; speed: fewest estimated cycles, then bytes; balanced: bytes plus cycles
+  // (on an 8-bit MCU both run to a few hundred). Ties: fewer fraction bits (fewer cycles), smaller
+  // error, then table before polynomial, then wider spacing.
+  const opt = c.optimise ?? 'balanced';
+  const cost = (x: Choice) => (opt === 'size' ? x.bytes : opt === 'speed' ? cyclesEstimate(x.design, x.s) * 1e6 + x.bytes : x.bytes + cyclesEstimate(x.design, x.s));
+  candidates.sort((a, b) => cost(a) - cost(b) || a.s.frac - b.s.frac || a.maxErr - b.maxErr || (a.design.kind === 'table' ? -1 : 1) - (b.design.kind === 'table' ? -1 : 1) || b.design.shift - a.design.shift);
   return candidates[0]!;
 }
 

@@ -15,6 +15,8 @@ export interface ConversionInput {
    * Monotonic (rising or falling) on [codeLow, codeHigh].
    */
   celsiusAtCode(code: number): number;
+  /** What auto favours among designs that meet the target (absent: balanced). */
+  optimise?: 'size' | 'speed' | 'balanced';
   /** Fixed-point unit of the output: 100 => signed hundredths of a degC. */
   outputScale: number;
   /** degC, max error allowed vs the model over every in-range code (callers default it to 0.02). */
