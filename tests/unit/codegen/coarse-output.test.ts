@@ -29,12 +29,13 @@ describe('coarse output units', () => {
     const inputs = sampleInputs().filter((c) => c.method !== 'line');
     expect(inputs.length).toBeGreaterThan(8);
     for (const c of inputs) {
-      const fine = generateC([{ ...c, outputScale: 100, errorTarget: 0.02 }], { fileStem: 'f' }).channels[0]!;
-      const coarse = generateC([{ ...c, outputScale: 10, errorTarget: 0.08 }], { fileStem: 'c' }).channels[0]!;
+      // Compared on bytes alone (optimise = size); balanced may trade a few bytes for cycles.
+      const fine = generateC([{ ...c, optimise: 'size', outputScale: 100, errorTarget: 0.02 }], { fileStem: 'f' }).channels[0]!;
+      const coarse = generateC([{ ...c, optimise: 'size', outputScale: 10, errorTarget: 0.08 }], { fileStem: 'c' }).channels[0]!;
       // Before: the kiln's chamber took a 1,700-point table at 0.1 degC against 7 segments at 0.01 degC.
       // The fewest bytes may be a few more points without the rounding step; never a blow-up.
       const data = (g: typeof fine) => (g.method === 'table' ? g.entries * 2 : g.entries * 12);
-      expect(data(coarse), c.channelName).toBeLessThanOrEqual(2 * data(fine));
+      expect(data(coarse), c.channelName).toBeLessThanOrEqual(2 * data(fine) + 2 * ROUNDING_BYTES);
       expect(coarse.bytesEstimate, c.channelName).toBeLessThanOrEqual(fine.bytesEstimate + ROUNDING_BYTES);
       expect(coarse.maxErrorC, c.channelName).toBeLessThanOrEqual(0.08);
     }
