@@ -1,6 +1,7 @@
 // Fits of a channel's model to ADC codes measured on a real board at known temperatures: each
 // sensor kind fits its own constants (sensors/<kind>/, `fit`); a kind without one is not fitted.
-// The fitted channel (fittedChannel) is what code generation converts with.
+// The fitted channel (fittedChannel: every point but a flagged outlier) is what code generation
+// and the error budget convert with.
 import type { ChannelDef } from '../model/types';
 import { kindOf } from '../sensors/registry';
 
@@ -26,6 +27,11 @@ export interface FitResult {
   toleranceK: number;
   /** Index of the point that disagrees with the others, or null. */
   outlier: number | null;
+  /**
+   * The channel fitted to every point but the outlier: what code generation and the error budget
+   * use (the same as `channel` when no point is an outlier).
+   */
+  used: ChannelDef;
 }
 
 /** Fit of the channel's measured points, or null when there are none or its kind fits none. */
@@ -36,5 +42,5 @@ export function fitMeasured(c: ChannelDef): FitResult | null {
 
 /** The channel with its measured constants fitted (for code generation); the channel itself when nothing was measured. */
 export function fittedChannel(c: ChannelDef): ChannelDef {
-  return fitMeasured(c)?.channel ?? c;
+  return fitMeasured(c)?.used ?? c;
 }

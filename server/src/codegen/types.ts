@@ -22,11 +22,14 @@ export interface ConversionInput {
    */
   faultBelow?: number;
   faultAbove?: number;
+  /** What auto favours among designs that meet the target (absent: balanced). */
+  optimise?: 'size' | 'speed' | 'balanced';
   /** Fixed-point unit of the output: 100 => signed hundredths of a degC. */
   outputScale: number;
   /** degC, max error allowed vs the model over every in-range code (callers default it to 0.02). */
   errorTarget: number;
-  method: 'auto' | 'table' | 'polynomial';
+  /** 'line': one straight line over the range (the spec's `conversion = line`); its error is what it is, not held to errorTarget. */
+  method: 'auto' | 'table' | 'polynomial' | 'line';
   calibration: {
     mode: 'none' | 'offset' | 'two-point';
     /** degC added after the conversion (offset and two-point modes). */

@@ -86,8 +86,10 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   reportInputs?(c: ChannelDef): Record<string, unknown>;
   /** The ADC pin's voltage with the sensor open and shorted (sensors/faults.ts turns them into codes). */
   faults(c: ChannelDef): FaultVolts[];
-  /** Fit of the channel's `measured` points, or null when the kind fits none (calibration/fit.ts). */
+  /** Fit of the channel's `measured` points, or null when there are none (calibration/fit.ts); absent: the points are not used. */
   fit?(c: ChannelDef): FitResult | null;
+  /** Without a fit: the fields that state the part's own values instead of measured points ("r0 and the class"). */
+  readonly ownValues?: string;
 
   // ---- checks (checks/index.ts): `first` run before the common ones (bias rules the others defer to), `last` after them
   readonly checks: { readonly first: readonly ChannelCheck[]; readonly last: readonly ChannelCheck[] };

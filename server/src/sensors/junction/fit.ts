@@ -3,7 +3,8 @@
 // two or more (a two-current channel does not depend on IS: N alone). Least squares on the
 // temperature residuals by Gauss-Newton with a Levenberg-Marquardt damping term (Levenberg,
 // Quart. Appl. Math. 2, 1944; Marquardt, J. SIAM 11, 1963); numerical derivatives.
-// The fitted channel is what code generation converts with (calibration/fit.ts fittedChannel).
+// The fitted channel (every point but a flagged outlier) is what code generation and the error budget
+// convert with (calibration/fit.ts fittedChannel).
 import type { ChannelDef, MeasuredPoint } from '../../model/types';
 import type { FitPoint, FitResult } from '../../calibration/fit';
 import type { JunctionDef } from './types';
@@ -144,7 +145,15 @@ export function fitJunction(c: ChannelDef): FitResult | null {
     if (worst >= 0) outlier = worst;
   }
   const s = all.channel.sensor as JunctionDef;
+  // The outlier is left out of the fit that the firmware and the budget use.
+  let used = all.channel;
+  if (outlier !== null) {
+    const rest = pts.filter((_, i) => i !== outlier);
+    const refit = fitOn(c, rest, paramsFor(c, rest.length));
+    if (refit) used = refit.channel;
+  }
   return {
+    used,
     channel: all.channel,
     parameters: { ...(names.includes('lnIS') ? { IS: s.params.IS } : {}), N: s.params.N },
     points,

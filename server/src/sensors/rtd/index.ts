@@ -19,6 +19,7 @@ export const rtd: SensorKind<RtdDef> = {
   block,
   ratedRange: 'range',
   read: readRtd,
+  ownValues: 'r0 and the class',
   channelFields: RESISTIVE_CHANNEL_FIELDS,
   twoCurrent: false,
   biasProblem: resistiveBiasProblem,

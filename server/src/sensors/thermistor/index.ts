@@ -19,6 +19,7 @@ export const thermistor: SensorKind<ThermistorDef> = {
   block,
   ratedRange: 'range',
   read: readThermistor,
+  ownValues: 'r25 and beta, or point_1..point_3',
   channelFields: RESISTIVE_CHANNEL_FIELDS,
   twoCurrent: false,
   biasProblem: resistiveBiasProblem,
