@@ -2,8 +2,8 @@
 // Writes the conversion code of every channel (or one) to PATH (default `<spec-stem>_conversion.c`
 // beside the spec) and the header beside it (same stem, `.h`). An existing file has only the
 // marked blocks replaced (blocks of channels not in it are added); hand-written code is kept.
-// Exit 0 when written, 1 when the spec has errors or a channel's code cannot be made as asked,
-// 2 when an input is unusable (bad arguments, unreadable spec, damaged markers, a write failing).
+// Exit status by the one rule of cli/verb.ts: 1 also when a channel's code cannot be made as asked
+// or a write fails; 2 also for damaged markers in an existing file (an input gen cannot use).
 // Both files are planned (and any damaged marker refused) before either is written.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
@@ -11,12 +11,16 @@ import { scanGeneratedBlocks, spliceGenerated } from '../../codegen/markers';
 import { conversionFilePath, headerPathFor } from '../../codegen/channel-input';
 import { generateForSpec } from '../../codegen/spec';
 import type { GenerateResult, SpliceBlock } from '../../codegen/types';
-import { parseArgs } from '../args';
-import { DiskHost, EXIT, type CliIO } from '../io';
-import { formatDiagnostic } from '../text';
-import { loadAnalyses } from './check';
+import { DiskHost, type CliIO } from '../io';
+import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
+import { analyseOne } from './check';
 
-export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR]';
+export const GEN: VerbSpec = {
+  name: 'gen',
+  files: 'one',
+  options: { channel: CHANNEL_OPTION, out: { kind: 'output', meta: 'PATH.c', suffix: '.c' }, root: ROOT_OPTION },
+};
+export const GEN_USAGE = usageLine(GEN);
 
 interface Planned {
   file: string;
@@ -25,56 +29,35 @@ interface Planned {
   created: boolean;
 }
 
-export function runGen(argv: string[], io: CliIO): number {
-  const args = parseArgs(argv, ['channel', 'out', 'root']);
-  if (typeof args === 'string') return usage(io, args);
-  if (args.positional.length !== 1) return usage(io, 'name exactly one .tsense file');
-  const channel = args.options.get('channel');
-  const out = args.options.get('out');
-  const root = args.options.get('root');
-  if (channel === true || out === true || root === true) return usage(io, 'options --channel, --out and --root need a value');
-  if (out !== undefined && !/\.c$/.test(out)) return usage(io, `--out names the C source file and must end in .c (got '${out}'); the header is written beside it with .h`);
+export const runGen = defineVerb(GEN, (args, io): Outcome => {
+  const channel = args.text('channel');
+  const out = args.text('out');
   const host = new DiskHost();
-  const analyses = loadAnalyses(args.positional, root, io, host);
-  if (typeof analyses === 'string') {
-    io.err(`thermoscribe: ${analyses}\n`);
-    return EXIT.unusable;
-  }
-  const a = analyses[0]!;
+  const a = analyseOne(args, io, host);
+  if (typeof a === 'string') return { unusable: a };
+  const spec = { diagnostics: a.diagnostics, unprinted: { index: (f: string) => host.index(f) } };
   const errors = a.diagnostics.filter((d) => d.severity === 'error');
-  if (errors.length > 0) {
-    for (const d of errors) io.err(formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
-    io.err(`thermoscribe gen: the spec has ${errors.length} error${errors.length === 1 ? '' : 's'}; fix them first (nothing was written)\n`);
-    return EXIT.errors;
-  }
+  if (errors.length > 0) return { ...spec, failed: `the spec has ${errors.length} error${errors.length === 1 ? '' : 's'}; fix them first (nothing was written)` };
   if (channel !== undefined && !a.channels.some((r) => r.channel.name === channel)) {
-    io.err(`thermoscribe gen: no channel '${channel}' in ${path.basename(a.path)}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}\n`);
-    return EXIT.unusable;
+    return { unusable: `no channel ${shown(channel)} in ${path.basename(a.path)}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}` };
   }
   const cPath = out !== undefined ? path.resolve(io.cwd, out) : conversionFilePath(a.path);
   const hPath = headerPathFor(cPath);
   const stem = path.basename(cPath, '.c');
   const gen = generateForSpec(a, { channel, fileStem: stem });
-  if (!gen.ok) {
-    io.err(`thermoscribe gen: ${gen.message} (nothing was written)\n`);
-    return EXIT.errors;
-  }
+  if (!gen.ok) return { ...spec, failed: `${gen.message} (nothing was written)` };
   const plans: Planned[] = [];
   for (const [file, result, header] of [[cPath, gen.source, false], [hPath, gen.header, true]] as const) {
     const p = plan(file, result, header, gen.inputs.map((i) => i.channelName), gen.inputs.map((i) => i.specHash));
-    if (typeof p === 'string') {
-      io.err(`thermoscribe gen: ${p} (nothing was written)\n`);
-      return EXIT.unusable;
-    }
+    // Damaged markers in an existing file: an input gen cannot use (2); a file it cannot read: 1.
+    if (typeof p === 'string') return { unusable: `${p} (nothing was written)` };
+    if ('unreadable' in p) return { ...spec, failed: `${p.unreadable} (nothing was written)` };
     plans.push(p);
   }
   for (const p of plans) {
     if (!p.changed) continue;
     const failed = writeAtomically(p.file, p.text);
-    if (failed) {
-      io.err(`thermoscribe gen: cannot write ${rel(io, p.file)}: ${failed}\n`);
-      return EXIT.unusable;
-    }
+    if (failed) return { ...spec, failed: `cannot write ${rel(io, p.file)}: ${failed}` };
   }
   for (const [i, ch] of gen.source.channels.entries()) {
     const input = gen.inputs[i]!;
@@ -82,16 +65,16 @@ export function runGen(argv: string[], io: CliIO): number {
   }
   for (const p of plans) io.out(`${p.changed ? (p.created ? 'created' : 'updated') : 'unchanged'} ${rel(io, p.file)}\n`);
   io.out('Caution: generated from a design model; verify the channel against a calibrated reference before relying on it (see the file header).\n');
-  return EXIT.clean;
-}
+  return spec;
+});
 
 /** The new text of one file, or why it cannot be written. */
-function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[]): Planned | string {
+function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[]): Planned | { unreadable: string } | string {
   let existing: string | undefined;
   try {
     existing = fs.existsSync(file) ? fs.readFileSync(file, 'utf8') : undefined;
   } catch (err) {
-    return `cannot read ${file}: ${err instanceof Error ? err.message : String(err)}`;
+    return { unreadable: `cannot read ${file}: ${err instanceof Error ? err.message : String(err)}` };
   }
   if (existing === undefined) return { file, text: result.text, changed: true, created: true };
   const blocks: SpliceBlock[] = result.channels.map((ch, i) => ({ channel: names[i]!, hash: hashes[i]!, text: ch.code }));
@@ -144,9 +127,4 @@ function writeAtomically(file: string, text: string): string | undefined {
 
 function rel(io: CliIO, file: string): string {
   return path.relative(io.cwd, file) || file;
-}
-
-function usage(io: CliIO, problem: string): number {
-  io.err(`thermoscribe gen: ${problem}\nusage: ${GEN_USAGE}\n`);
-  return EXIT.unusable;
 }
