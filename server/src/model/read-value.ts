@@ -3,7 +3,7 @@
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
 import type { DiagnosticSink } from '../checks/diagnostic';
 import { DIMENSION_WORDS, readUnit, type Dimension, type UnitInfo } from './units';
-import type { FieldForm } from './schema';
+import { PART_DOMAINS, type FieldForm } from './schema';
 import type { Toleranced } from './types';
 
 export interface ReadContext {
@@ -121,20 +121,29 @@ const BASE_UNIT: Record<Dimension, string> = {
   'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
 };
 
+/** A quantity's domain in words: "from 1 to 1000000 Ω", "above 0 and at most 1". */
+export function describeDomain(form: QuantityForm): string {
+  const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
+  const kind = form.integer ? 'a whole number ' : '';
+  return form.minInclusive ? `${kind}from ${form.min} to ${form.max}${base}` : `${kind}above ${form.min} and at most ${form.max}${base}`;
+}
+
 /** Checks the domain of a quantity field and reports a precise range when it is outside. */
 /** `shown` gives the value as written, for the message (made only when there is one). */
 export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: () => string): boolean {
-  const lowOk = form.min === undefined || (form.minInclusive ? value >= form.min : value > form.min);
-  const highOk = form.max === undefined || value <= form.max;
+  const lowOk = form.minInclusive ? value >= form.min : value > form.min;
+  const highOk = value <= form.max;
   const intOk = !form.integer || Number.isInteger(value);
   if (lowOk && highOk && intOk) return true;
-  const parts: string[] = [];
-  if (form.min !== undefined) parts.push(form.minInclusive ? `at least ${form.min}` : `above ${form.min}`);
-  if (form.max !== undefined) parts.push(`at most ${form.max}`);
-  const kind = form.integer ? 'a whole number ' : '';
-  const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
-  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${shown()})`);
+  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${describeDomain(form)} (found ${shown()})`);
   return false;
+}
+
+/** A value inside a phrase or range read in its stated domain (schema.ts PART_DOMAINS); null when outside (reported). */
+export function readPart(term: QuantityTerm, domain: QuantityForm, ctx: ReadContext): number | null {
+  const value = readQuantityValue(term, domain.dimension, ctx, domain.difference ?? false);
+  if (value === null) return null;
+  return checkDomain(value, domain, term.span, ctx, () => showValue(value, term, domain.dimension)) ? value : null;
 }
 
 /** Reads a quantity field, with its optional tolerance. */
@@ -147,7 +156,7 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
   if (!noExtra(terms, 1, ctx)) return null;
   const value = readQuantityValue(first, form.dimension, ctx, form.difference ?? false);
   if (value === null) return null;
-  if (!checkDomain(value, form, first.span, ctx, () => showValue(value, first))) return null;
+  if (!checkDomain(value, form, first.span, ctx, () => showValue(value, first, form.dimension))) return null;
   let tolerance = 0;
   if (first.tolerance) {
     if (!form.tolerance) {
@@ -161,9 +170,15 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
   return { value, tolerance, span: first.span };
 }
 
-function showValue(value: number, term: QuantityTerm): string {
-  const text = term.number.text + (term.unit ? ` ${term.unit.text}` : '');
-  return value === term.number.value ? text : `${text} = ${trimNumber(value, 6)}`;
+function showValue(value: number, term: QuantityTerm, dimension?: Dimension): string {
+  const text = shortText(term.number.text) + (term.unit ? ` ${term.unit.text}` : '');
+  const base = dimension && BASE_UNIT[dimension] ? ` ${BASE_UNIT[dimension]}` : '';
+  return value === term.number.value ? text : `${text} = ${trimNumber(value, 6)}${base}`;
+}
+
+/** A number as written, shortened when very long (a 100,000-digit value is not echoed in full). */
+function shortText(text: string): string {
+  return text.length > 24 ? `${text.slice(0, 20)}…` : text;
 }
 
 export function noExtra(terms: Term[], used: number, ctx: ReadContext): boolean {
@@ -182,13 +197,11 @@ export function readRange(terms: Term[], dimension: Dimension, ctx: ReadContext)
   }
   if (!noExtra(terms, 1, ctx)) return null;
   const lowTerm: QuantityTerm = t.low.unit || !t.high.unit ? t.low : { ...t.low, unit: t.high.unit };
-  const low = readQuantityValue(lowTerm, dimension, ctx);
-  const high = readQuantityValue(t.high, dimension, ctx);
+  const domain = dimension === 'temperature' ? PART_DOMAINS.temperature : dimension === 'current' ? PART_DOMAINS.currentBound : null;
+  const read = (q: QuantityTerm) => (domain ? readPart(q, domain, ctx) : readQuantityValue(q, dimension, ctx));
+  const low = read(lowTerm);
+  const high = read(t.high);
   if (low === null || high === null) return null;
-  if (dimension === 'temperature' && low <= 0) {
-    ctx.sink.report('out-of-domain', ctx.file, t.low.span, `${ctx.field}: a temperature must be above 0 K (absolute zero); found ${trimNumber(low, 6)} K`);
-    return null;
-  }
   if (!(high > low)) {
     ctx.sink.report('out-of-domain', ctx.file, t.span, `${ctx.field}: the upper end must be above the lower end`);
     return null;
