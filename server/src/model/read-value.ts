@@ -20,9 +20,17 @@ export function spanOf(terms: Term[]): Span {
   return { start: terms[0]!.span.start, end: terms[terms.length - 1]!.span.end };
 }
 
+/**
+ * What every output shows for a figure that could not be computed: trimNumber, fixedNumber and
+ * formatSI are the one way figures reach users (text, hover, report, comparison, plot labels), and
+ * none of them can show NaN, Infinity or -0. JSON keeps numbers (JSON.stringify writes null for a
+ * non-finite one, so it stays valid JSON).
+ */
+export const NO_FIGURE = 'n/a';
+
 /** Formats a base-unit value for messages: 4700 ohm -> "4.7 kΩ". */
 export function formatSI(value: number, unit: string, digits = 3): string {
-  if (!Number.isFinite(value)) return String(value);
+  if (!Number.isFinite(value)) return NO_FIGURE;
   if (value === 0) return `0 ${unit}`;
   const prefixes: [number, string][] = [[1e9, 'G'], [1e6, 'M'], [1e3, 'k'], [1, ''], [1e-3, 'm'], [1e-6, 'µ'], [1e-9, 'n'], [1e-12, 'p'], [1e-15, 'f'], [1e-18, 'a']];
   const abs = Math.abs(value);
@@ -32,8 +40,18 @@ export function formatSI(value: number, unit: string, digits = 3): string {
   return `${value.toExponential(digits - 1)} ${unit}`;
 }
 
+/** `digits` significant digits, no trailing zeros; never NaN, Infinity or -0. */
 export function trimNumber(v: number, digits: number): string {
-  return String(Number(v.toPrecision(digits)));
+  if (!Number.isFinite(v)) return NO_FIGURE;
+  const r = Number(v.toPrecision(digits));
+  return r === 0 ? '0' : String(r);
+}
+
+/** A fixed number of decimals (table columns); never NaN, Infinity or -0. */
+export function fixedNumber(v: number, decimals: number): string {
+  if (!Number.isFinite(v)) return NO_FIGURE;
+  const s = v.toFixed(decimals);
+  return /^-0(\.0*)?$/.test(s) ? s.slice(1) : s;
 }
 
 function unitOf(term: QuantityTerm, ctx: ReadContext): UnitInfo | null {

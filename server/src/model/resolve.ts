@@ -8,7 +8,7 @@ import { DiagnosticSink } from '../checks/diagnostic';
 import { BLOCKS, blockSpec, fieldSpec, PART_DOMAINS, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
 import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, RtdDef, ThermistorDef, Toleranced } from './types';
-import { noExtra, readPart, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
+import { noExtra, readPart, trimNumber, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readRtd, readSensorRef, readThermistor } from './read-sensors';
@@ -438,11 +438,11 @@ function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
   const at = (name: string) => r.fieldSpans[name] ?? r.ref.node.name.span;
   const scale = Math.round(1 / unit.value);
   if (!(scale >= 1 && scale <= 10000 && Math.abs(1 / unit.value - scale) <= 1e-6 * scale)) {
-    r.sink.report('out-of-domain', r.ref.file, at('output'), `output must divide 1 °C into a whole number of units, 1 to 10000 (such as 0.01 °C or 0.05 °C); got ${unit.value} °C`);
+    r.sink.report('out-of-domain', r.ref.file, at('output'), `output must divide 1 °C into a whole number of units, 1 to 10000 (such as 0.01 °C or 0.05 °C); got ${trimNumber(unit.value, 6)} °C`);
     return null;
   }
   if (!(error.value >= 0.5 / scale && error.value <= 100)) {
-    r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${0.5 / scale} °C) to 100 °C; got ${error.value} °C`);
+    r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${trimNumber(0.5 / scale, 6)} °C) to 100 °C; got ${trimNumber(error.value, 6)} °C`);
     return null;
   }
   return { outputScale: scale, errorC: error.value, method, floatVariant };

@@ -53,7 +53,7 @@ describe('generateC (pure)', () => {
     ['codeLow', { codeLow: -1 }, /codeLow: must be an integer 0\.\.1023/],
     ['outputScale', { outputScale: 0.5 }, /outputScale: must be an integer 1\.\.10000/],
     ['errorTarget', { errorTarget: 0.001 }, /below half an output unit/],
-    ['NaN model', { celsiusAtCode: () => NaN }, /celsiusAtCode: gave NaN at code/],
+    ['NaN model', { celsiusAtCode: () => NaN }, /maps to no temperature the sensor gives/],
     ['non-monotonic model', { celsiusAtCode: (c: number) => Math.sin(c / 10) }, /not monotonic/],
     ['throwing model', { celsiusAtCode: () => { throw new Error('boom'); } }, /threw at code \d+: boom/],
     ['gain', { calibration: { mode: 'two-point', gain: 3, runtime: false } }, /calibration\.gain: must be in 0\.5\.\.2, got 3/],

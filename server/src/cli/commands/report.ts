@@ -4,7 +4,7 @@ import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type VerbSpe
 import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
 import type { ChannelResult } from '../../analysis/types';
-import { formatSI, trimNumber } from '../../model/read-value';
+import { fixedNumber, formatSI, trimNumber } from '../../model/read-value';
 import { CAUTION } from '../../report/caution';
 import { describeBias, describeSensor } from '../../report/describe';
 
@@ -43,14 +43,14 @@ export function channelReport(r: ChannelResult): string {
     '',
   ];
   const rows = r.sweep.map((p) => [
-    p.celsius.toFixed(2),
-    (p.volts * 1000).toFixed(3),
-    (p.amps * 1e6).toFixed(3),
+    fixedNumber(p.celsius, 2),
+    fixedNumber(p.volts * 1000, 3),
+    fixedNumber(p.amps * 1e6, 3),
     String(p.code),
-    (p.slope * 1000).toFixed(4),
-    p.countsPerKelvin.toFixed(3),
-    p.celsiusPerCount.toFixed(4),
-    (p.selfHeatingK * 1000).toFixed(3),
+    fixedNumber(p.slope * 1000, 4),
+    fixedNumber(p.countsPerKelvin, 3),
+    fixedNumber(p.celsiusPerCount, 4),
+    fixedNumber(p.selfHeatingK * 1000, 3),
   ]);
   return head.join('\n') + table(['°C', 'mV', 'µA', 'code', 'mV/K', 'counts/K', '°C/count', 'heat mK'], rows);
 }
