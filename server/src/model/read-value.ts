@@ -44,6 +44,8 @@ export function formatSI(value: number, unit: string, digits = 3): string {
 export function trimNumber(v: number, digits: number): string {
   if (!Number.isFinite(v)) return NO_FIGURE;
   const r = Number(v.toPrecision(digits));
+  // Only a value far outside every stated domain gets here; its digits would say nothing.
+  if (Math.abs(r) >= 1e100) return r > 0 ? 'over 1e99' : 'below -1e99';
   return r === 0 ? '0' : String(r);
 }
 
@@ -128,7 +130,8 @@ export function readTolerance(tol: QuantityTerm, nominal: number, dimension: Dim
     rel = Math.abs(abs / nominal);
   }
   if (!(rel >= 0) || rel >= 1) {
-    ctx.sink.report('out-of-domain', ctx.file, tol.span, `${ctx.field}: a tolerance must be from 0 % to below 100 % (found ${trimNumber(rel * 100, 4)} %)`);
+    const found = rel * 100 < 1e6 ? `${trimNumber(rel * 100, 4)} %` : shortText(tol.number.text) + (tol.unit ? ` ${tol.unit.text}` : '');
+    ctx.sink.report('out-of-domain', ctx.file, tol.span, `${ctx.field}: a tolerance must be from 0 % to below 100 % (found ${found})`);
     return null;
   }
   return rel;
@@ -191,7 +194,9 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
 function showValue(value: number, term: QuantityTerm, dimension?: Dimension): string {
   const text = shortText(term.number.text) + (term.unit ? ` ${term.unit.text}` : '');
   const base = dimension && BASE_UNIT[dimension] ? ` ${BASE_UNIT[dimension]}` : '';
-  return value === term.number.value ? text : `${text} = ${trimNumber(value, 6)}${base}`;
+  // The value in base units only where it reads as a figure (a far-out value is shown as written).
+  const readable = value === 0 || (Math.abs(value) >= 1e-15 && Math.abs(value) < 1e15);
+  return value === term.number.value || !readable ? text : `${text} = ${trimNumber(value, 6)}${base}`;
 }
 
 /** A number as written, shortened when very long (a 100,000-digit value is not echoed in full). */

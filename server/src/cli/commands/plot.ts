@@ -7,7 +7,7 @@ import { DiskHost } from '../io';
 import { defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
-import { plotData } from '../../plot/data';
+import { plotData, plotProblem } from '../../plot/data';
 import { plotSpec, type ChartKind } from '../../plot/spec';
 import { renderSvg } from '../../plot/render';
 
@@ -64,9 +64,12 @@ export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
     }
   }
 
+  const data = plotData(result, budget);
+  const problem = plotProblem(data, chart);
+  if (problem) return { ...spec, failed: `${problem} (nothing was written)` };
   let svg: string;
   try {
-    svg = await renderSvg(plotSpec(plotData(result, budget), { chart }));
+    svg = await renderSvg(plotSpec(data, { chart }));
   } catch (err) {
     return { ...spec, failed: `drawing failed: ${err instanceof Error ? err.message : String(err)} (nothing was written)` };
   }
