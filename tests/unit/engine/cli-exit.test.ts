@@ -118,6 +118,20 @@ describe('options are checked against each verb\'s table (#17 item 7)', () => {
     expect(g.code).toBe(1);
     expect(g.err).toMatch(/cannot (write|read)/);
   });
+  it('plot with an RTD gain of 1e-320: a domain error naming the range, exit 1, no file (#17 item 9)', async () => {
+    fs.rmSync(path.join(dir, 'c.svg'), { force: true });
+    const r = await run('plot', ['rtd-tiny-gain.tsense', '--channel', 'c', '--out', 'c.svg', '--runs', '20']);
+    expect(r.code).toBe(1);
+    expect(r.err).toContain('rtd-tiny-gain.tsense:13:12: error [out-of-domain] gain must be from 0.001 to 10000 (found 1e-320)');
+    expect(r.err).not.toMatch(/\n\s+at /);
+    expect(fs.existsSync(path.join(dir, 'c.svg'))).toBe(false);
+  });
+  it('gen on a clean 2-bit spec says what in the spec to change, naming no function (#17 item 10)', async () => {
+    const r = await run('gen', ['two-bit.tsense']);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/channel 'c': conversion: ADC code \d+ maps to no temperature the sensor gives .*use more bits/);
+    expect(r.err).not.toMatch(/celsiusAtCode|NaN|[a-z][A-Z]\w*:/);
+  });
   it('main keeps 2 for an unknown verb and prints usage lines made from the option tables', () => {
     let err = '';
     expect(main(['frobnicate'], { out: () => undefined, err: (t) => (err += t), cwd: dir })).toBe(2);
