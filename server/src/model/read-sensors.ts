@@ -5,11 +5,11 @@
 import type { QuantityTerm, Term } from '../syntax/ast';
 import type { BlockReader, Resolution } from './resolve';
 import type { AdcDef, BiasDef, SensorDef, WiringDef } from './types';
-import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, formatSI } from './read-value';
+import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
+import { kindWithArticle, PART_DOMAINS } from './schema';
 import { closest } from './suggest';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
 import { shown } from '../checks/shown';
-import { kindWithArticle } from './schema';
 
 /** The channel's `sensor`: a definition of any sensor kind. */
 export function readSensorRef(r: BlockReader, res: Resolution): SensorDef | null {
@@ -54,17 +54,9 @@ export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
   };
   const [, rq, pos, from, vq] = terms;
   if (!rq || rq.kind !== 'quantity' || !pos || pos.kind !== 'word' || (pos.text !== 'above' && pos.text !== 'below') || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, 5, ctx)) return bad();
-  const ohms = readQuantityValue(rq, 'resistance', ctx);
-  const volts = readQuantityValue(vq, 'voltage', ctx);
+  const ohms = readPart(rq, PART_DOMAINS.biasResistor, ctx);
+  const volts = readPart(vq, PART_DOMAINS.supply, ctx);
   if (ohms === null || volts === null) return (r.ok = false), null;
-  if (!(ohms >= 1e-3) || ohms > 1e9) {
-    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${shown(rq.number.text)})`);
-    return (r.ok = false), null;
-  }
-  if (!(volts > 0) || volts > 1000) {
-    r.sink.report('out-of-domain', r.ref.file, vq.span, `divider supply must be above 0 V and at most 1000 V (found ${shown(vq.number.text)} V)`);
-    return (r.ok = false), null;
-  }
   const tol = (q: QuantityTerm, v: number, dim: 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
   const rt = tol(rq, ohms, 'resistance');
   const vt = tol(vq, volts, 'voltage');
@@ -154,15 +146,8 @@ export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias
     } else {
       const g = r.quantity('gain', 1);
       const o = r.quantity('offset', 0);
-      if (g && o) {
-        if (!(g.value > 0) || g.value > 10000) {
-          r.sink.report('out-of-domain', file, g.span, `gain must be above 0 and at most 10000 (found ${trimNumber(g.value, 6)})`);
-          r.ok = false;
-        } else if (Math.abs(o.value) > 1000) {
-          r.sink.report('out-of-domain', file, o.span, `offset must be within ±1000 V (found ${trimNumber(o.value, 6)} V)`);
-          r.ok = false;
-        } else out.amplifier = { gain: g.value, offsetVolts: o.value };
-      }
+      // Domains (schema.ts) are checked as they are read.
+      if (g && o) out.amplifier = { gain: g.value, offsetVolts: o.value };
     }
   }
   const wiring = readWiring(r);

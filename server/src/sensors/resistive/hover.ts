@@ -20,7 +20,7 @@ export function rangeEndOhms(a: Analysis, s: SensorDef): { channel: string; lowC
   }));
 }
 
-export const sci = (v: number) => (v === 0 ? '0' : Number(v.toPrecision(5)).toExponential().replace('e+', 'e'));
+export const sci = (v: number) => (v === 0 || !Number.isFinite(v) ? f.trimNumber(v, 5) : Number(v.toPrecision(5)).toExponential().replace('e+', 'e'));
 export const tol = (t: number) => (t ? ` ± ${f.percent(t)}` : '');
 export const dissipation = (thetaJA: number) => `dissipation constant ${f.formatSI(1 / thetaJA, 'W/K')} (${f.trimNumber(thetaJA, 4)} K/W)`;
 

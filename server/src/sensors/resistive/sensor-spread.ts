@@ -7,6 +7,7 @@
 import type { ChannelDef } from '../../model/types';
 import type { SensorSpread } from '../kind';
 import { sweepKelvins } from '../../analysis/sweep';
+import { trimNumber } from '../../model/read-value';
 
 /** The corners of an element's spread and the temperature error at each (a kind's own). */
 export interface SpreadCorners {
@@ -35,8 +36,8 @@ export function spreadOver(c: ChannelDef, spread: SpreadCorners): SensorSpread {
 }
 
 export function trim(v: number): string {
-  return String(Number(v.toPrecision(3)));
+  return trimNumber(v, 3);
 }
 
 /** `± 1.5 %` for a relative half-width (contributor labels). */
-export const pct = (r: number) => `± ${String(Number((r * 100).toPrecision(3)))} %`;
+export const pct = (r: number) => `± ${trimNumber(r * 100, 3)} %`;

@@ -1,7 +1,7 @@
 // Reads an rtd block: R0, the Callendar-Van Dusen coefficients (IEC 60751 by default), the class and
 // element build, rated range and dissipation; the curve must rise and invert over the rated range.
 import type { BlockReader } from '../../model/resolve';
-import { trimNumber, formatSI } from '../../model/read-value';
+import { trimNumber } from '../../model/read-value';
 import { CVD_HIGH_C, CVD_LOW_C, IEC60751, cvdCelsiusAt, cvdResistance, type RtdClass } from '../../physics/callendar-van-dusen';
 import { shown } from '../../checks/shown';
 import type { DefBase } from '../../model/types';
@@ -19,10 +19,6 @@ export function readRtd(r: BlockReader, base: DefBase): RtdDef | null {
   const element = r.terms('element') ? (r.choice('element', 'film') as 'film' | 'wire') : null;
   const rated = r.range('rated', [CVD_LOW_C + ZERO_C, CVD_HIGH_C + ZERO_C]);
   const theta = readDissipation(r, 2.5e-3);
-  if (r0 && !(r0.value >= 1 && r0.value <= 1e6)) {
-    r.sink.report('out-of-domain', r.ref.file, r0.span, `r0 must be from 1 Ω to 1 MΩ (found ${formatSI(r0.value, 'Ω')}); a Pt100 has 100, a Pt1000 1000`);
-    r.ok = false;
-  }
   if (!r.ok || !r0 || !A || !B || !C || !rated || theta === null) return null;
   const k = { A: A.value, B: B.value, C: C.value };
   // The curve must rise over the rated range (dR/dt > 0) for the reading to have one temperature.

@@ -2,7 +2,8 @@
 // three measured points fitted exactly), the resistance tolerance, rated range and dissipation.
 import type { BlockReader } from '../../model/resolve';
 import type { Toleranced } from '../../model/types';
-import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, formatSI } from '../../model/read-value';
+import { checkDomain, noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber } from '../../model/read-value';
+import { fieldSpec, PART_DOMAINS, type FieldForm } from '../../model/schema';
 import { betaToSteinhartHart, fitSteinhartHart, shMonotonicMessage, shResistanceAt, type ShCoefficients } from '../../physics/steinhart-hart';
 import { shown } from '../../checks/shown';
 import type { DefBase } from '../../model/types';
@@ -37,14 +38,9 @@ function readPoint(r: BlockReader, name: string): [number, number] | null | unde
     r.ok = false;
     return null;
   }
-  const k = readQuantityValue(t, 'temperature', r.ctx(name));
-  const ohms = readQuantityValue(q, 'resistance', r.ctx(name));
+  const k = readPart(t, PART_DOMAINS.temperature, r.ctx(name));
+  const ohms = readPart(q, PART_DOMAINS.pointResistance, r.ctx(name));
   if (k === null || ohms === null) return (r.ok = false), null;
-  if (!(k > 0) || !(ohms > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, spanOf(terms), `${name}: the temperature must be above 0 K and the resistance above 0 Ω`);
-    r.ok = false;
-    return null;
-  }
   return [k, ohms];
 }
 
@@ -60,8 +56,8 @@ function readBeta(r: BlockReader): Toleranced | null | undefined {
   }
   const k = q.unit ? readQuantityValue(q, 'temperature', r.ctx('beta'), true) : q.number.value;
   if (k === null) return (r.ok = false), null;
-  if (!(k >= 100 && k <= 20000)) {
-    r.sink.report('out-of-domain', r.ref.file, q.span, `beta must be from 100 K to 20000 K (found ${trimNumber(k, 6)} K); NTC thermistors sit around 3000 K to 5000 K`);
+  const form = fieldSpec(r.spec, 'beta')!.form as Extract<FieldForm, { form: 'quantity' }>;
+  if (!checkDomain(k, form, q.span, r.ctx('beta'), () => `${trimNumber(k, 6)} K; NTC thermistors sit around 3000 K to 5000 K`)) {
     r.ok = false;
     return null;
   }
@@ -95,11 +91,7 @@ export function readThermistor(r: BlockReader, base: DefBase): ThermistorDef | n
     const b = readBeta(r);
     const r25q = r.quantity('r25');
     const br = r.range('beta_range', [T25, 85 + ZERO_C]);
-    if (r25q && !(r25q.value >= 1 && r25q.value <= 1e8)) {
-      r.sink.report('out-of-domain', r.ref.file, r25q.span, `r25 must be from 1 Ω to 100 MΩ (found ${formatSI(r25q.value, 'Ω')})`);
-      r.ok = false;
-    }
-    if (b && r25q && br && r.ok) {
+      if (b && r25q && br && r.ok) {
       coeffs = betaToSteinhartHart(r25q.value, b.value, T25);
       r25 = r25q;
       beta = { ...b, lowK: br.low, highK: br.high };
