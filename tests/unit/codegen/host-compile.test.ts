@@ -14,7 +14,7 @@ import { planChannels } from '../../../server/src/codegen/generate';
 import type { ConversionInput } from '../../../server/src/codegen/types';
 import { junctionChannel, loadOperatingPoint, rtdChannel, syntheticDiodeChannel } from '../../fixtures/codegen/channels';
 import { expectedOutput } from '../../fixtures/codegen/measure';
-import { WorkDir, hasTool, hostBuildRun, run } from '../../fixtures/codegen/toolchain';
+import { COMPILE_HOOK_MS, WorkDir, hasTool, hostBuildRun, run } from '../../fixtures/codegen/toolchain';
 
 const haveGcc = hasTool('gcc');
 if (!haveGcc) console.log('host-compile: skipped, gcc not found (run scripts/install-toolchains.sh)');
@@ -92,7 +92,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         retrimmed.set(name, list);
       }
     }
-  });
+  }, COMPILE_HOOK_MS);
   afterAll(() => dir?.dispose());
 
   it('compiles without a warning and runs every code of every channel', () => {
