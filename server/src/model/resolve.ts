@@ -38,26 +38,8 @@ const ZERO_C = 273.15;
  */
 export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = true): Resolution {
   const entry = files[0]!;
-  const blocks = new Map<string, BlockRef>();
+  const blocks = declaredBlocks(files, sink);
   const res: Resolution = { blocks, junctions: new Map(), adcs: new Map(), channels: [], resistiveSensors: new Map() };
-  // Entry file first so that a duplicate is reported where the user is typing.
-  for (const file of files) {
-    for (const item of file.parse.tree.items) {
-      if (item.kind !== 'block') continue;
-      const spec = blockSpec(item.keyword.text);
-      if (!spec) {
-        const near = closest(item.keyword.text, Object.keys(BLOCKS));
-        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${item.keyword.text}'; expected ${Object.keys(BLOCKS).join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
-        continue;
-      }
-      const prior = blocks.get(item.name.text);
-      if (prior) {
-        sink.report('duplicate-name', file.path, item.name.span, `'${item.name.text}' is already defined${prior.file === file.path ? '' : ` in ${prior.file}`}`);
-        continue;
-      }
-      blocks.set(item.name.text, { kind: spec.kind, file: file.path, node: item });
-    }
-  }
   for (const ref of blocks.values()) {
     if (ref.kind === 'junction') {
       const j = remembered(ref, sink, keep, (into) => readJunction(ref, into));
@@ -80,6 +62,33 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = t
     if (c) res.channels.push(c);
   }
   return res;
+}
+
+/**
+ * Every named block of the files by name, of every kind in the schema; the first definition of a
+ * name wins (the entry file comes first, so a duplicate is reported where the user is typing).
+ * Also what navigation reads (features/navigation.ts), so both agree on what a name means.
+ */
+export function declaredBlocks(files: readonly LoadedFile[], sink: DiagnosticSink = new DiagnosticSink()): Map<string, BlockRef> {
+  const blocks = new Map<string, BlockRef>();
+  for (const file of files) {
+    for (const item of file.parse.tree.items) {
+      if (item.kind !== 'block') continue;
+      const spec = blockSpec(item.keyword.text);
+      if (!spec) {
+        const near = closest(item.keyword.text, Object.keys(BLOCKS));
+        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${item.keyword.text}'; expected ${Object.keys(BLOCKS).join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
+        continue;
+      }
+      const prior = blocks.get(item.name.text);
+      if (prior) {
+        sink.report('duplicate-name', file.path, item.name.span, `'${item.name.text}' is already defined${prior.file === file.path ? '' : ` in ${prior.file}`}`);
+        continue;
+      }
+      blocks.set(item.name.text, { kind: spec.kind, file: file.path, node: item });
+    }
+  }
+  return blocks;
 }
 
 /**
