@@ -89,10 +89,11 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | 
   let kept = state?.find(c, record);
   const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : analyseChannel(c);
   if (!kept) {
-    kept = { key: channelKey(c), table: result.table, summary: result.summary };
+    // The key is only needed to find the entry again (and a miss in `find` has already made it).
+    kept = { key: state && record ? channelKey(c) : '', table: result.table, summary: result.summary };
     if (record) state?.keep(c, kept);
+    HOLDER.set(kept.table, kept);
   }
-  HOLDER.set(result, kept);
   if (withBudget) try {
     // A Monte Carlo budget already made holds the worst case too.
     kept.worstCaseBudget ??= kept.budget?.value ?? channelBudget(c, { runs: 0 });
@@ -116,10 +117,12 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | 
 }
 
 /**
- * What each channel result was derived with (its document state's entry, or one of its own), where
- * `budget` keeps the Monte Carlo budget once made. A fact attached to the result, gone with it.
+ * What each sweep table was derived with (its document state's entry, or one of its own), where
+ * `budget` keeps the Monte Carlo budget once made. A fact attached to the table, gone with it; one
+ * entry per new table (every result of the same content shares the table), not one per result,
+ * which would give the collector a weak entry to trace per channel and keystroke.
  */
-const HOLDER = new WeakMap<ChannelResult, ChannelDerived>();
+const HOLDER = new WeakMap<ChannelResult['table'], ChannelDerived>();
 
 /**
  * `budget` of every channel result: one getter for all (a closure per result gives each its own
@@ -129,7 +132,7 @@ const BUDGET = {
   enumerable: true,
   configurable: true,
   get(this: ChannelResult): ChannelResult['budget'] {
-    const h = HOLDER.get(this)!;
+    const h = HOLDER.get(this.table)!;
     h.budget ??= { value: tryBudget(this.channel) };
     return h.budget.value;
   },
