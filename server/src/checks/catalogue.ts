@@ -1,18 +1,20 @@
 // Every diagnostic the engine can report: a stable code, its severity and its documentation.
 // Code actions, the CLI exit status and SARIF rule ids key on `code`, never on message text.
 
+import { BLOCK_KINDS } from '../model/language';
+
 export type Severity = 'error' | 'warning' | 'info';
 
 export interface CodeInfo {
   severity: Severity;
   title: string;
-  /** What the check means and why; shown in hovers, SARIF rule help and the README. */
+  /** What the check means and why; shown in hovers, SARIF rule help and docs/reference.md. */
   doc: string;
 }
 
 export const CATALOGUE = {
   'syntax': { severity: 'error', title: 'Syntax error', doc: 'A line could not be read. The message says what was expected at the marked place.' },
-  'unknown-block': { severity: 'error', title: 'Unknown block kind', doc: 'A block starts with a kind the language does not define (junction, adc, channel).' },
+  'unknown-block': { severity: 'error', title: 'Unknown block kind', doc: `A block starts with a kind the language does not define (it defines ${BLOCK_KINDS.map((b) => b.kind).join(', ')}).` },
   'unknown-field': { severity: 'error', title: 'Unknown field', doc: 'The block kind has no field of this name.' },
   'duplicate-field': { severity: 'error', title: 'Field given twice', doc: 'A field may appear once per block; the second one is ignored.' },
   'duplicate-name': { severity: 'error', title: 'Name defined twice', doc: 'Two definitions share a name (in this file or in a file it uses).' },
@@ -25,11 +27,14 @@ export const CATALOGUE = {
   'import-missing': { severity: 'error', title: 'Used file not found', doc: 'A `use` names a file that cannot be read.' },
   'import-cycle': { severity: 'error', title: 'Files use each other in a cycle', doc: 'A chain of `use` lines leads back to a file already being read.' },
   'import-outside-root': { severity: 'error', title: 'Used file outside the workspace', doc: 'A `use` path leaves the workspace root (for the CLI, the folder given with --root, by default the file\'s own folder) and is refused.' },
+  'more-problems': { severity: 'info', title: 'More problems than are listed', doc: 'A file has more than 200 diagnostics: the first 200 (by position) are listed and this one stands for the rest, from the first one left off, as severe as the worst of them. A file that broken needs its first problems fixed before the rest mean much; the cap also keeps a huge broken file from stalling the tool.' },
   'import-problems': { severity: 'error', title: 'Used file has errors', doc: 'A file brought in with `use` has errors of its own; they are listed against that file.' },
   'bias-current-low': { severity: 'warning', title: 'Bias current below the sound window', doc: 'Below the window (default 1 µA) reverse leakage, surface currents and ADC input leakage become a visible share of the bias and noise pickup grows (common practice).' },
   'bias-current-high': { severity: 'warning', title: 'Bias current above the sound window', doc: 'Above the window (default 1 mA) self-heating of a small-signal part and the drop on its series resistance become visible errors (common practice).' },
   'clip-high': { severity: 'error', title: 'Sensed voltage above the ADC reference', doc: 'Somewhere in the range the sensed voltage exceeds the reference: the ADC saturates at full scale.' },
   'clip-low': { severity: 'error', title: 'Sensed voltage below zero', doc: 'Somewhere in the range the sensed voltage is below 0 V: the ADC reads zero.' },
+  'code-saturated': { severity: 'warning', title: 'Range reaches an end code of the converter', doc: 'The sensed voltage stays within 0 V .. the reference, but part of the range gives code 0 (below 1 LSB) or the full-scale code 2^bits - 1 (at or above (2^bits - 1) LSB). Each end code stands for every voltage beyond it, so the temperatures there read alike; the generated code reports an end code as outside the range, never as a temperature. The message gives the temperatures that share the code.' },
+  'fault-in-range': { severity: 'warning', title: 'Sensor fault reads as a temperature', doc: 'An open or shorted sensor (or lead) gives an ADC code inside the range the channel converts, so the firmware cannot tell the fault from a temperature and would act on a false reading. The fault codes follow from the circuit: an open junction or RTD on a resistor goes to the supply, on a current source to its compliance (taken as full scale); an open thermistor in a divider goes to the divider\'s supply or ground side; a short goes to 0 Ω with uncompensated leads still in series. Move the range or the bias so the fault codes fall outside it.' },
   'clip-tolerance': { severity: 'warning', title: 'Clips at the low end of the reference tolerance', doc: 'With the reference at the low end of its tolerance the sensed voltage exceeds it.' },
   'resolution-short': { severity: 'warning', title: 'Resolution worse than required', doc: 'At the worst point of the range one ADC count spans more temperature than the resolution target allows.' },
   'self-heating': { severity: 'warning', title: 'Self-heating eats the accuracy budget', doc: 'The power dissipated in the sensor times its thermal resistance exceeds a share (default 10 %) of the accuracy target.' },
@@ -41,7 +46,8 @@ export const CATALOGUE = {
   'calibration-outlier': { severity: 'warning', title: 'Measured calibration point disagrees with the others', doc: 'Fitted to the other measured points, the model misses this one by more than the tolerance (half the accuracy target, at least 2 LSB): check the reference thermometer, the settling time and the code read at that point.' },
   'two-current-unresolved': { severity: 'warning', title: 'ADC cannot resolve the two-current difference', doc: 'The difference voltage of the two-current method changes by only about N*k/q*ln(I2/I1) (some 0.2 mV/K for a ratio of 10): one ADC count spans more temperature than the resolution target (or 0.5 K when none is given). The message gives the amplifier gain or oversampling that would meet it.' },
   'oversampling-noise': { severity: 'warning', title: 'Too little noise for oversampling to add bits', doc: 'Oversampling and decimation add resolution only when the noise at the input toggles the LSB: at least 0.5 LSB rms (Atmel application note AVR121). With less stated noise, or none stated, the extra bits are not credited; add dither or drop the oversampling.' },
-  'generated-stale': { severity: 'warning', title: 'Generated conversion code is out of date', doc: 'The `<spec>_conversion.c` beside the spec holds a generated block for this channel made from different channel inputs (its marker carries a hash of them): the firmware converts with an older design. Regenerate it (code action or `thermoscribe gen`). Checked by the language server, which reads the C file beside the spec.' },
+  'generated-stale': { severity: 'warning', title: 'Generated conversion code is out of date', doc: 'The `<spec>_conversion.c` beside the spec holds a generated block for this channel made from different channel inputs (its marker carries a hash of them): the firmware converts with an older design. Regenerate it (code action or `thermoscribe gen`). Checked by the language server and by `thermoscribe check`, which read the C file beside the spec (or the one named with `--code`).' },
+  'generated-orphan': { severity: 'warning', title: 'Generated block of a channel the spec no longer has', doc: 'A conversion file beside the spec (or named with `check --code`) holds a generated block for a channel this spec does not define: it was removed or renamed, and the old function still compiles and links. Delete the block (`thermoscribe gen --prune`) or restore the channel. Do not prune a file that several specs share.' },
   'divider-off-optimum': { severity: 'warning', title: 'Thermistor divider resistor far from its best value', doc: 'The slope of a divider at temperature T is largest when the fixed resistor equals the thermistor\'s resistance at T (maximise Rf/(Rf + Rt)^2 over Rf). At the centre of the range the stated resistor gives less than 80 % of that slope; the message suggests the E24 value nearest the optimum and the resolution it gives. A lower resistor also raises the current: check self-heating.' },
   'beta-extrapolated': { severity: 'info', title: 'Beta model used far outside its temperature pair', doc: 'A thermistor given by beta is modelled exactly at 25 °C and for the two temperatures its beta was specified between; real curves bend away from the beta model outside them. The note appears when the range reaches more than 10 K beyond that pair: give Steinhart-Hart coefficients or three measured points instead.' },
   'lead-resistance': { severity: 'warning', title: 'Two-wire RTD leads read as temperature', doc: 'With two wires both leads are in series with the element. The conversion subtracts the stated lead resistance, but a change of it (cable length, the leads warming) reads 1:1 as temperature; when a 10 % change exceeds 10 % of the accuracy target (0.1 K without one), use three wires (matched leads cancel) or four.' },

@@ -25,6 +25,11 @@ export interface ChannelPlan {
   /** Final outputs at the low and high in-range codes (what a clamped code returns). */
   outAtLow: number;
   outAtHigh: number;
+  /** Codes at or below / at or above these are a sensor fault (absent: no test on that side). */
+  faultBelow?: number;
+  faultAbove?: number;
+  /** Smallest and largest degC spanned by one code over the range (NaN when unknown). */
+  perCountC: { min: number; max: number };
   maxErrorC: number;
   errorTarget: number;
   note?: string;
@@ -35,6 +40,9 @@ const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
 #define THSC_IN_RANGE      0u /* code inside the designed range */
 #define THSC_CLAMPED_COLD  1u /* colder than the range: output pinned to the coldest end */
 #define THSC_CLAMPED_HOT   2u /* hotter than the range: output pinned to the hottest end */
+#endif
+#ifndef THSC_SENSOR_FAULT
+#define THSC_SENSOR_FAULT  3u /* open or shorted sensor or lead: not a temperature; make the load safe */
 #endif`;
 
 const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
@@ -119,12 +127,59 @@ function describe(p: ChannelPlan): string[] {
           `(0..${2 ** p.bits - 1}), not one reading; the readings need noise of at least 0.5 LSB rms to dither.`,
         ]
       : []),
-    `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code).`,
+    `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code). A code stands for the centre`,
+    `of its step (code + 0.5 LSB)${perCountText(p)}.`,
     `Method: ${what}; ${trim}.`,
     `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
-    'from an exact simulation of this integer arithmetic.',
+    'from an exact simulation of this integer arithmetic; the quantisation of the code comes on top.',
     `${names(p).fn}() returns THSC_IN_RANGE, or THSC_CLAMPED_COLD / THSC_CLAMPED_HOT when the code is`,
-    'outside the range; the output is then pinned to the nearest range end (never wrapped).',
+    'outside the range; the output is then pinned to the nearest range end (never wrapped):',
+    ...clampedText(p),
+    ...faultText(p),
+    ...(p.trim.runtime
+      ? [
+          `${names(p).setter}() writes ${p.trim.mode === 'offset' ? 'a 16-bit field' : 'two 16-bit fields'}: not atomic on an 8-bit core. When conversions run in an`,
+          'interrupt, call it with that interrupt disabled (on AVR: ATOMIC_BLOCK(ATOMIC_RESTORESTATE) of',
+          '<util/atomic.h>), or call it from the same context that converts.',
+        ]
+      : []),
+  ];
+}
+
+function outText(p: ChannelPlan, v: number): string {
+  return `${v} (${+(v / p.scale).toFixed(6)} degC)`;
+}
+
+function perCountText(p: ChannelPlan): string {
+  const { min, max } = p.perCountC;
+  if (!Number.isFinite(min) || !Number.isFinite(max)) return '';
+  const fmt = (x: number) => (x >= 0.01 ? x.toFixed(3) : x.toPrecision(2));
+  return min === max || fmt(min) === fmt(max) ? `; one count spans ${fmt(max)} degC` : `; one count spans ${fmt(min)} to ${fmt(max)} degC over the range`;
+}
+
+/** The exact outputs of a clamped code (none with run-time trims: they follow the trim). */
+function clampedText(p: ChannelPlan): string[] {
+  const [cold, hot] = p.dir > 0 ? [p.outAtLow, p.outAtHigh] : [p.outAtHigh, p.outAtLow];
+  if (p.trim.runtime) return ['  the range end\'s value with the trims in force at the time.'];
+  return [`  THSC_CLAMPED_COLD gives exactly ${outText(p, cold)}, THSC_CLAMPED_HOT ${outText(p, hot)}.`];
+}
+
+function faultText(p: ChannelPlan): string[] {
+  const tests = [
+    ...(p.faultBelow !== undefined ? [`${p.faultBelow === 0 ? 'code 0' : `codes <= ${p.faultBelow}`}`] : []),
+    ...(p.faultAbove !== undefined ? [`${p.faultAbove === 2 ** p.bits - 1 ? `code ${p.faultAbove}` : `codes >= ${p.faultAbove}`}`] : []),
+  ];
+  if (tests.length === 0) {
+    return [
+      'No code of this channel is set apart as a sensor fault (an open or shorted sensor gives an',
+      'in-range code, or none was computed): detect faults another way before acting on the value.',
+    ];
+  }
+  return [
+    `THSC_SENSOR_FAULT: ${tests.join(' and ')}, the codes nearer an open or shorted sensor's code than the`,
+    'range (the output is then pinned to the nearest range end and is not a temperature).',
+    'SAFETY: on THSC_SENSOR_FAULT put the load in its safe state (heater off, alarm raised);',
+    'do not act on the value. Treat repeated clamped readings the same way.',
   ];
 }
 
@@ -153,7 +208,9 @@ function declarations(p: ChannelPlan): string {
     );
   }
   if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
-  return out.join('\n');
+  // Guarded: a self-contained block and the header may meet in one translation unit, and a
+  // typedef given twice is an error before C11.
+  return [`#ifndef ${n.up}_DECLARED`, `#define ${n.up}_DECLARED 1`, ...out, '#endif'].join('\n');
 }
 
 export function emitHeaderBody(p: ChannelPlan): string {
@@ -167,24 +224,41 @@ function clampCode(p: ChannelPlan, early = false): string[] {
   // Comparisons that can never be true are left out (-Wtype-limits under -Wextra).
   const lowTest = p.low > 0 ? `code < ${p.low}u` : undefined;
   const highTest = p.high < 65535 ? `code > ${p.high}u` : undefined;
+  // Fault tests come first: a fault code lies beyond the range on its side.
+  const faultLow = p.faultBelow === undefined ? undefined : p.faultBelow === 0 ? 'code == 0u' : `code <= ${p.faultBelow}u`;
+  const faultHigh = p.faultAbove === undefined ? undefined : p.faultAbove === 65535 ? 'code == 65535u' : `code >= ${p.faultAbove}u`;
   if (early) {
     // Without run-time trims the output at a range end is a constant: a clamped code returns it
     // at once, and the in-range path carries no status (fewer live registers on an 8-bit MCU).
     // One unsigned comparison tests both ends (the wrap-around puts codes below the range high).
     const outT = `int${p.outBits}_t`;
-    const lowRet = `{ *out = (${outT})${lit(p.outAtLow, p.outBits)}; return ${below}; }`;
-    const highRet = `{ *out = (${outT})${lit(p.outAtHigh, p.outBits)}; return ${above}; }`;
+    const ret = (v: number, st: string) => `{ *out = (${outT})${lit(v, p.outBits)}; return ${st}; }`;
+    const lowSide = [
+      ...(faultLow ? [`if (${faultLow}) ${ret(p.outAtLow, 'THSC_SENSOR_FAULT')}`] : []),
+      ...(lowTest ? [`if (${lowTest}) ${ret(p.outAtLow, below)}`] : []),
+    ];
+    const highSide = [
+      ...(faultHigh ? [`if (${faultHigh}) ${ret(p.outAtHigh, 'THSC_SENSOR_FAULT')}`] : []),
+      ...(highTest ? [ret(p.outAtHigh, above)] : []),
+    ];
     if (lowTest && highTest) {
       out.push(`    if ((uint16_t)(code - ${p.low}u) > ${p.high - p.low}u) {`);
-      out.push(`        if (${lowTest}) ${lowRet}`);
-      out.push(`        ${highRet}`);
+      for (const l of [...lowSide, ...highSide]) out.push(`        ${l}`);
       out.push('    }');
-    } else if (lowTest) out.push(`    if (${lowTest}) ${lowRet}`);
-    else if (highTest) out.push(`    if (${highTest}) ${highRet}`);
+    } else if (lowTest) for (const l of lowSide) out.push(`    ${l}`);
+    else if (highTest) {
+      if (faultHigh) out.push(`    if (${faultHigh}) ${ret(p.outAtHigh, 'THSC_SENSOR_FAULT')}`);
+      out.push(`    if (${highTest}) ${ret(p.outAtHigh, above)}`);
+    }
     return out;
   }
-  if (lowTest) out.push(`    if (${lowTest}) { code = ${p.low}u; status = ${below}; }`);
-  if (highTest) out.push(`    ${lowTest ? 'else ' : ''}if (${highTest}) { code = ${p.high}u; status = ${above}; }`);
+  const tests: [string, number, string][] = [
+    ...(faultLow ? [[faultLow, p.low, 'THSC_SENSOR_FAULT'] as [string, number, string]] : []),
+    ...(lowTest ? [[lowTest, p.low, below] as [string, number, string]] : []),
+    ...(faultHigh ? [[faultHigh, p.high, 'THSC_SENSOR_FAULT'] as [string, number, string]] : []),
+    ...(highTest ? [[highTest, p.high, above] as [string, number, string]] : []),
+  ];
+  tests.forEach(([test, code, st], i) => out.push(`    ${i > 0 ? 'else ' : ''}if (${test}) { code = ${code}u; status = ${st}; }`));
   return out;
 }
 
@@ -280,11 +354,17 @@ function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
   return `static const int32_t ${n.data}[${segs.length}][3] THSC_ROM = {\n${rows(segs, 2, '    ')}\n};`;
 }
 
-export function emitSourceBody(p: ChannelPlan): string {
+/**
+ * The channel's definitions. With `header` (the file's own header name) the block includes it for
+ * the types, prototypes and status codes and does not repeat them (a typedef given twice is an
+ * error before C11, a warning under -pedantic); without, the block declares them itself.
+ */
+export function emitSourceBody(p: ChannelPlan, header?: string): string {
   const n = names(p);
   const k = kernelCode(p, n);
   const outT = `int${p.outBits}_t`;
-  const parts: string[] = [headComment(p), '#include <stdint.h>', SHARED_STATUS, SHARED_IMPL, declarations(p), dataCode(p, n)];
+  const own = header ? [`#include "${header}" /* this channel's types, prototypes and status codes */`] : ['#include <stdint.h>', SHARED_STATUS, declarations(p)];
+  const parts: string[] = [headComment(p), ...own, SHARED_IMPL, dataCode(p, n)];
   if (p.trim.runtime) {
     const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : `int16_t offset; uint16_t gain_q${GAIN_Q};`;
     const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainQ}u`;

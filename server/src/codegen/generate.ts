@@ -65,6 +65,13 @@ export function validateInput(c: ConversionInput): void {
     fail(c, 'calibration.offset', `must be finite with |offset| <= ${(32767 / c.outputScale).toFixed(2)} degC, got ${cal.offset}`);
   if (cal.gain !== undefined && (!Number.isFinite(cal.gain) || cal.gain < 0.5 || cal.gain > 2))
     fail(c, 'calibration.gain', `must be in 0.5..2, got ${cal.gain}`);
+  for (const [field, v, ok] of [
+    ['faultBelow', c.faultBelow, (x: number) => x < c.codeLow],
+    ['faultAbove', c.faultAbove, (x: number) => x > c.codeHigh],
+  ] as const) {
+    if (v !== undefined && (!Number.isInteger(v) || v < 0 || v > top || !ok(v)))
+      fail(c, field, `must be an integer 0..${top} outside the in-range codes ${c.codeLow}..${c.codeHigh}, got ${v}`);
+  }
   if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
@@ -85,7 +92,7 @@ function sample(c: ConversionInput): Samples {
     f[k] = v * c.outputScale;
     if (Math.abs(f[k]!) > 2 ** 30) fail(c, 'outputScale', `scaled temperature ${f[k]} at code ${c.codeLow + k} exceeds 2^30`);
   }
-  const dir: 1 | -1 = n > 1 && f[n - 1]! < f[0]! ? -1 : 1;
+  const dir: 1 | -1 = n > 1 ? (f[n - 1]! < f[0]! ? -1 : 1) : oneCodeDirection(c);
   for (let k = 1; k < n; k++) {
     if ((f[k]! - f[k - 1]!) * dir < 0)
       fail(c, 'celsiusAtCode', `not monotonic: ${f[k - 1]! / c.outputScale} degC at code ${c.codeLow + k - 1}, ${f[k]! / c.outputScale} degC at code ${c.codeLow + k}`);
@@ -107,6 +114,41 @@ function sample(c: ConversionInput): Samples {
     outMin: outBits === 16 ? INT16_MIN : -2147483648,
     outMax: outBits === 16 ? INT16_MAX : 2147483647,
   };
+}
+
+/**
+ * Direction of a one-code range: the model a quarter code either side of the code's centre (still
+ * inside its step). Rising when the model cannot say.
+ */
+function oneCodeDirection(c: ConversionInput): 1 | -1 {
+  try {
+    const a = c.celsiusAtCode(c.codeLow - 0.25);
+    const b = c.celsiusAtCode(c.codeLow + 0.25);
+    return Number.isFinite(a) && Number.isFinite(b) && b < a ? -1 : 1;
+  } catch {
+    return 1;
+  }
+}
+
+/** Smallest and largest |degC per code step| over the range (one code: across its own step). */
+function perCount(c: ConversionInput, s: Samples): { min: number; max: number } {
+  const n = s.f.length;
+  let min = Infinity;
+  let max = 0;
+  for (let k = 1; k < n; k++) {
+    const d = Math.abs(s.f[k]! - s.f[k - 1]!) / c.outputScale;
+    min = Math.min(min, d);
+    max = Math.max(max, d);
+  }
+  if (n === 1) {
+    try {
+      const d = Math.abs(c.celsiusAtCode(c.codeLow + 0.5) - c.celsiusAtCode(c.codeLow - 0.5));
+      if (Number.isFinite(d)) min = max = d;
+    } catch {
+      // no figure: the header then says nothing of the step
+    }
+  }
+  return Number.isFinite(min) ? { min, max } : { min: NaN, max: NaN };
 }
 
 type Design = TableDesign | PolyDesign;
@@ -185,15 +227,28 @@ function guardName(stem: string): string {
   return `THSC_${g || 'CONVERSIONS'}_H`;
 }
 
+/**
+ * The name the source includes for its header; undefined when the stem cannot be written between
+ * the quotes of a #include (C99 6.4.7: ', \\, ", // or /* there are undefined behaviour).
+ */
+// The header is named in an #include only when its name is a plain file name (letters, digits and
+// `_ + - .`, not starting with a dot): no path, quote, backslash or comment can reach the directive.
+// Any other stem gets self-contained blocks instead.
+function ownHeader(stem: string): string | undefined {
+  return /^[A-Za-z0-9_+-][A-Za-z0-9_.+-]*$/.test(stem) ? `${stem}.h` : undefined;
+}
+
 /** Plans (validated and designed) for each input, in order; shared by generateC and the tests. */
-export function planChannels(inputs: readonly ConversionInput[]): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
+export function planChannels(inputs: readonly ConversionInput[], prefix = ''): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
   for (const c of inputs) validateInput(c);
+  const badPrefix = prefixProblem(prefix);
+  if (badPrefix && inputs[0]) fail(inputs[0], 'prefix', badPrefix);
   const seen = new Set<string>();
   for (const c of inputs) {
     if (seen.has(c.channelName)) fail(c, 'channelName', 'two channels have this name; markers need unique names');
     seen.add(c.channelName);
   }
-  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName));
+  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id) => prefix + id);
   const plans: ChannelPlan[] = [];
   const samples: Samples[] = [];
   const bytes: number[] = [];
@@ -227,6 +282,9 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
       floatVariant: c.floatVariant,
       outAtLow: finish(s, kernelAt(ch.design, s, s.low)),
       outAtHigh: finish(s, kernelAt(ch.design, s, s.high)),
+      ...(c.faultBelow !== undefined ? { faultBelow: c.faultBelow } : {}),
+      ...(c.faultAbove !== undefined ? { faultAbove: c.faultAbove } : {}),
+      perCountC: perCount(c, s),
       maxErrorC: worst / c.outputScale,
       errorTarget: c.errorTarget,
       note: c.note,
@@ -237,12 +295,20 @@ export function planChannels(inputs: readonly ConversionInput[]): { plans: Chann
   return { plans, samples, bytes };
 }
 
+/** Why `prefix` cannot start a generated identifier, or undefined when it can. */
+export function prefixProblem(prefix: string): string | undefined {
+  // A leading underscore is reserved to the implementation in many cases (C99 7.1.3).
+  return prefix === '' || /^[A-Za-z][A-Za-z0-9_]{0,31}$/.test(prefix)
+    ? undefined
+    : `must be a C identifier of 1 to 32 letters, digits and underscores starting with a letter (got '${prefix.replace(/[^\x20-\x7e]/g, '?')}')`;
+}
+
 export function generateC(inputs: ConversionInput[], options: GenerateOptions): GenerateResult {
-  const { plans, bytes } = planChannels(inputs);
+  const { plans, bytes } = planChannels(inputs, options.prefix);
   const header = options.header === true;
   const channels: GeneratedChannel[] = plans.map((p, i) => ({
     identifier: p.ident,
-    code: header ? emitHeaderBody(p) : emitSourceBody(p),
+    code: header ? emitHeaderBody(p) : emitSourceBody(p, options.selfContained ? undefined : ownHeader(options.fileStem)),
     bytesEstimate: bytes[i]!,
     maxErrorC: p.maxErrorC,
     method: p.design.kind,

@@ -7,6 +7,10 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { TextDocuments } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { SourceHost } from '../engine';
+import { isInside } from '../model/workspace';
+import { readDisk, realPathOnDisk } from '../disk';
+
+export { readDisk };
 
 /** Bounds of the workspace walk: folder depth, entries looked at, spec files kept. */
 const SCAN_DEPTH = 12;
@@ -32,8 +36,7 @@ export class OpenDocuments {
   rootFor(absPath: string): string {
     let best: string | undefined;
     for (const r of this.roots) {
-      const rel = path.relative(r, absPath);
-      if (!rel.startsWith('..') && !path.isAbsolute(rel) && (!best || r.length > best.length)) best = r;
+      if (isInside(r, absPath) && (!best || r.length > best.length)) best = r;
     }
     return best ?? path.dirname(absPath);
   }
@@ -76,15 +79,8 @@ export class OpenDocuments {
         if (open) return open.getText();
         return readDisk(absPath);
       },
+      realPath: realPathOnDisk,
     };
-  }
-}
-
-export function readDisk(absPath: string): string | undefined {
-  try {
-    return fs.statSync(absPath).isFile() ? fs.readFileSync(absPath, 'utf8') : undefined;
-  } catch {
-    return undefined;
   }
 }
 

@@ -27,6 +27,7 @@ describe('generated C on cross compilers', () => {
     const dir = new WorkDir();
     try {
       dir.write('conv.c', generateC(inputs, { fileStem: 'conv' }).text);
+      dir.write('conv.h', generateC(inputs, { fileStem: 'conv', header: true }).text);
       run('avr-gcc', [...AVR_FLAGS, '-pedantic', '-c', 'conv.c', '-o', 'conv.o'], dir.path);
       // Tables must land in .progmem (flash), not .data (copied to RAM at start-up).
       const sections = run('avr-objdump', ['-h', 'conv.o'], dir.path).stdout;
@@ -41,6 +42,7 @@ describe('generated C on cross compilers', () => {
     const dir = new WorkDir();
     try {
       dir.write('conv.c', generateC(inputs, { fileStem: 'conv' }).text);
+      dir.write('conv.h', generateC(inputs, { fileStem: 'conv', header: true }).text);
       run('arm-none-eabi-gcc', [...M0_FLAGS, '-pedantic', '-c', 'conv.c', '-o', 'conv.o'], dir.path);
     } finally {
       dir.dispose();

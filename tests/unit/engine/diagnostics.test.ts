@@ -12,7 +12,8 @@ const DIR = path.join(FIXTURES, 'diagnostics');
 // covered by a unit test on a synthetic sweep in clip-low.test.ts.
 // generated-stale compares a spec with the C file beside it, outside analyse(): covered by
 // tests/unit/codegen/stale.test.ts and tests/protocol/conversion.test.ts.
-const NO_SPEC_FIXTURE = new Set<DiagnosticCode>(['clip-low', 'generated-stale']);
+// generated-orphan likewise: covered by tests/unit/codegen/stale.test.ts.
+const NO_SPEC_FIXTURE = new Set<DiagnosticCode>(['clip-low', 'generated-stale', 'generated-orphan']);
 
 describe('diagnostic fixtures', () => {
   const codes = (Object.keys(CATALOGUE) as DiagnosticCode[]).filter((c) => !NO_SPEC_FIXTURE.has(c));
@@ -31,7 +32,7 @@ describe('diagnostic fixtures', () => {
       const file = path.join(DIR, `${code}.quiet.tsense`);
       const a = analyseFile(file, DIR);
       expect(a.diagnostics.map((d) => d.code)).not.toContain(code);
-      expect(a.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+      if (code !== 'more-problems') expect(a.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
       expectMatchesFile(diagnosticRows(a, DIR).join('\n') + '\n', file.replace(/\.tsense$/, '.expected'));
     });
   }
