@@ -9,7 +9,7 @@ import * as path from 'node:path';
 import { channelKey } from '../analysis/cache';
 import { kelvinAtVolts } from '../analysis/inverse';
 import { sense } from '../analysis/sense';
-import { fittedChannel } from '../calibration/fit';
+import { fitMeasured, fittedChannel } from '../calibration/fit';
 import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelDef } from '../model/types';
@@ -166,7 +166,11 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
         ? { mode: 'two-point', offset: 0, gain: 1, runtime: true }
         : { mode: 'none', runtime: false };
   const notes = [`Channel ${c.name} of ${path.basename(specPath)}.`];
-  if (model !== c) notes.push(`Converts with the model fitted to the ${c.measured!.length} measured point(s) of the spec.`);
+  if (model !== c) {
+    const out = fitMeasured(c)?.outlier ?? null;
+    const left = out === null ? '' : ` (the point ${c.measured![out]!.code} counts at ${+(c.measured![out]!.kelvin - ZERO_CELSIUS_K).toFixed(3)} °C disagrees with the others and is left out)`;
+    notes.push(`Converts with the model fitted to the ${c.measured!.length - (out === null ? 0 : 1)} measured point(s) of the spec${left}.`);
+  }
   if (n > 0) {
     notes.push(
       `Takes the decimated value of ${4 ** n} readings summed and shifted right by ${n} (oversampling = ${n} bits): ` +
@@ -184,7 +188,9 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     celsiusAtCode: (code: number) => kelvinAtVolts(model, (meanReadingOfDecimated(code, n) + 0.5) * lsb, lowK, highK) - ZERO_CELSIUS_K,
     outputScale: opts.outputScale,
     errorTarget: opts.errorC,
-    method: opts.method,
+    // `conversion = line`: the firmware converts with one straight line, as the spec says.
+    method: c.conversion === 'line' ? 'line' : opts.method,
+    optimise: ('optimise' in opts ? opts.optimise : undefined) ?? 'balanced',
     calibration,
     floatVariant: opts.floatVariant,
     specHash: channelSpecHash(c),

@@ -1,7 +1,7 @@
 // C99 text for one channel. Integer-only unless the float variant is asked for; no libm ever.
 // Every constant below comes from a design that was simulated exactly in TypeScript first.
 
-import { GAIN_Q, type TrimDesign } from './calibration';
+import { GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, type TrimDesign } from './calibration';
 import { commentLines } from './names';
 import type { PolyDesign } from './polynomial';
 import type { TableDesign } from './table';
@@ -21,6 +21,14 @@ export interface ChannelPlan {
   outBits: 16 | 32;
   /** The trimmed output can leave the output type's range: clamp in C. */
   needClamp: boolean;
+  /** Smallest and largest untrimmed value over the in-range codes (run-time trim setters bound the trims with them). */
+  kernelMin: number;
+  kernelMax: number;
+  /** Internal fraction bits of the kernel: it works in 1/(scale * 2^fracBits) degC and rounds at the end. */
+  fracBits: number;
+  /** Untrimmed values at the low and high in-range codes. */
+  kernelAtLow: number;
+  kernelAtHigh: number;
   floatVariant: boolean;
   /** Final outputs at the low and high in-range codes (what a clamped code returns). */
   outAtLow: number;
@@ -32,6 +40,8 @@ export interface ChannelPlan {
   perCountC: { min: number; max: number };
   maxErrorC: number;
   errorTarget: number;
+  /** A straight line asked for by the spec (`conversion = line`): its error is not held to the target. */
+  line?: boolean;
   note?: string;
 }
 
@@ -67,6 +77,47 @@ const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
 #define THSC_MUL_HI8(s, f) ((uint16_t)((__extension__((__uint24)(s) * (uint8_t)(f) + 128u)) >> 8))
 #else
 #define THSC_MUL_HI8(s, f) ((uint16_t)(((uint32_t)(s) * (uint8_t)(f) + 128UL) >> 8))
+#endif
+#endif
+#ifndef THSC_GAIN_HELPER
+#define THSC_GAIN_HELPER 1
+/* floor((y * d + 32768) / 65536) for 16-bit y and d: the gain correction of a run-time trim. On
+   an 8-bit AVR with a multiplier, the signed 16 x 16 -> 32-bit multiply of Atmel application note
+   AVR201 (four hardware multiplies, inline) instead of a library call; the low byte is not formed,
+   as it cannot carry into the result. */
+#if defined(__AVR__) && defined(__GNUC__) && defined(__AVR_HAVE_MUL__)
+static inline int16_t thsc_gain_corr(int16_t y, int16_t d)
+{
+    int16_t r;
+    uint8_t b1, z;
+    __asm__ (
+        "clr %[z]\\n\\t"
+        "muls %B[y], %B[d]\\n\\t"
+        "mov %A[r], __tmp_reg__\\n\\t"
+        "mov %B[r], __zero_reg__\\n\\t"
+        "mul %A[y], %A[d]\\n\\t"
+        "mov %[b1], __zero_reg__\\n\\t"
+        "mulsu %B[y], %A[d]\\n\\t"
+        "sbc %B[r], %[z]\\n\\t"
+        "add %[b1], __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "mulsu %B[d], %A[y]\\n\\t"
+        "sbc %B[r], %[z]\\n\\t"
+        "add %[b1], __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "lsl %[b1]\\n\\t"
+        "adc %A[r], %[z]\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "clr __zero_reg__"
+        : [r] "=&r" (r), [b1] "=&r" (b1), [z] "=&r" (z)
+        : [y] "a" (y), [d] "a" (d));
+    return r;
+}
+#define THSC_GAIN_CORR(y, d) thsc_gain_corr((y), (d))
+#else
+#define THSC_GAIN_CORR(y, d) ((int16_t)THSC_ASR32((int32_t)(y) * (d) + 32768L, 16))
 #endif
 #endif`;
 
@@ -130,7 +181,9 @@ function describe(p: ChannelPlan): string[] {
     `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code). A code stands for the centre`,
     `of its step (code + 0.5 LSB)${perCountText(p)}.`,
     `Method: ${what}; ${trim}.`,
-    `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
+    p.line
+      ? `Straight line (conversion = line in the spec), not held to a code error target: max error vs the model over every in-range code ${p.maxErrorC.toFixed(4)} degC,`
+      : `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
     'from an exact simulation of this integer arithmetic; the quantisation of the code comes on top.',
     `${names(p).fn}() returns THSC_IN_RANGE, or THSC_CLAMPED_COLD / THSC_CLAMPED_HOT when the code is`,
     'outside the range; the output is then pinned to the nearest range end (never wrapped):',
@@ -204,7 +257,9 @@ function declarations(p: ChannelPlan): string {
     out.push(
       p.trim.mode === 'offset'
         ? `void ${n.setter}(int16_t offset_units); /* offset in 1/${p.scale} degC */`
-        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
+        : `/* Two-point trim: out = y + floor((y * D + 32768) / 65536) + offset_units, with y the untrimmed\n` +
+          `   value and D = 4 * gain_q${GAIN_Q} - 65536; gain_q${GAIN_Q} = gain * 2^${GAIN_Q}, held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5). */\n` +
+          `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
     );
   }
   if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
@@ -338,9 +393,49 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
 
 function trimExpr(p: ChannelPlan, n: ReturnType<typeof names>, value: string): string {
   const off = p.trim.runtime ? `(int32_t)${n.trims}.offset` : lit32(p.trim.offsetScaled);
-  const gain = p.trim.runtime ? `(int32_t)${n.trims}.gain_q${GAIN_Q}` : lit32(p.trim.gainQ);
   if (p.trim.mode === 'offset') return `(int32_t)${value} + ${off}`;
-  return `THSC_ASR32((int32_t)${value} * ${gain} + ${lit32(2 ** (GAIN_Q - 1))}, ${GAIN_Q}) + ${off}`;
+  // y + floor((y * D + 2^15) / 2^16) + O (calibration.ts): a 16 x 16 -> 32-bit product, whose
+  // high half is the correction (the value fits int16 whenever a two-point trim is designed).
+  return `(int32_t)${value} + THSC_ASR32((int32_t)(int16_t)${value} * ${p.trim.gainD}L + 32768L, 16) + ${off}`;
+}
+
+/** The setter of run-time trims; it bounds them so that every in-range output fits the output type. */
+function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string {
+  const bounded = p.outBits === 16;
+  const kmin = lit32(p.kernelMin);
+  const kmax = lit32(p.kernelMax);
+  if (p.trim.mode === 'offset') {
+    if (!bounded) return `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`;
+    return [
+      `void ${n.setter}(int16_t offset_units)`,
+      '{',
+      '    /* Held so that no in-range output leaves int16_t: the conversion then needs no clamp. */',
+      // A side whose bound lies outside int16_t needs no test (-Wtype-limits).
+      ...(32767 - p.kernelMax < 32767 ? [`    if (offset_units > ${32767 - p.kernelMax}) offset_units = ${32767 - p.kernelMax};`] : []),
+      ...(-32768 - p.kernelMin > -32768 ? [`    if (offset_units < ${-32768 - p.kernelMin}) offset_units = ${-32768 - p.kernelMin};`] : []),
+      `    ${n.trims}.offset = offset_units;`,
+      '}',
+    ].join('\n');
+  }
+  const g = `gain_q${GAIN_Q}`;
+  return [
+    `void ${n.setter}(int16_t offset_units, uint16_t ${g})`,
+    '{',
+    '    int32_t d, lo, hi, off;',
+    `    /* The gain is held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5) and stored as D = 4 * gain - 65536; the`,
+    '       offset is held so that no in-range output leaves int16_t (the conversion needs no clamp). */',
+    `    if (${g} < ${GAIN_Q_MIN}u) ${g} = ${GAIN_Q_MIN}u;`,
+    `    else if (${g} > ${GAIN_Q_MAX}u) ${g} = ${GAIN_Q_MAX}u;`,
+    `    d = (int32_t)${g} * 4 - (int32_t)65536L;`,
+    `    lo = (int32_t)(${kmin} + THSC_ASR32(${kmin} * d + 32768L, 16));`,
+    `    hi = (int32_t)(${kmax} + THSC_ASR32(${kmax} * d + 32768L, 16));`,
+    '    off = offset_units;',
+    '    if (off > 32767L - hi) off = 32767L - hi;',
+    '    if (off < -32768L - lo) off = -32768L - lo;',
+    `    ${n.trims}.offset = (int16_t)off;`,
+    `    ${n.trims}.gain_d = (int16_t)d;`,
+    '}',
+  ].join('\n');
 }
 
 function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
@@ -366,21 +461,53 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
   const own = header ? [`#include "${header}" /* this channel's types, prototypes and status codes */`] : ['#include <stdint.h>', SHARED_STATUS, declarations(p)];
   const parts: string[] = [headComment(p), ...own, SHARED_IMPL, dataCode(p, n)];
   if (p.trim.runtime) {
-    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : `int16_t offset; uint16_t gain_q${GAIN_Q};`;
-    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainQ}u`;
+    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int16_t offset; int16_t gain_d;';
+    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainD}`;
     parts.push(`static struct { ${fields} } ${n.trims} = { ${init} };`);
-    parts.push(
-      p.trim.mode === 'offset'
-        ? `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`
-        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q})\n{\n    ${n.trims}.offset = offset_units;\n    ${n.trims}.gain_q${GAIN_Q} = gain_q${GAIN_Q};\n}`,
-    );
+    parts.push(trimRuntimeSetter(p, n));
   }
+  if (p.trim.runtime && p.outBits === 16) {
+    // Run-time trims on a 16-bit output: the untrimmed conversion (with its early returns at the
+    // range ends) and the trim applied once to whatever it gives; the compiler inlines the first.
+    const inner: ChannelPlan = { ...p, trim: { ...p.trim, mode: 'none', runtime: false }, outAtLow: p.kernelAtLow, outAtHigh: p.kernelAtHigh };
+    parts.push(conversionFunction(inner, n, kernelCode(inner, n), `static uint8_t ${n.id}_untrimmed(uint16_t code, int16_t *out)`));
+    const corr = p.trim.mode === 'two-point' ? ['    int16_t corr;'] : [];
+    const apply =
+      p.trim.mode === 'offset'
+        ? [`    *out = (int16_t)(kernel + ${n.trims}.offset);`]
+        : [
+            `    corr = THSC_GAIN_CORR(kernel, ${n.trims}.gain_d);`,
+            `    *out = (int16_t)(kernel + corr + ${n.trims}.offset);`,
+          ];
+    parts.push([`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    int16_t kernel;', ...corr, `    uint8_t status = ${n.id}_untrimmed(code, &kernel);`, ...apply, '    return status;', '}'].join('\n'));
+  } else {
+    parts.push(conversionFunction(p, n, k, `uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`));
+  }
+  if (p.floatVariant) parts.push(floatVariant(p, n));
+  return `${parts.join('\n')}\n`;
+}
+
+/**
+ * The kernel's internal fraction bits rounded off: floor((kernel + 2^(F-1)) / 2^F). 16-bit: biased
+ * into uint16 and shifted (no right shift of a negative number, C99 6.5.7p5); the design keeps
+ * kernel + 2^(F-1) inside int16.
+ */
+function roundFraction(p: ChannelPlan, wide: boolean): string[] {
+  const f = p.fracBits;
+  if (f === 0) return [];
+  if (wide) return [`    kernel = THSC_ASR32(kernel + ${2 ** (f - 1)}L, ${f}); /* to 1/${p.scale} degC, rounded */`];
+  return [`    kernel = (int16_t)((int16_t)((uint16_t)((uint16_t)kernel + ${0x8000 + 2 ** (f - 1)}u) >> ${f}) - ${0x8000 >> f}); /* to 1/${p.scale} degC, rounded */`];
+}
+
+/** The conversion function with the given signature (early returns unless trims are set at run time). */
+function conversionFunction(p: ChannelPlan, n: ReturnType<typeof names>, k: ReturnType<typeof kernelCode>, signature: string): string {
+  const outT = `int${p.outBits}_t`;
   const early = !p.trim.runtime;
-  const lines: string[] = [`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{'];
+  const lines: string[] = [signature, '{'];
   if (!early) lines.push('    uint8_t status = THSC_IN_RANGE;');
   lines.push(...k.decl);
   if (p.trim.mode !== 'none') lines.push('    int32_t trimmed;');
-  lines.push(...clampCode(p, early), ...k.body);
+  lines.push(...clampCode(p, early), ...k.body, ...roundFraction(p, k.wide));
   if (p.trim.mode === 'none') {
     lines.push(`    *out = (${outT})kernel;`);
   } else {
@@ -392,9 +519,7 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
     lines.push(`    *out = (${outT})trimmed;`);
   }
   lines.push(early ? '    return THSC_IN_RANGE;' : '    return status;', '}');
-  parts.push(lines.join('\n'));
-  if (p.floatVariant) parts.push(floatVariant(p, n));
-  return `${parts.join('\n')}\n`;
+  return lines.join('\n');
 }
 
 /** Same points, float interpolation without the integer rounding; no libm. */
@@ -418,6 +543,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
       `    b = (float)${rd}(&${n.data}[idx + 1u]);`,
       `    y = a + (b - a) * ((float)(off & ${2 ** d.shift - 1}u) / ${2 ** d.shift}.0f);`,
     );
+    if (p.fracBits > 0) lines.push(`    y = y / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
   } else if (d.kind === 'table') {
     lines.push(`    y = (float)${rd}(&${n.data}[code - ${p.low}u]);`);
   } else {
@@ -429,7 +555,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
     lines.push(`    y += (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`);
   } else if (p.trim.mode === 'two-point') {
     lines.push(
-      `    y = y * ((float)${p.trim.runtime ? `${n.trims}.gain_q${GAIN_Q}` : p.trim.gainQ} / ${2 ** GAIN_Q}.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
+      `    y = y * ((65536.0f + (float)${p.trim.runtime ? `${n.trims}.gain_d` : p.trim.gainD}) / 65536.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
     );
   }
   lines.push(`    *celsius = y / ${p.scale}.0f;`, '    return status;', '}');

@@ -22,11 +22,14 @@ export interface ConversionInput {
    */
   faultBelow?: number;
   faultAbove?: number;
+  /** What auto favours among designs that meet the target (absent: balanced). */
+  optimise?: 'size' | 'speed' | 'balanced';
   /** Fixed-point unit of the output: 100 => signed hundredths of a degC. */
   outputScale: number;
   /** degC, max error allowed vs the model over every in-range code (callers default it to 0.02). */
   errorTarget: number;
-  method: 'auto' | 'table' | 'polynomial';
+  /** 'line': one straight line over the range (the spec's `conversion = line`); its error is what it is, not held to errorTarget. */
+  method: 'auto' | 'table' | 'polynomial' | 'line';
   calibration: {
     mode: 'none' | 'offset' | 'two-point';
     /** degC added after the conversion (offset and two-point modes). */
@@ -106,13 +109,28 @@ export interface FoundBlock {
 }
 
 /** Thrown by generateC for input outside the documented ranges; `field` names the offending input. */
+/** The spec's words for a generator input: messages speak of the spec, not of the generator's fields. */
+const SPEC_WORDS: Record<string, string> = {
+  celsiusAtCode: 'conversion',
+  bits: 'ADC bits',
+  oversamplingBits: 'oversampling',
+  outputScale: 'output',
+  errorTarget: 'code_error',
+  method: 'code_method',
+  'calibration.mode': 'calibration',
+  'calibration.offset': 'calibration',
+  'calibration.gain': 'calibration',
+  codeLow: 'ADC code range',
+  codeHigh: 'ADC code range',
+};
+
 export class CodegenInputError extends Error {
   constructor(
     readonly channel: string,
     readonly field: string,
     message: string,
   ) {
-    super(`channel "${channel}": ${field}: ${message}`);
+    super(`channel '${channel}': ${SPEC_WORDS[field] ?? field}: ${message}`);
     this.name = 'CodegenInputError';
   }
 }
