@@ -47,6 +47,8 @@ export interface BlockSpec {
   /** The fields a new block is written with (completion and snippets), each filled with its example. */
   template: string[];
   fields: FieldSpec[];
+  /** Why rename refuses a block of this kind, when its name is used outside the specs. */
+  notRenamed?: string;
 }
 
 const junction: BlockSpec = {
@@ -88,6 +90,7 @@ const channel: BlockSpec = {
   kind: 'channel',
   doc: 'A temperature channel: a sensor, its bias, the ADC that reads it, and the targets it must meet.',
   template: ['sensor', 'adc', 'bias', 'range', 'accuracy'],
+  notRenamed: 'Channel names are not renamed here: generated code and logs refer to them. Edit the name directly.',
   fields: [
     { name: 'sensor', form: { form: 'ref', target: 'junction', targets: ['junction', 'thermistor', 'rtd'] }, doc: 'Name of the sensor definition used: a junction, a thermistor or an rtd.', example: 'sensor = small_npn' },
     { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
