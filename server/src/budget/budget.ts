@@ -8,6 +8,7 @@ import { worstCase, type WorstCase } from './worst-case';
 import { monteCarlo, monteCarloAsync, percentileSorted, type McSamples } from './monte-carlo';
 import type { BudgetOptions, BudgetResult, CancellationToken, ContributorShare, ModeBudget, Progress } from './types';
 import { effectiveOversamplingBits, noiseSuffices } from './oversampling';
+import { trimNumber } from '../model/read-value';
 
 export const DEFAULT_RUNS = 1000;
 export const DEFAULT_SEED = 1;
@@ -113,6 +114,8 @@ function summarise(c: ChannelDef, p: Plan, wc: WorstCase, mc: McSamples | null):
   if ((c.oversamplingBits ?? 0) > 0 && effectiveOversamplingBits(c) === 0) {
     notes.push(noiseSuffices(c) === null ? 'Oversampling is not credited: the adc states no noise.' : 'Oversampling is not credited: the stated noise is below 0.5 LSB rms.');
   }
+  const rail = Math.max(c.adc.reference.tolerance, c.bias.kind === 'current' ? 0 : c.bias.supply.tolerance);
+  if (c.ratiometric && rail > 0) notes.push(`Ratiometric reading: the rail's tolerance (± ${trimNumber(rail * 100, 3)} %) feeds the divider and the converter's reference alike and cancels in the code, so it is not counted.`);
   notes.push('Input noise is not in the budget; ADC offset, gain and INL are taken as the bounds stated for the converter.');
   if (wc.method === 'corners' && outside > 0) notes.push(`${outside} Monte Carlo samples fall outside the corner band: the error is not monotonic in some input there.`);
   return {
