@@ -36,7 +36,13 @@ export function checkAccuracy({ channel: c, result, sink, reported }: CheckConte
 function noneMeets(best: ModeBudget): string {
   const d = best.dominant;
   return `no calibration mode meets it (${describeSetting(best.setting)} leaves ±${trimNumber(best.worstAbsK, 3)} K${d ? `, mostly ${d.label}` : ''})` +
-    (d ? (d.id === 'quantisation' ? ': more counts per kelvin are needed (resolution)' : `: tighten the ${d.label.replace(/ ±.*$/, '')}`) : '');
+    (d ? `: ${advice(d.id, d.label)}` : '');
+}
+
+function advice(id: string, label: string): string {
+  if (id === 'quantisation' || id === 'cal-quantisation') return 'more counts per kelvin are needed (resolution)';
+  if (id === 'cal-reference') return 'calibrate against a better reference thermometer (cal_reference)';
+  return `tighten the ${label.replace(/^calibration readings: /, '').replace(/ ±.*$/, '')}`;
 }
 
 /** Spec text of a calibration setting, for a quick fix. */
