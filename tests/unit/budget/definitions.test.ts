@@ -13,6 +13,8 @@ import { monteCarlo, percentileSorted } from '../../../server/src/budget/monte-c
 import { InlProfile } from '../../../server/src/budget/inl-profile';
 import { Xoshiro128 } from '../../../server/src/budget/prng';
 import { budgetJson } from '../../../server/src/budget/json';
+import { pairedDifference } from '../../../server/src/budget/paired';
+import { compareGroups } from '../../../server/src/compare/compare';
 
 function channelOf(text: string): ChannelDef {
   const a = analyse({ path: '/virtual/t.tsense', text });
@@ -172,5 +174,30 @@ describe('Monte Carlo against JCGM 101:2008, 9.2.3 (additive model, rectangular 
       expect(Math.abs(sh.varianceShare! - 0.25)).toBeLessThan(0.03);
       expect(sh.share).toBeCloseTo(0.25, 3);
     }
+  });
+});
+
+describe('channels on one converter', () => {
+  it('draws the converter once per board for a difference, so its shared part cancels', () => {
+    // A common additive or proportional error of two readings of the same size cancels in their
+    // difference (elementary; common practice, no source). Two identical channels on one converter:
+    // with the converter drawn once per board only the two readings' quantisation is left,
+    // 2 x 0.5 LSB at most; drawn apart, the reference, offset and gain errors add.
+    const junction = `junction q {\n kind = diode\n IS = 1 fA\n N = 1\n RS = 0 ohm\n}\nadc a {\n bits = 12\n reference = 1.2 V ± 1 %\n offset_error = ± 2 LSB\n gain_error = ± 0.2 %\n}\n`;
+    const ch = (name: string) => `channel ${name} {\n sensor = q\n adc = a\n bias = current 20 uA\n range = 0 °C .. 50 °C\n compare_group = pair\n}\n`;
+    const a = analyse({ path: '/virtual/p.tsense', text: junction + ch('left') + ch('right') });
+    const [l, r] = a.model.channels as [ChannelDef, ChannelDef];
+    const d = pairedDifference(l, r, 400, 3)!;
+    expect(d.shared).toEqual(['reference', 'offset', 'gain']);
+    const f = makeFrame(l, 2);
+    const lsbK = Math.max(...f.kPerLsb.map(Math.abs));
+    expect(d.sharedK).toBeLessThanOrEqual(1.0001 * lsbK);
+    expect(d.independentK).toBeGreaterThan(5 * lsbK);
+    const g = compareGroups(a).find((x) => x.name === 'pair')!;
+    expect(g.differences).toHaveLength(1);
+    expect(g.rows[0]!.notes.join(' ')).toMatch(/minus right \(same converter: reference, offset, gain drawn once per board\)/);
+    // Different converters: nothing is shared, no difference figure.
+    const other = analyse({ path: '/virtual/q.tsense', text: junction + 'adc b {\n bits = 12\n reference = 1.2 V ± 1 %\n}\n' + ch('left') + ch('right').replace('adc = a', 'adc = b') });
+    expect(pairedDifference(other.model.channels[0]!, other.model.channels[1]!)).toBeNull();
   });
 });
