@@ -92,7 +92,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         retrimmed.set(name, list);
       }
     }
-  });
+  }, 120_000); // generous: the host compiler runs here, on a shared machine
   afterAll(() => dir?.dispose());
 
   it('compiles without a warning and runs every code of every channel', () => {
