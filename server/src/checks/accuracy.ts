@@ -28,7 +28,7 @@ export function checkAccuracy({ channel: c, result, sink, reported }: CheckConte
     : noneMeets(b.modes.find((m) => m.setting.mode === 'two-point') ?? s);
   sink.report('accuracy-unmet', c.file, fieldSpan(c, 'accuracy'),
     `worst-case error ±${trimNumber(s.worstAbsK, 3)} K at ${trimNumber(s.worstAtCelsius, 4)} °C with ${describeSetting(s.setting)}${mc} exceeds the ±${trimNumber(c.accuracyK, 3)} K target; ` +
-      (dom ? `dominant: ${dom.label} (${trimNumber(dom.share * 100, 2)} %); ` : '') + fix,
+      (dom ? `dominant: ${dom.label} (${trimNumber(dom.share * 100, 2)} % of the summed one-at-a-time swings); ` : '') + fix,
     { worstK: s.worstAbsK, dominant: dom?.id ?? null, ...(better ? { calibration: calibrationText(better) } : {}) });
 }
 
