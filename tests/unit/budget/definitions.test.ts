@@ -70,6 +70,19 @@ describe('calibration readings', () => {
   });
 });
 
+describe('cal_reference', () => {
+  it('reports bad input with a message and a range, never a crash', () => {
+    const diags = (v: string) => {
+      const text = fs.readFileSync(SAMPLE, 'utf8').replace('compare_group = bath\n}', `compare_group = bath\n  cal_reference = ${v}\n}`);
+      return analyse({ path: SAMPLE, text }).diagnostics.map((d) => `${d.code}: ${d.message}`);
+    };
+    expect(diags('± 0.05 °C')).toEqual([]);
+    expect(diags('± 20 K')).toEqual(['out-of-domain: cal_reference: must be from 0 to 10 K (found 20 K)']);
+    expect(diags('± 1 V')[0]).toMatch(/^wrong-unit: cal_reference takes a temperature/);
+    expect(diags('banana')[0]).toMatch(/^bad-value: cal_reference: takes the reference thermometer's uncertainty such as `± 0.05 °C`/);
+  });
+});
+
 describe('one INL curve per board', () => {
   it('the profile stays within the bound and vanishes at both ends of the scale', () => {
     // End-point INL is zero at both ends by its definition (common practice, no source).
