@@ -12,6 +12,7 @@ import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel, type Resolution } from './model/resolve';
 import { contentToken } from './model/moved';
+import { shown } from './checks/shown';
 
 export type { Diagnostic } from './checks/diagnostic';
 export type { SourceHost, LoadedFile } from './model/workspace';
@@ -69,8 +70,46 @@ export function analyse(input: AnalyseInput): Analysis {
     }
   }
   reportUsedFileProblems(files, sink);
-  const diagnostics = sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1));
+  const diagnostics = capPerFile(sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1)));
   return { path: entry, files, model, channels, diagnostics };
+}
+
+/** At most this many diagnostics are listed for one file; one closing "and N more" stands for the rest. */
+export const MAX_DIAGNOSTICS_PER_FILE = 200;
+
+/**
+ * The first MAX_DIAGNOSTICS_PER_FILE diagnostics of each file (already sorted by file and offset),
+ * then one `more-problems` at the first one left off, as severe as the worst of those, so the exit
+ * status and the editor's error count still see an error that was not listed.
+ */
+function capPerFile(sorted: Diagnostic[]): Diagnostic[] {
+  if (sorted.length <= MAX_DIAGNOSTICS_PER_FILE) return sorted;
+  const out: Diagnostic[] = [];
+  const rank: Record<Diagnostic['severity'], number> = { info: 0, warning: 1, error: 2 };
+  for (let i = 0; i < sorted.length; ) {
+    const file = sorted[i]!.file;
+    let j = i;
+    while (j < sorted.length && sorted[j]!.file === file) j++;
+    const n = j - i;
+    if (n <= MAX_DIAGNOSTICS_PER_FILE) {
+      for (let k = i; k < j; k++) out.push(sorted[k]!);
+    } else {
+      for (let k = i; k < i + MAX_DIAGNOSTICS_PER_FILE; k++) out.push(sorted[k]!);
+      let worst: Diagnostic['severity'] = 'info';
+      for (let k = i + MAX_DIAGNOSTICS_PER_FILE; k < j; k++) if (rank[sorted[k]!.severity] > rank[worst]) worst = sorted[k]!.severity;
+      const first = sorted[i + MAX_DIAGNOSTICS_PER_FILE]!;
+      const more = n - MAX_DIAGNOSTICS_PER_FILE;
+      out.push({
+        code: 'more-problems',
+        severity: worst,
+        file,
+        span: first.span,
+        message: `and ${more} more problem${more === 1 ? '' : 's'} in this file from here on (only the first ${MAX_DIAGNOSTICS_PER_FILE} of ${n} are listed); fix these and check again`,
+      });
+    }
+    i = j;
+  }
+  return out;
 }
 
 /**
@@ -141,19 +180,49 @@ function tryBudget(c: ChannelDef): ChannelResult['budget'] {
 function reportUsedFileProblems(files: LoadedFile[], sink: DiagnosticSink): void {
   const errorsIn = new Map<string, number>();
   for (const d of sink.items) if (d.severity === 'error') errorsIn.set(d.file, (errorsIn.get(d.file) ?? 0) + 1);
+  if (errorsIn.size === 0) return;
   const byPath = new Map(files.map((f) => [f.path, f]));
-  const countBelow = (file: string, seen: Set<string>): number => {
-    if (seen.has(file)) return 0;
-    seen.add(file);
-    let n = errorsIn.get(file) ?? 0;
-    for (const u of byPath.get(file)?.uses ?? []) if (u.target) n += countBelow(u.target, seen);
+  // The accepted `use` edges form no cycle (loadWorkspace refuses a use of a file still being
+  // read), so the files with errors at or below each file are the union of its children's: one
+  // bit per file with errors, filled children first. A worklist, not recursion, so a long chain
+  // cannot overflow the stack; each file is done once, so 4,000 files cost 4,000 unions.
+  const errorFiles = [...errorsIn.keys()].filter((f) => byPath.has(f));
+  const bit = new Map(errorFiles.map((f, i) => [f, i]));
+  const words = Math.ceil(errorFiles.length / 32) || 1;
+  const below = new Map<string, Uint32Array>();
+  for (const start of files) {
+    if (below.has(start.path)) continue;
+    const stack: { file: LoadedFile; next: number }[] = [{ file: start, next: 0 }];
+    while (stack.length > 0) {
+      const top = stack[stack.length - 1]!;
+      const u = top.file.uses[top.next++];
+      if (u) {
+        const child = u.target ? byPath.get(u.target) : undefined;
+        if (child && !below.has(child.path)) stack.push({ file: child, next: 0 });
+        continue;
+      }
+      stack.pop();
+      const set = new Uint32Array(words);
+      const own = bit.get(top.file.path);
+      if (own !== undefined) set[own >> 5]! |= 1 << (own & 31);
+      for (const x of top.file.uses) {
+        const c = x.target ? below.get(x.target) : undefined;
+        if (c) for (let w = 0; w < words; w++) set[w]! |= c[w]!;
+      }
+      below.set(top.file.path, set);
+    }
+  }
+  const countBelow = (file: string): number => {
+    const set = below.get(file);
+    let n = 0;
+    if (set) for (let i = 0; i < errorFiles.length; i++) if (set[i >> 5]! & (1 << (i & 31))) n += errorsIn.get(errorFiles[i]!)!;
     return n;
   };
   for (const f of files) {
     for (const u of f.uses) {
       if (!u.target || !byPath.has(u.target)) continue;
-      const n = countBelow(u.target, new Set([f.path]));
-      if (n > 0) sink.report('import-problems', f.path, u.node.path.span, `'${u.node.path.text}' has ${n} error${n === 1 ? '' : 's'} of its own`);
+      const n = countBelow(u.target);
+      if (n > 0) sink.report('import-problems', f.path, u.node.path.span, `'${shown(u.node.path.text)}' has ${n} error${n === 1 ? '' : 's'} of its own`);
     }
   }
 }

@@ -36,10 +36,7 @@ export function physicsBias(b: BiasDef): Bias {
 /** The nominal physics bias of each channel definition, made once (sweeps ask per point). */
 const biasOf = new WeakMap<ChannelDef, Bias>();
 
-/**
- * What the ADC sees at one temperature. A sweep of a single-bias junction channel takes
- * physics/junction.ts sweepJunction instead, which gives the same numbers without an object per point.
- */
+/** What the ADC sees at one temperature. */
 export function sense(c: ChannelDef, kelvin: number): SensedPoint {
   if (c.sensor.kind !== 'junction') return senseResistive(c, c.sensor, kelvin);
   if (c.secondBias) return senseTwoCurrent(c, c.secondBias, kelvin);

@@ -1,7 +1,6 @@
 // Sweeps a channel over its range: operating point, ADC code and resolution at each step.
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { sweepJunction } from '../physics/junction';
-import { nominalBias, sense } from './sense';
+import { sense } from './sense';
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult, ChannelSummary, SweepPoint } from './types';
 import { nonlinearity } from './nonlinearity';
@@ -82,12 +81,6 @@ export class SweepTable {
     this.slope = view(2);
     this.powerW = view(3);
     this.sourceOhms = view(4);
-    const s = channel.sensor;
-    // A single-bias junction: the point-free loop (same bits as sense()). Others: sense() per point.
-    if (s.kind === 'junction' && !channel.secondBias) {
-      sweepJunction(s.params, nominalBias(channel), kelvins, this);
-      return;
-    }
     for (let i = 0; i < kelvins.length; i++) {
       const p = sense(channel, kelvins[i]!);
       this.volts[i] = p.volts;

@@ -5,6 +5,7 @@ import type { QuantityTerm, Span, Term } from '../syntax/ast';
 import type { BiasDef, CalibrationSpec, MeasuredPoint, MonteCarloSpec } from '../model/types';
 import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from '../model/read-value';
 import { readUnit } from '../model/units';
+import { shown } from '../checks/shown';
 
 function bad(ctx: ReadContext, span: Span, message: string): null {
   ctx.sink.report('bad-value', ctx.file, span, `${ctx.field}: ${message}`);
@@ -32,7 +33,7 @@ export function readLsbBound(terms: Term[], ctx: ReadContext): number | null {
   const v = readQuantityValue(q, 'count', ctx);
   if (v === null) return null;
   const abs = Math.abs(v);
-  if (!(abs <= 1000)) return outOfDomain(ctx, q.span, `must be from 0 to 1000 LSB (found ${q.number.text})`);
+  if (!(abs <= 1000)) return outOfDomain(ctx, q.span, `must be from 0 to 1000 LSB (found ${shown(q.number.text)})`);
   return abs;
 }
 
@@ -42,7 +43,7 @@ export function readRelativeBound(terms: Term[], ctx: ReadContext): number | nul
   const u = q?.unit ? readUnit(q.unit.text) : null;
   if (!q || !u || typeof u === 'string' || u.dimension !== 'ratio' || !noExtra(terms, 1, ctx)) return bad(ctx, spanOf(terms), 'takes a relative bound such as `± 0.2 %`');
   const v = Math.abs(q.number.value * u.scale);
-  if (!(v < 0.5)) return outOfDomain(ctx, q.span, `must be from 0 % to below 50 % (found ${q.number.text} ${q.unit!.text})`);
+  if (!(v < 0.5)) return outOfDomain(ctx, q.span, `must be from 0 % to below 50 % (found ${shown(q.number.text)} ${shown(q.unit!.text)})`);
   return v;
 }
 
@@ -108,7 +109,7 @@ export function readTwoCurrentBias(terms: Term[], ctx: ReadContext): { first: Bi
   if (r1 === null || r2 === null || vs === null) return null;
   if (!(r1 > 0)) return outOfDomain(ctx, a.span, 'a bias resistor must be above 0 Ω');
   if (!(r2 > 0)) return outOfDomain(ctx, b.span, 'a bias resistor must be above 0 Ω');
-  if (!(vs > 0 && vs <= 1000)) return outOfDomain(ctx, v.span, `the supply must be above 0 V and at most 1000 V (found ${v.number.text} V)`);
+  if (!(vs > 0 && vs <= 1000)) return outOfDomain(ctx, v.span, `the supply must be above 0 V and at most 1000 V (found ${shown(v.number.text)} V)`);
   const t1 = tolOf(a, r1, 'resistance');
   const t2 = tolOf(b, r2, 'resistance');
   const tv = tolOf(v, vs, 'voltage');
@@ -134,7 +135,7 @@ function temperatureAt(t: Term | undefined, ctx: ReadContext, lowK: number, high
   const k = readQuantityValue(t, 'temperature', ctx);
   if (k === null) return null;
   if (!(k >= lowK - 1e-9 && k <= highK + 1e-9)) {
-    return outOfDomain(ctx, t.span, `${t.number.text}${t.unit ? ' ' + t.unit.text : ''} is outside the channel range ${trimNumber(lowK - 273.15, 5)} °C .. ${trimNumber(highK - 273.15, 5)} °C`);
+    return outOfDomain(ctx, t.span, `${shown(t.number.text)}${t.unit ? ' ' + t.unit.text : ''} is outside the channel range ${trimNumber(lowK - 273.15, 5)} °C .. ${trimNumber(highK - 273.15, 5)} °C`);
   }
   return k;
 }
@@ -185,7 +186,7 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
     const k = readQuantityValue(temp, 'temperature', ctx);
     if (c === null || k === null) return null;
     const full = 2 ** bits;
-    if (!(c >= 0 && c <= full - 1)) return outOfDomain(ctx, code.span, `a ${bits}-bit code must be from 0 to ${full - 1} (found ${code.number.text})`);
+    if (!(c >= 0 && c <= full - 1)) return outOfDomain(ctx, code.span, `a ${bits}-bit code must be from 0 to ${full - 1} (found ${shown(code.number.text)})`);
     if (!(k > 0)) return outOfDomain(ctx, temp.span, 'a temperature must be above 0 K (absolute zero)');
     out.push({ kelvin: k, code: c, span: { start: code.span.start, end: temp.span.end } });
     i += 3;
@@ -212,7 +213,7 @@ export function readMonteCarlo(terms: Term[], ctx: ReadContext): MonteCarloSpec 
   const n = terms[0];
   const runs = terms[1];
   if (!n || n.kind !== 'quantity' || n.unit || n.tolerance || !runs || runs.kind !== 'word' || runs.text !== 'runs') return bad(ctx, spanOf(terms), hint);
-  if (!(Number.isInteger(n.number.value) && n.number.value >= 10 && n.number.value <= 1_000_000)) return outOfDomain(ctx, n.span, `runs must be a whole number from 10 to 1000000 (found ${n.number.text})`);
+  if (!(Number.isInteger(n.number.value) && n.number.value >= 10 && n.number.value <= 1_000_000)) return outOfDomain(ctx, n.span, `runs must be a whole number from 10 to 1000000 (found ${shown(n.number.text)})`);
   let seed = 1;
   let distribution: MonteCarloSpec['distribution'] = 'uniform';
   let i = 2;
@@ -220,7 +221,7 @@ export function readMonteCarlo(terms: Term[], ctx: ReadContext): MonteCarloSpec 
   if (seedWord && seedWord.kind === 'word' && seedWord.text === 'seed') {
     const s = terms[i + 1];
     if (!s || s.kind !== 'quantity' || s.unit || s.tolerance) return bad(ctx, spanOf(terms), hint);
-    if (!(Number.isInteger(s.number.value) && s.number.value >= 0 && s.number.value <= 4294967295)) return outOfDomain(ctx, s.span, `seed must be a whole number from 0 to 4294967295 (found ${s.number.text})`);
+    if (!(Number.isInteger(s.number.value) && s.number.value >= 0 && s.number.value <= 4294967295)) return outOfDomain(ctx, s.span, `seed must be a whole number from 0 to 4294967295 (found ${shown(s.number.text)})`);
     seed = s.number.value;
     i += 2;
   }
@@ -240,6 +241,6 @@ export function readOversampling(terms: Term[], ctx: ReadContext): number | null
   if (!q || q.kind !== 'quantity' || q.unit || q.tolerance || !w || w.kind !== 'word' || (w.text !== 'bits' && w.text !== 'bit') || !noExtra(terms, 2, ctx)) {
     return bad(ctx, spanOf(terms), 'takes a number of extra bits such as `2 bits`');
   }
-  if (!(Number.isInteger(q.number.value) && q.number.value >= 0 && q.number.value <= 8)) return outOfDomain(ctx, q.span, `must be a whole number of bits from 0 to 8 (found ${q.number.text})`);
+  if (!(Number.isInteger(q.number.value) && q.number.value >= 0 && q.number.value <= 8)) return outOfDomain(ctx, q.span, `must be a whole number of bits from 0 to 8 (found ${shown(q.number.text)})`);
   return q.number.value;
 }

@@ -1,18 +1,20 @@
 // Every diagnostic the engine can report: a stable code, its severity and its documentation.
 // Code actions, the CLI exit status and SARIF rule ids key on `code`, never on message text.
 
+import { BLOCK_KINDS } from '../model/language';
+
 export type Severity = 'error' | 'warning' | 'info';
 
 export interface CodeInfo {
   severity: Severity;
   title: string;
-  /** What the check means and why; shown in hovers, SARIF rule help and the README. */
+  /** What the check means and why; shown in hovers, SARIF rule help and docs/reference.md. */
   doc: string;
 }
 
 export const CATALOGUE = {
   'syntax': { severity: 'error', title: 'Syntax error', doc: 'A line could not be read. The message says what was expected at the marked place.' },
-  'unknown-block': { severity: 'error', title: 'Unknown block kind', doc: 'A block starts with a kind the language does not define (junction, adc, channel).' },
+  'unknown-block': { severity: 'error', title: 'Unknown block kind', doc: `A block starts with a kind the language does not define (it defines ${BLOCK_KINDS.map((b) => b.kind).join(', ')}).` },
   'unknown-field': { severity: 'error', title: 'Unknown field', doc: 'The block kind has no field of this name.' },
   'duplicate-field': { severity: 'error', title: 'Field given twice', doc: 'A field may appear once per block; the second one is ignored.' },
   'duplicate-name': { severity: 'error', title: 'Name defined twice', doc: 'Two definitions share a name (in this file or in a file it uses).' },
@@ -25,6 +27,7 @@ export const CATALOGUE = {
   'import-missing': { severity: 'error', title: 'Used file not found', doc: 'A `use` names a file that cannot be read.' },
   'import-cycle': { severity: 'error', title: 'Files use each other in a cycle', doc: 'A chain of `use` lines leads back to a file already being read.' },
   'import-outside-root': { severity: 'error', title: 'Used file outside the workspace', doc: 'A `use` path leaves the workspace root (for the CLI, the folder given with --root, by default the file\'s own folder) and is refused.' },
+  'more-problems': { severity: 'info', title: 'More problems than are listed', doc: 'A file has more than 200 diagnostics: the first 200 (by position) are listed and this one stands for the rest, from the first one left off, as severe as the worst of them. A file that broken needs its first problems fixed before the rest mean much; the cap also keeps a huge broken file from stalling the tool.' },
   'import-problems': { severity: 'error', title: 'Used file has errors', doc: 'A file brought in with `use` has errors of its own; they are listed against that file.' },
   'bias-current-low': { severity: 'warning', title: 'Bias current below the sound window', doc: 'Below the window (default 1 µA) reverse leakage, surface currents and ADC input leakage become a visible share of the bias and noise pickup grows (common practice).' },
   'bias-current-high': { severity: 'warning', title: 'Bias current above the sound window', doc: 'Above the window (default 1 mA) self-heating of a small-signal part and the drop on its series resistance become visible errors (common practice).' },

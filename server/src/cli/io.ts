@@ -1,25 +1,26 @@
 // The CLI's file access: the engine's SourceHost over the disk, and line indexes for output.
-import * as fs from 'node:fs';
+import { readDisk, realPathOnDisk } from '../disk';
 import type { SourceHost } from '../model/workspace';
 import { LineIndex } from '../syntax/line-index';
 
 export class DiskHost implements SourceHost {
   private readonly cache = new Map<string, string | undefined>();
+  private readonly reals = new Map<string, string>();
+  private readonly indexes = new Map<string, LineIndex>();
   read(absPath: string): string | undefined {
-    if (!this.cache.has(absPath)) {
-      let text: string | undefined;
-      try {
-        text = fs.statSync(absPath).isFile() ? fs.readFileSync(absPath, 'utf8') : undefined;
-      } catch {
-        text = undefined;
-      }
-      this.cache.set(absPath, text);
-    }
+    if (!this.cache.has(absPath)) this.cache.set(absPath, readDisk(absPath));
     return this.cache.get(absPath);
   }
-  /** Line index of a file that has been read (empty text when it has not). */
+  realPath(absPath: string): string {
+    let r = this.reals.get(absPath);
+    if (r === undefined) this.reals.set(absPath, (r = realPathOnDisk(absPath)));
+    return r;
+  }
+  /** Line index of a file that has been read (empty text when it has not); one per file, kept. */
   index(absPath: string): LineIndex {
-    return new LineIndex(this.read(absPath) ?? '');
+    let ix = this.indexes.get(absPath);
+    if (!ix) this.indexes.set(absPath, (ix = new LineIndex(this.read(absPath) ?? '')));
+    return ix;
   }
 }
 

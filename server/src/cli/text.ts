@@ -2,10 +2,12 @@
 import * as path from 'node:path';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { LineIndex } from '../syntax/line-index';
+import { escapeControls } from '../checks/shown';
 
 export function formatDiagnostic(d: Diagnostic, index: LineIndex, cwd: string): string {
   const p = index.position(d.span.start);
-  const rel = path.relative(cwd, d.file) || d.file;
+  // A file name may hold control characters too; a terminal must not act on them.
+  const rel = escapeControls(path.relative(cwd, d.file) || d.file);
   return `${rel}:${p.line + 1}:${p.character + 1}: ${d.severity} [${d.code}] ${d.message}`;
 }
 

@@ -39,6 +39,9 @@ export function uniqueIdentifiers(names: readonly string[]): string[] {
 /**
  * Text safe inside a C block comment, one physical line each: printable ASCII only, no comment
  * delimiters, no trigraphs (C99 5.2.1.1: "??/" would become a backslash), no line splices.
+ * Every one-character mapping runs first and the pair-breaking last: breaking inserts only spaces,
+ * which no delimiter contains, so no later step can join two characters into a delimiter again
+ * (a backslash mapped to '/' after the breaking once let `*\` become `*` + `/`).
  */
 export function commentLines(text: string, maxLines = 12, maxWidth = 96): string[] {
   const out: string[] = [];
@@ -47,14 +50,15 @@ export function commentLines(text: string, maxLines = 12, maxWidth = 96): string
       .normalize('NFKD')
       .replace(/[\u0300-\u036f]/g, '')
       .replace(/\t/g, ' ')
-      .replace(/[^\x20-\x7e]/g, '?');
-    // Break every delimiter and trigraph lead-in; repeat until stable since a fix can create a new pair.
+      .replace(/[^\x20-\x7e]/g, '?')
+      .replace(/\\/g, '/');
     for (let prev = ''; prev !== s; ) {
       prev = s;
       s = s.replace(/\*\//g, '* /').replace(/\/\*/g, '/ *').replace(/\?\?/g, '? ?').replace(/\/\//g, '/ /');
     }
-    s = s.replace(/\\/g, '/').trimEnd();
+    s = s.trimEnd();
     while (s.length > maxWidth) {
+      // A cut never splits a delimiter in a way that matters: each physical line sits after ' * '.
       out.push(s.slice(0, maxWidth));
       s = s.slice(maxWidth);
     }

@@ -4,7 +4,8 @@
 import type { Analysis } from '../engine';
 import type { BlockNode, Span } from '../syntax/ast';
 import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
-import type { Dimension } from '../model/units';
+import { SUGGESTED_UNITS, type Dimension } from '../model/units';
+import { BLOCK_KINDS, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
 import { blockAt } from './locate';
 import { formatSI, trimNumber } from './figures';
 
@@ -51,22 +52,9 @@ export function completion(a: Analysis, offset: number): CompletionItem[] {
 }
 
 function topLevel(replace: Span): CompletionItem[] {
-  const block = (kind: BlockKind, body: string): CompletionItem => ({
-    label: kind,
-    kind: 'keyword',
-    detail: `${kind} block`,
-    documentation: BLOCKS[kind].doc,
-    insertText: `${kind} \${1:name} {\n${body}\n}`,
-    snippet: true,
-    replace,
-  });
   return [
-    block('junction', '  kind = ${2:npn}\n  IS   = ${3:10 fA}'),
-    block('thermistor', '  r25         = ${2:10k ± 1 %}\n  beta        = ${3:3950 K ± 1 %}\n  dissipation = ${4:1.5 mW/K}'),
-    block('rtd', '  r0    = ${2:1000}\n  class = ${3|AA,A,B,C|}'),
-    block('adc', '  bits      = ${2:12}\n  reference = ${3:3.3 V}'),
-    block('channel', '  sensor = ${2:sensor}\n  adc    = ${3:adc}\n  bias   = ${4:current 10 uA}\n  range  = ${5:-40 °C .. 85 °C}'),
-    { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: 'Brings in the definitions (junctions, thermistors, RTDs, ADCs) of another spec file, e.g. `use "parts.tsense"`. The path is relative to this file and may not leave the workspace.', insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
+    ...BLOCK_KINDS.map((b) => ({ label: b.kind, kind: 'keyword' as const, detail: `${b.kind} block`, documentation: b.doc, insertText: blockSnippet(b).join('\n'), snippet: true, replace })),
+    { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: USE_DOC, insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
   ];
 }
 
@@ -81,19 +69,12 @@ function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replac
   return spec.fields.filter((fs) => !given.has(fs.name)).map((fs) => ({
     label: fs.name,
     kind: 'field' as const,
-    detail: fs.defaultText !== undefined ? `default ${fs.defaultText}` : REQUIRED.has(`${kind}.${fs.name}`) ? 'required' : 'optional',
+    detail: needText(fs),
     documentation: `${fs.doc}\n\nExample: \`${fs.example}\``,
-    insertText: `${fs.name} = \${1:${escapeSnippet(fs.example.slice(fs.example.indexOf('=') + 1).trim())}}`,
+    insertText: fieldSnippet(fs),
     snippet: true,
     replace,
   }));
-}
-
-/** Fields the resolver reports missing when absent (server/src/model/resolve.ts). */
-const REQUIRED = new Set(['junction.IS', 'rtd.r0', 'adc.bits', 'adc.reference', 'channel.sensor', 'channel.adc', 'channel.bias', 'channel.range']);
-
-function escapeSnippet(s: string): string {
-  return s.replace(/[$}\\]/g, (c) => `\\${c}`);
 }
 
 function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, wordSpan: Span): CompletionItem[] {
@@ -112,7 +93,7 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   }
   if (form.form === 'choice') {
     if (!onlyWord) return [];
-    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: OPTION_DOCS[o] ?? fs.doc, replace: wordSpan }));
+    return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: fs.optionDocs?.[o] ?? fs.doc, replace: wordSpan }));
   }
   if (form.form === 'bias' && onlyWord) {
     return [
@@ -156,7 +137,7 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   }
   const dim = numberDimension(fs, before);
   if (!dim) return [];
-  return unitsFor(dim).map(([label, doc]) => ({ label, kind: 'unit' as const, detail: doc, replace }));
+  return SUGGESTED_UNITS[dim].map(([label, doc]) => ({ label, kind: 'unit' as const, detail: doc, replace }));
 }
 
 /** Dimension of a number being typed in a field, from its place in the value. */
@@ -178,37 +159,6 @@ function numberDimension(fs: FieldSpec, before: string): Dimension | null {
       return null;
   }
 }
-
-const UNITS: Record<Dimension, [string, string][]> = {
-  voltage: [['V', 'volt'], ['mV', 'millivolt, 1e-3 V'], ['uV', 'microvolt, 1e-6 V']],
-  current: [['mA', 'milliampere, 1e-3 A'], ['uA', 'microampere, 1e-6 A'], ['µA', 'microampere, 1e-6 A'], ['nA', 'nanoampere, 1e-9 A'], ['pA', 'picoampere, 1e-12 A'], ['fA', 'femtoampere, 1e-15 A'], ['A', 'ampere']],
-  resistance: [['Ω', 'ohm'], ['kΩ', 'kilohm, 1e3 Ω'], ['MΩ', 'megohm, 1e6 Ω'], ['ohm', 'ohm'], ['kohm', 'kilohm, 1e3 Ω'], ['k', 'kilohm as in the resistor code 10k'], ['M', 'megohm as in the resistor code 1M']],
-  capacitance: [['pF', 'picofarad, 1e-12 F'], ['nF', 'nanofarad, 1e-9 F'], ['uF', 'microfarad, 1e-6 F']],
-  temperature: [['°C', 'degree Celsius'], ['K', 'kelvin'], ['°F', 'degree Fahrenheit']],
-  energy: [['eV', 'electronvolt']],
-  power: [['mW', 'milliwatt, 1e-3 W'], ['W', 'watt']],
-  'thermal-resistance': [['K/W', 'kelvin per watt']],
-  ratio: [['%', 'percent, 1e-2'], ['ppm', 'parts per million, 1e-6']],
-  count: [['counts', 'ADC counts']],
-  dimensionless: [],
-};
-
-function unitsFor(d: Dimension): [string, string][] {
-  return UNITS[d];
-}
-
-const OPTION_DOCS: Record<string, string> = {
-  npn: 'Diode-connected NPN transistor (base tied to collector).',
-  pnp: 'Diode-connected PNP transistor (base tied to collector).',
-  diode: 'A plain junction diode.',
-  table: 'Firmware converts codes through a generated table (model-exact).',
-  line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.',
-  // IEC 60751 tolerance classes, ±(a + b|t|) °C (from memory).
-  AA: 'IEC 60751 class AA: ±(0.1 + 0.0017|t|) °C.',
-  A: 'IEC 60751 class A: ±(0.15 + 0.002|t|) °C.',
-  B: 'IEC 60751 class B: ±(0.3 + 0.005|t|) °C.',
-  C: 'IEC 60751 class C: ±(0.6 + 0.01|t|) °C.',
-};
 
 function referenceDoc(a: Analysis, kind: BlockKind, name: string): string {
   if (kind === 'junction') {

@@ -1,4 +1,4 @@
-// Document formatting to one canonical layout: one field per line, 2-space indent, `=` aligned
+// Document formatting to one canonical layout: one field per line (fields joined by `;` are split), 2-space indent, `=` aligned
 // within a block, one space around `±` and `..`, one blank line between blocks, comments kept
 // (trailing ones two spaces after the code). Idempotent. A file with syntax errors is refused, and
 // so is any result that would not hold exactly the same non-blank text as the input.
@@ -69,7 +69,8 @@ export function formatText(text: string): FormatResult {
     if (e.kind === 'header') depth = 1;
     prev = e;
   }
-  const out = lines.length ? lines.join(eol) + eol : '';
+  // A byte-order mark at the start is kept as it was.
+  const out = (text.charCodeAt(0) === 0xfeff ? '\uFEFF' : '') + (lines.length ? lines.join(eol) + eol : '');
   if (strip(out) !== strip(text)) return { ok: false, reason: 'formatting would change the text beyond layout; left as it is' };
   return { ok: true, text: out };
 }

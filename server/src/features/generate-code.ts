@@ -7,6 +7,7 @@ import * as path from 'node:path';
 import type { Analysis } from '../engine';
 import { generateC, spliceGenerated } from '../codegen/index';
 import { conversionFilePath, conversionInput, tooWideMessage } from '../codegen/channel-input';
+import { symbolClash } from '../codegen/clash';
 
 export interface GeneratedFile {
   /** Absolute path of the C file. */
@@ -41,6 +42,8 @@ export function generateForChannel(a: Analysis, channel: string, existing: strin
     const gen = generateC([input], { fileStem: stem });
     const ch = gen.channels[0]!;
     if (existing === undefined) return { ok: true, result: { file, text: gen.text, create: true, maxErrorC: ch.maxErrorC, method: ch.method } };
+    const clash = symbolClash(existing, [{ channel, identifier: ch.identifier }]);
+    if (clash) return { ok: false, message: `${path.basename(file)}: ${clash}` };
     const spliced = spliceGenerated(existing, [{ channel, hash: input.specHash, text: ch.code }]);
     if (!spliced.ok) return { ok: false, message: `${path.basename(file)}: ${spliced.message}` };
     return { ok: true, result: { file, text: spliced.text, create: false, maxErrorC: ch.maxErrorC, method: ch.method } };

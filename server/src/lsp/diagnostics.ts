@@ -8,6 +8,7 @@ import type { ServerContext } from './context';
 import { toDiagnostic } from './convert';
 import { uriToPath } from './documents';
 import { staleDiagnostics } from '../codegen/stale';
+import { isShutDown } from './guard';
 
 export class DiagnosticScheduler {
   private readonly timers = new Map<string, NodeJS.Timeout>();
@@ -35,10 +36,17 @@ export class DiagnosticScheduler {
     if (t) clearTimeout(t);
     this.timers.delete(uri);
     this.ctx.analyses.drop(uri);
-    void this.ctx.connection.sendDiagnostics({ uri, diagnostics: [] });
+    if (!isShutDown(this.ctx.connection)) void this.ctx.connection.sendDiagnostics({ uri, diagnostics: [] });
+  }
+
+  /** Shutdown: pending checks are dropped and nothing more is published. */
+  stop(): void {
+    for (const t of this.timers.values()) clearTimeout(t);
+    this.timers.clear();
   }
 
   private schedule(uri: string): void {
+    if (isShutDown(this.ctx.connection)) return;
     const prior = this.timers.get(uri);
     if (prior) clearTimeout(prior);
     this.timers.set(uri, setTimeout(() => this.run(uri), this.ctx.settings.debounceMs));
@@ -47,12 +55,12 @@ export class DiagnosticScheduler {
   private run(uri: string): void {
     this.timers.delete(uri);
     const doc = this.ctx.documents.get(uri);
-    if (!doc) return;
+    if (!doc || isShutDown(this.ctx.connection)) return;
     const version = doc.version;
     try {
       const analysis = this.ctx.analyses.get(doc);
       const current = this.ctx.documents.get(uri);
-      if (!current || current.version !== version) return;
+      if (!current || current.version !== version || isShutDown(this.ctx.connection)) return;
       const own = analysis.path;
       // Generated blocks in the C file beside the spec are compared at every check (cheap: a
       // marker scan), read through the host so an open, unsaved C buffer counts.

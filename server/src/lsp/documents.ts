@@ -1,11 +1,14 @@
 // Open documents and file access for the engine: a SourceHost that reads open documents first
 // (so a `use`d file being edited is seen as typed), then the disk. Also maps URIs to paths.
-import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { TextDocuments } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { SourceHost } from '../engine';
+import { isInside } from '../model/workspace';
+import { readDisk, realPathOnDisk } from '../disk';
+
+export { readDisk };
 
 export class OpenDocuments {
   readonly docs = new TextDocuments(TextDocument);
@@ -26,8 +29,7 @@ export class OpenDocuments {
   rootFor(absPath: string): string {
     let best: string | undefined;
     for (const r of this.roots) {
-      const rel = path.relative(r, absPath);
-      if (!rel.startsWith('..') && !path.isAbsolute(rel) && (!best || r.length > best.length)) best = r;
+      if (isInside(r, absPath) && (!best || r.length > best.length)) best = r;
     }
     return best ?? path.dirname(absPath);
   }
@@ -42,15 +44,8 @@ export class OpenDocuments {
         if (open) return open.getText();
         return readDisk(absPath);
       },
+      realPath: realPathOnDisk,
     };
-  }
-}
-
-export function readDisk(absPath: string): string | undefined {
-  try {
-    return fs.statSync(absPath).isFile() ? fs.readFileSync(absPath, 'utf8') : undefined;
-  } catch {
-    return undefined;
   }
 }
 

@@ -12,7 +12,7 @@ import { AnalysisCache } from './analyses';
 import type { ServerContext } from './context';
 import { DiagnosticScheduler } from './diagnostics';
 import { OpenDocuments, uriToPath } from './documents';
-import { guard } from './guard';
+import { guard, markShutDown } from './guard';
 import { DEFAULT_SETTINGS, mergeSettings } from './settings';
 import { onHover } from './handlers/hover';
 import { onCompletion } from './handlers/completion';
@@ -128,6 +128,10 @@ export function createServer(connection: Connection): ServerContext {
   connection.onRequest(PLOT_DATA, guard<PlotDataParams, PlotDataResult | null>(connection, PLOT_DATA, null, (p) => onPlotData(ctx, p)));
   connection.onRequest(COMPARE_DATA, guard<CompareDataParams, CompareDataResult | null>(connection, COMPARE_DATA, null, (p) => onCompareData(ctx, p)));
   connection.onRequest(RUN_BUDGET, runBudgetHandler(ctx));
+  connection.onShutdown(() => {
+    markShutDown(connection);
+    diagnostics.stop();
+  });
 
   documents.docs.listen(connection);
   return ctx;

@@ -9,6 +9,8 @@ import { readUnit } from './units';
 import { closest } from './suggest';
 import { betaToSteinhartHart, fitSteinhartHart, shMonotonicMessage, shResistanceAt, type ShCoefficients } from '../physics/steinhart-hart';
 import { CVD_HIGH_C, CVD_LOW_C, IEC60751, cvdCelsiusAt, cvdResistance, type RtdClass } from '../physics/callendar-van-dusen';
+import { shown } from '../checks/shown';
+import { kindWithArticle } from './schema';
 
 const ZERO_C = 273.15;
 const T25 = 25 + ZERO_C;
@@ -112,8 +114,8 @@ export function readThermistor(r: BlockReader, base: Base): ThermistorDef | null
   if (forms.length !== 1) {
     r.sink.report(forms.length ? 'bad-value' : 'missing-field', r.ref.file, name.span,
       forms.length
-        ? `thermistor '${name.text}' gives its curve ${forms.length} ways (${forms.join(', ')}); give exactly one`
-        : `thermistor '${name.text}' needs its curve: \`r25\` with \`beta\`, or \`sh_a\`, \`sh_b\`, \`sh_c\`, or \`point_1\`..\`point_3\``);
+        ? `thermistor '${shown(name.text)}' gives its curve ${forms.length} ways (${forms.join(', ')}); give exactly one`
+        : `thermistor '${shown(name.text)}' needs its curve: \`r25\` with \`beta\`, or \`sh_a\`, \`sh_b\`, \`sh_c\`, or \`point_1\`..\`point_3\``);
     return null;
   }
   const form = forms[0]!;
@@ -152,7 +154,7 @@ export function readThermistor(r: BlockReader, base: Base): ThermistorDef | null
       if (pts.every((p) => Array.isArray(p))) {
         const fit = fitSteinhartHart(pts as [number, number][]);
         if (typeof fit === 'string') {
-          r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${name.text}': ${fit}`);
+          r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${shown(name.text)}': ${fit}`);
           r.ok = false;
         } else coeffs = fit;
       }
@@ -165,12 +167,12 @@ export function readThermistor(r: BlockReader, base: Base): ThermistorDef | null
   if (!r.ok || !coeffs || !r25 || !rated || theta === null) return null;
   const mono = shMonotonicMessage(coeffs, rated.low, rated.high);
   if (mono) {
-    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${name.text}': ${mono} (checked over its rated ${trimNumber(rated.low - ZERO_C, 4)} °C .. ${trimNumber(rated.high - ZERO_C, 4)} °C)`);
+    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${shown(name.text)}': ${mono} (checked over its rated ${trimNumber(rated.low - ZERO_C, 4)} °C .. ${trimNumber(rated.high - ZERO_C, 4)} °C)`);
     return null;
   }
   if (form !== 'beta') r25 = { ...r25, value: shResistanceAt(coeffs, T25) };
   if (!Number.isFinite(r25.value) || !(r25.value > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${name.text}': the curve gives no finite resistance at 25 °C`);
+    r.sink.report('out-of-domain', r.ref.file, name.span, `thermistor '${shown(name.text)}': the curve gives no finite resistance at 25 °C`);
     return null;
   }
   return { kind: 'thermistor', ...base, params: { kind: 'ntc', ...coeffs }, form, r25, beta, ratedLowK: rated.low, ratedHighK: rated.high, thetaJA: theta };
@@ -196,11 +198,11 @@ export function readRtd(r: BlockReader, base: Base): RtdDef | null {
   const tLow = rated.low - ZERO_C;
   const tHigh = rated.high - ZERO_C;
   if (!(k.A > 0) || !(k.A + 2 * k.B * tHigh > 0) || !(k.A + 2 * k.B * tLow > 0) || !(cvdResistance(r0.value, k, tLow) > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, name.span, `rtd '${name.text}': with these coefficients the resistance does not rise steadily and stay positive over the rated ${trimNumber(tLow, 4)} °C .. ${trimNumber(tHigh, 4)} °C`);
+    r.sink.report('out-of-domain', r.ref.file, name.span, `rtd '${shown(name.text)}': with these coefficients the resistance does not rise steadily and stay positive over the rated ${trimNumber(tLow, 4)} °C .. ${trimNumber(tHigh, 4)} °C`);
     return null;
   }
   if (!Number.isFinite(cvdCelsiusAt(r0.value, k, cvdResistance(r0.value, k, tHigh)))) {
-    r.sink.report('out-of-domain', r.ref.file, name.span, `rtd '${name.text}': the coefficients cannot be inverted at ${trimNumber(tHigh, 4)} °C`);
+    r.sink.report('out-of-domain', r.ref.file, name.span, `rtd '${shown(name.text)}': the coefficients cannot be inverted at ${trimNumber(tHigh, 4)} °C`);
     return null;
   }
   return { kind: 'rtd', ...base, params: { kind: 'platinum', R0: r0.value, ...k }, r0, toleranceClass: cls, element, ratedLowK: rated.low, ratedHighK: rated.high, thetaJA: theta };
@@ -225,12 +227,12 @@ export function readSensorRef(r: BlockReader, res: Resolution): SensorDef | null
   if (!block) {
     const pool = [...res.blocks.values()].filter((b) => kinds.includes(b.kind)).map((b) => b.node.name.text);
     const near = closest(t.text, pool);
-    r.sink.report('unknown-name', r.ref.file, t.span, `no sensor named '${t.text}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
+    r.sink.report('unknown-name', r.ref.file, t.span, `no sensor named '${shown(t.text)}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
     r.ok = false;
     return null;
   }
   if (!kinds.includes(block.kind)) {
-    r.sink.report('wrong-kind', r.ref.file, t.span, `'${t.text}' is an ${block.kind}, but sensor needs a junction, thermistor or rtd`);
+    r.sink.report('wrong-kind', r.ref.file, t.span, `'${shown(t.text)}' is ${kindWithArticle(block.kind)}, but sensor needs a junction, thermistor or rtd`);
     r.ok = false;
     return null;
   }
@@ -254,11 +256,11 @@ export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
   const volts = readQuantityValue(vq, 'voltage', ctx);
   if (ohms === null || volts === null) return (r.ok = false), null;
   if (!(ohms >= 1e-3) || ohms > 1e9) {
-    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${rq.number.text})`);
+    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${shown(rq.number.text)})`);
     return (r.ok = false), null;
   }
   if (!(volts > 0) || volts > 1000) {
-    r.sink.report('out-of-domain', r.ref.file, vq.span, `divider supply must be above 0 V and at most 1000 V (found ${vq.number.text} V)`);
+    r.sink.report('out-of-domain', r.ref.file, vq.span, `divider supply must be above 0 V and at most 1000 V (found ${shown(vq.number.text)} V)`);
     return (r.ok = false), null;
   }
   const tol = (q: QuantityTerm, v: number, dim: 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
@@ -282,7 +284,7 @@ function readWiring(r: BlockReader): WiringDef | null | undefined {
   if (!n || n.kind !== 'quantity' || n.unit || !w || w.kind !== 'word' || (w.text !== 'wires' && w.text !== 'wire')) return bad();
   const wires = n.number.value;
   if (wires !== 2 && wires !== 3 && wires !== 4) {
-    r.sink.report('out-of-domain', r.ref.file, n.span, `wiring: a sensor has 2, 3 or 4 wires (found ${n.number.text})`);
+    r.sink.report('out-of-domain', r.ref.file, n.span, `wiring: a sensor has 2, 3 or 4 wires (found ${shown(n.number.text)})`);
     return (r.ok = false), null;
   }
   let lead = 0;
@@ -291,7 +293,7 @@ function readWiring(r: BlockReader): WiringDef | null | undefined {
     const v = readQuantityValue(q, 'resistance', r.ctx('wiring'));
     if (v === null) return (r.ok = false), null;
     if (!(v >= 0) || v > 1e4) {
-      r.sink.report('out-of-domain', r.ref.file, q.span, `wiring: the lead resistance must be from 0 Ω to 10 kΩ (found ${q.number.text})`);
+      r.sink.report('out-of-domain', r.ref.file, q.span, `wiring: the lead resistance must be from 0 Ω to 10 kΩ (found ${shown(q.number.text)})`);
       return (r.ok = false), null;
     }
     lead = v;

@@ -5,6 +5,7 @@ import type { DiagnosticSink } from '../checks/diagnostic';
 import { DIMENSION_WORDS, readUnit, type Dimension, type UnitInfo } from './units';
 import type { FieldForm } from './schema';
 import type { Toleranced } from './types';
+import { shown } from '../checks/shown';
 
 export interface ReadContext {
   file: string;
@@ -53,7 +54,7 @@ function unitOf(term: QuantityTerm, ctx: ReadContext): UnitInfo | null {
 export function readQuantityValue(term: QuantityTerm, dimension: Dimension, ctx: ReadContext, difference = false): number | null {
   const raw = term.number.value;
   if (!Number.isFinite(raw)) {
-    ctx.sink.report('out-of-domain', ctx.file, term.number.span, `${ctx.field}: '${term.number.text}' is too large to be a number`);
+    ctx.sink.report('out-of-domain', ctx.file, term.number.span, `${ctx.field}: '${shown(term.number.text)}' is too large to be a number`);
     return null;
   }
   const unit = term.unit ? unitOf(term, ctx) : undefined;
@@ -65,7 +66,7 @@ export function readQuantityValue(term: QuantityTerm, dimension: Dimension, ctx:
     return null;
   }
   if (unit.dimension !== dimension) {
-    ctx.sink.report('wrong-unit', ctx.file, term.unit!.span, `${ctx.field} takes ${DIMENSION_WORDS[dimension]}, but '${term.unit!.text}' is ${DIMENSION_WORDS[unit.dimension]}`);
+    ctx.sink.report('wrong-unit', ctx.file, term.unit!.span, `${ctx.field} takes ${DIMENSION_WORDS[dimension]}, but '${shown(term.unit!.text)}' is ${DIMENSION_WORDS[unit.dimension]}`);
     return null;
   }
   if (dimension === 'temperature') {
@@ -162,7 +163,7 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
 }
 
 function showValue(value: number, term: QuantityTerm): string {
-  const text = term.number.text + (term.unit ? ` ${term.unit.text}` : '');
+  const text = shown(term.number.text) + (term.unit ? ` ${shown(term.unit.text)}` : '');
   return value === term.number.value ? text : `${text} = ${trimNumber(value, 6)}`;
 }
 

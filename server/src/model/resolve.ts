@@ -5,7 +5,7 @@ import { pieceOrigin } from '../syntax/parse';
 import { contentToken, movedCopy, sameContent } from './moved';
 import { shiftOffsets } from '../syntax/shift';
 import { DiagnosticSink } from '../checks/diagnostic';
-import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
+import { BLOCKS, blockSpec, kindWithArticle, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
 import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, RtdDef, ThermistorDef, Toleranced } from './types';
 import { noExtra, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
@@ -13,6 +13,7 @@ import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readRtd, readSensorRef, readThermistor } from './read-sensors';
 import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
+import { shown } from '../checks/shown';
 
 export interface BlockRef {
   kind: BlockKind;
@@ -47,12 +48,12 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = t
       const spec = blockSpec(item.keyword.text);
       if (!spec) {
         const near = closest(item.keyword.text, Object.keys(BLOCKS));
-        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${item.keyword.text}'; expected ${Object.keys(BLOCKS).join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
+        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${shown(item.keyword.text)}'; expected ${Object.keys(BLOCKS).join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
         continue;
       }
       const prior = blocks.get(item.name.text);
       if (prior) {
-        sink.report('duplicate-name', file.path, item.name.span, `'${item.name.text}' is already defined${prior.file === file.path ? '' : ` in ${prior.file}`}`);
+        sink.report('duplicate-name', file.path, item.name.span, `'${shown(item.name.text)}' is already defined${prior.file === file.path ? '' : ` in ${prior.file}`}`);
         continue;
       }
       blocks.set(item.name.text, { kind: spec.kind, file: file.path, node: item });
@@ -162,7 +163,7 @@ function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<str
     const fs = fieldSpec(spec, f.key.text);
     if (!fs) {
       const near = closest(f.key.text, spec.fields.map((x) => x.name));
-      sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${f.key.text}'${near ? ` (did you mean '${near}'?)` : `; its fields are ${spec.fields.map((x) => x.name).join(', ')}`}`);
+      sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${shown(f.key.text)}'${near ? ` (did you mean '${near}'?)` : `; its fields are ${spec.fields.map((x) => x.name).join(', ')}`}`);
       continue;
     }
     if (out.has(fs.name)) {
@@ -190,7 +191,7 @@ export class BlockReader {
   }
   missing(name: string): void {
     const fs = fieldSpec(this.spec, name)!;
-    this.sink.report('missing-field', this.ref.file, this.ref.node.name.span, `${this.spec.kind} '${this.ref.node.name.text}' needs '${name}', e.g. \`${fs.example}\``);
+    this.sink.report('missing-field', this.ref.file, this.ref.node.name.span, `${this.spec.kind} '${shown(this.ref.node.name.text)}' needs '${name}', e.g. \`${fs.example}\``);
     this.ok = false;
   }
   /** A quantity field in base units, its default when absent, or null (and not ok) when bad. */
@@ -321,12 +322,12 @@ function readRef<K extends 'junction' | 'adc'>(r: BlockReader, name: string, tar
   if (!block) {
     const pool = [...res.blocks.values()].filter((b) => b.kind === target).map((b) => b.node.name.text);
     const near = closest(t.text, pool);
-    r.sink.report('unknown-name', r.ref.file, t.span, `no ${target} named '${t.text}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
+    r.sink.report('unknown-name', r.ref.file, t.span, `no ${target} named '${shown(t.text)}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`);
     r.ok = false;
     return null;
   }
   if (block.kind !== target) {
-    r.sink.report('wrong-kind', r.ref.file, t.span, `'${t.text}' is ${block.kind === 'adc' ? 'an adc' : `a ${block.kind}`}, but ${name} needs ${target === 'adc' ? 'an adc' : `a ${target}`}`);
+    r.sink.report('wrong-kind', r.ref.file, t.span, `'${shown(t.text)}' is ${kindWithArticle(block.kind)}, but ${name} needs ${kindWithArticle(target)}`);
     r.ok = false;
     return null;
   }
@@ -359,7 +360,7 @@ function readBias(r: BlockReader): BiasDef | null {
     const amps = readQuantityValue(q, 'current', ctx);
     if (amps === null) return (r.ok = false), null;
     if (!(amps > 0)) {
-      r.sink.report('out-of-domain', r.ref.file, q.span, `bias current must be above 0 A (found ${q.number.text}${q.unit ? ' ' + q.unit.text : ''})`);
+      r.sink.report('out-of-domain', r.ref.file, q.span, `bias current must be above 0 A (found ${shown(q.number.text)}${q.unit ? ' ' + q.unit.text : ''})`);
       r.ok = false;
       return null;
     }
@@ -376,11 +377,11 @@ function readBias(r: BlockReader): BiasDef | null {
     const volts = readQuantityValue(vq, 'voltage', ctx);
     if (ohms === null || volts === null) return (r.ok = false), null;
     if (!(ohms > 0)) {
-      r.sink.report('out-of-domain', r.ref.file, rq.span, `bias resistor must be above 0 Ω (found ${rq.number.text})`);
+      r.sink.report('out-of-domain', r.ref.file, rq.span, `bias resistor must be above 0 Ω (found ${shown(rq.number.text)})`);
       return (r.ok = false), null;
     }
     if (!(volts > 0) || volts > 1000) {
-      r.sink.report('out-of-domain', r.ref.file, vq.span, `bias supply must be above 0 V and at most 1000 V (found ${vq.number.text} V)`);
+      r.sink.report('out-of-domain', r.ref.file, vq.span, `bias supply must be above 0 V and at most 1000 V (found ${shown(vq.number.text)} V)`);
       return (r.ok = false), null;
     }
     const rt = tol(rq, ohms, 'resistance');

@@ -1,5 +1,6 @@
 // The blocks of the spec language and the fields each takes: form, unit, domain, default, docs.
-// The resolver, completion and hover all read this one table.
+// The resolver, completion and hover all read this one table; the editor grammar, the snippets and
+// docs/reference.md are generated from it (scripts/gen-docs.ts, model/language.ts).
 import type { Dimension } from './units';
 
 export type BlockKind = 'junction' | 'thermistor' | 'rtd' | 'adc' | 'channel';
@@ -25,19 +26,30 @@ export interface FieldSpec {
   doc: string;
   /** Example shown in completion. */
   example: string;
+  /** No default, and the spec may leave it out (what that means is in `doc`). */
+  optional?: boolean;
+  /** One of several ways to give the same thing: the name of this field's way; one way is required. */
+  alternative?: string;
+  /** The fixed words of the value's phrase (`resistor`, `from`, ...), for highlighting. */
+  words?: string[];
+  /** For a choice: what each option means. */
+  optionDocs?: Record<string, string>;
 }
 
 export interface BlockSpec {
   kind: BlockKind;
   doc: string;
+  /** The fields a new block is written with (completion and snippets), each filled with its example. */
+  template: string[];
   fields: FieldSpec[];
 }
 
 const junction: BlockSpec = {
   kind: 'junction',
   doc: 'A junction sensor: a diode-connected transistor or a signal diode, described by SPICE model parameters.',
+  template: ['kind', 'IS', 'N', 'BF'],
   fields: [
-    { name: 'kind', form: { form: 'choice', options: ['npn', 'pnp', 'diode'] }, defaultText: 'npn', doc: 'npn or pnp for a diode-connected transistor (base tied to collector; the terminal current includes the base current), diode for a plain junction diode.', example: 'kind = npn' },
+    { name: 'kind', form: { form: 'choice', options: ['npn', 'pnp', 'diode'] }, defaultText: 'npn', doc: 'npn or pnp for a diode-connected transistor (base tied to collector; the terminal current includes the base current), diode for a plain junction diode.', example: 'kind = npn', optionDocs: { npn: 'Diode-connected NPN transistor (base tied to collector).', pnp: 'Diode-connected PNP transistor (base tied to collector).', diode: 'A plain junction diode.' } },
     { name: 'IS', form: { form: 'quantity', dimension: 'current', min: 0, tolerance: true }, doc: 'Saturation current at TNOM (SPICE IS).', example: 'IS = 10 fA' },
     { name: 'N', aliases: ['NF'], form: { form: 'quantity', dimension: 'dimensionless', min: 0.5, minInclusive: true, max: 4, tolerance: true }, defaultText: '1', doc: 'Emission coefficient (SPICE N for a diode, NF for a transistor), with an optional part-to-part spread (`N = 1.004 ± 0.2 %`).', example: 'N = 1.0' },
     { name: 'BF', form: { form: 'quantity', dimension: 'dimensionless', min: 0, tolerance: true }, defaultText: '100', doc: 'Forward current gain (SPICE BF), with an optional spread (`BF = 200 ± 50 %`); ignored for a plain diode.', example: 'BF = 200' },
@@ -54,62 +66,65 @@ const junction: BlockSpec = {
 const adc: BlockSpec = {
   kind: 'adc',
   doc: 'An analog-to-digital converter: resolution, reference, and input limits.',
+  template: ['bits', 'reference'],
   fields: [
     { name: 'bits', form: { form: 'quantity', dimension: 'dimensionless', integer: true, min: 1, minInclusive: true, max: 24 }, doc: 'Resolution in bits (1 to 24).', example: 'bits = 12' },
     { name: 'reference', form: { form: 'quantity', dimension: 'voltage', min: 0, tolerance: true }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
-    { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 0 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm' },
-    { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 0 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF' },
+    { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 0 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm', optional: true },
+    { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 0 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF', optional: true },
     { name: 'offset_error', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Offset error of the converter in LSB (from its datasheet), for the error budget.', example: 'offset_error = ± 2 LSB' },
     { name: 'gain_error', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Gain (full-scale) error of the converter, relative, for the error budget.', example: 'gain_error = ± 0.2 %' },
     { name: 'inl', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Integral nonlinearity in LSB, for the error budget: a bound on every reading, calibration readings included. The worst case takes any value within it at each reading; the Monte Carlo draws one smooth curve of the code per board within it, so a calibration removes it at the calibration code.', example: 'inl = ± 1 LSB' },
-    { name: 'noise', form: { form: 'phrase', syntax: 'n LSB rms | v mV rms' }, doc: 'Noise at the converter input, rms, in LSB or volts. Oversampling gains resolution only when it is at least 0.5 LSB rms. Unknown when absent.', example: 'noise = 0.8 LSB rms' },
+    { name: 'noise', form: { form: 'phrase', syntax: 'n LSB rms | v mV rms' }, doc: 'Noise at the converter input, rms, in LSB or volts. Oversampling gains resolution only when it is at least 0.5 LSB rms. Unknown when absent.', example: 'noise = 0.8 LSB rms', optional: true, words: ['rms'] },
   ],
 };
 
 const channel: BlockSpec = {
   kind: 'channel',
   doc: 'A temperature channel: a sensor, its bias, the ADC that reads it, and the targets it must meet.',
+  template: ['sensor', 'adc', 'bias', 'range', 'accuracy'],
   fields: [
     { name: 'sensor', form: { form: 'ref', target: 'junction', targets: ['junction', 'thermistor', 'rtd'] }, doc: 'Name of the sensor definition used: a junction, a thermistor or an rtd.', example: 'sensor = small_npn' },
     { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
-    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %' },
+    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %', words: ['resistor', 'resistors', 'current', 'currents', 'divider', 'above', 'below', 'from', 'and'] },
     { name: 'range', form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
     { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
-    { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count' },
-    { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C' },
+    { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count', optional: true, words: ['per'] },
+    { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C', optional: true },
     { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true }, defaultText: 'the sensor\'s theta_ja', doc: 'Thermal resistance for this channel\'s mounting, overriding the sensor\'s.', example: 'theta_ja = 250 K/W' },
-    { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table' },
+    { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table', optionDocs: { table: 'Firmware converts codes through a generated table (model-exact).', line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } },
     { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: 'Sound window for the bias current (see bias-current-low/high).', example: 'current_window = 5 uA .. 500 uA' },
-    { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C' },
+    { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C', words: ['none', 'one', 'two', 'point', 'points', 'at', 'and'] },
     { name: 'cal_reference', form: { form: 'phrase', syntax: '± t' }, defaultText: '± 0 °C (exact)', doc: 'Uncertainty of the reference thermometer each board is calibrated against (half-width, 0 to 10 K). The error budget passes it, with the quantisation and INL of the calibration readings, through the trim to every temperature.', example: 'cal_reference = ± 0.05 °C' },
-    { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. The model is fitted to them (IS with one point; IS and N with two or more) and points that disagree are flagged.', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C' },
-    { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7' },
+    { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. The model is fitted to them (IS with one point; IS and N with two or more) and points that disagree are flagged.', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C', optional: true, words: ['at', 'and'] },
+    { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7', words: ['runs', 'seed', 'normal', 'uniform'] },
     { name: 'output', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.01 °C', doc: 'Unit of the integer the generated conversion code returns: `0.01 °C` returns signed hundredths of a degree. 1 divided by it must be a whole number from 1 to 10000.', example: 'output = 0.1 °C' },
     { name: 'code_error', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.02 °C', doc: 'Largest error the generated conversion code may add to the model, checked at every in-range ADC code by simulating its integer arithmetic exactly. At least half an `output` unit.', example: 'code_error = 0.05 °C' },
     { name: 'code_method', form: { form: 'choice', options: ['auto', 'table', 'polynomial'] }, defaultText: 'auto', doc: 'How the generated code converts: `table` (points with linear interpolation), `polynomial` (piecewise quadratic) or `auto` (whichever meets `code_error` in fewer bytes).', example: 'code_method = table' },
     { name: 'float_variant', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes to generate, beside the integer function, one returning a float in °C (no maths library needed).', example: 'float_variant = yes' },
-    { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits' },
+    { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits', words: ['bits', 'bit'] },
     { name: 'ratiometric', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes when the ADC reference is the divider\'s own supply: the code then follows the divider ratio and the supply cancels. The divider supply must equal the ADC reference.', example: 'ratiometric = yes' },
     { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between a thermistor or RTD and the ADC: V_adc = gain × V + offset.', example: 'gain = 20' },
     { name: 'offset', form: { form: 'quantity', dimension: 'voltage' }, defaultText: '0 V', doc: 'Output offset of that amplifier, V (may be negative).', example: 'offset = -0.1 V' },
-    { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm' },
-    { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge' },
+    { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm', words: ['wires', 'wire'] },
+    { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge', optional: true },
   ],
 };
 
 const thermistor: BlockSpec = {
   kind: 'thermistor',
   doc: 'An NTC thermistor. Give its curve one way: `r25` and `beta` (the beta model), `sh_a`, `sh_b`, `sh_c` (Steinhart-Hart coefficients), or `point_1`..`point_3` (three measured points; the engine fits the Steinhart-Hart coefficients through them exactly).',
+  template: ['r25', 'beta', 'dissipation'],
   fields: [
-    { name: 'r25', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 25 °C (R25), with its tolerance. Required with `beta`.', example: 'r25 = 10k ± 1 %' },
-    { name: 'beta', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0, tolerance: true }, doc: 'Beta constant in kelvin, with its tolerance: R(T) = R25 exp(beta (1/T - 1/298.15 K)).', example: 'beta = 3950 K ± 1 %' },
+    { name: 'r25', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 25 °C (R25), with its tolerance. Required with `beta`.', example: 'r25 = 10k ± 1 %', alternative: 'r25 and beta' },
+    { name: 'beta', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0, tolerance: true }, doc: 'Beta constant in kelvin, with its tolerance: R(T) = R25 exp(beta (1/T - 1/298.15 K)).', example: 'beta = 3950 K ± 1 %', alternative: 'r25 and beta' },
     { name: 'beta_range', form: { form: 'range', dimension: 'temperature' }, defaultText: '25 °C .. 85 °C', doc: 'The two temperatures beta is specified between on the datasheet (beta 25/85 by default). The beta model is exact at 25 °C and keeps the datasheet\'s resistance ratio between these two; outside them its error grows.', example: 'beta_range = 25 °C .. 50 °C' },
-    { name: 'sh_a', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart A (1/K): 1/T = A + B ln R + C (ln R)^3 with R in ohms.', example: 'sh_a = 1.129e-3' },
-    { name: 'sh_b', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, doc: 'Steinhart-Hart B (1/K).', example: 'sh_b = 2.341e-4' },
-    { name: 'sh_c', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart C (1/K).', example: 'sh_c = 8.775e-8' },
-    { name: 'point_1', form: { form: 'phrase', syntax: 'T R' }, doc: 'A measured point, temperature then resistance; give three (point_1, point_2, point_3) and the engine fits the Steinhart-Hart coefficients through them exactly.', example: 'point_1 = 0 °C 32.65k' },
-    { name: 'point_2', form: { form: 'phrase', syntax: 'T R' }, doc: 'The second measured point (see point_1).', example: 'point_2 = 25 °C 10k' },
-    { name: 'point_3', form: { form: 'phrase', syntax: 'T R' }, doc: 'The third measured point (see point_1).', example: 'point_3 = 70 °C 1.752k' },
+    { name: 'sh_a', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart A (1/K): 1/T = A + B ln R + C (ln R)^3 with R in ohms.', example: 'sh_a = 1.129e-3', alternative: 'Steinhart-Hart coefficients' },
+    { name: 'sh_b', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, doc: 'Steinhart-Hart B (1/K).', example: 'sh_b = 2.341e-4', alternative: 'Steinhart-Hart coefficients' },
+    { name: 'sh_c', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart C (1/K).', example: 'sh_c = 8.775e-8', alternative: 'Steinhart-Hart coefficients' },
+    { name: 'point_1', form: { form: 'phrase', syntax: 'T R' }, doc: 'A measured point, temperature then resistance; give three (point_1, point_2, point_3) and the engine fits the Steinhart-Hart coefficients through them exactly.', example: 'point_1 = 0 °C 32.65k', alternative: 'three points' },
+    { name: 'point_2', form: { form: 'phrase', syntax: 'T R' }, doc: 'The second measured point (see point_1).', example: 'point_2 = 25 °C 10k', alternative: 'three points' },
+    { name: 'point_3', form: { form: 'phrase', syntax: 'T R' }, doc: 'The third measured point (see point_1).', example: 'point_3 = 70 °C 1.752k', alternative: 'three points' },
     { name: 'r_tolerance', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Resistance tolerance of a curve given by coefficients or points (with `beta`, put it on `r25`).', example: 'r_tolerance = ± 1 %' },
     { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '1.5 mW/K', doc: 'Dissipation constant: the power that warms the thermistor 1 K above its surroundings. Self-heating = power / dissipation. The default is a typical figure for a small epoxy bead in still air (from memory); take yours from the datasheet.', example: 'dissipation = 1.5 mW/K' },
     { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-40 °C .. 125 °C', doc: 'Temperature range the part is rated for.', example: 'rated = -40 °C .. 125 °C' },
@@ -119,13 +134,14 @@ const thermistor: BlockSpec = {
 const rtd: BlockSpec = {
   kind: 'rtd',
   doc: 'A platinum resistance thermometer (Pt100, Pt1000, any R0) following the Callendar-Van Dusen equation of IEC 60751.',
+  template: ['r0', 'class'],
   fields: [
     { name: 'r0', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 0 °C: 100 for a Pt100, 1000 for a Pt1000, with an optional tolerance.', example: 'r0 = 1000' },
     { name: 'cvd_a', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '3.9083e-3', doc: 'Callendar-Van Dusen A, 1/°C (IEC 60751 value by default).', example: 'cvd_a = 3.9083e-3' },
     { name: 'cvd_b', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-5.775e-7', doc: 'Callendar-Van Dusen B, 1/°C² (IEC 60751 value by default).', example: 'cvd_b = -5.775e-7' },
     { name: 'cvd_c', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-4.183e-12', doc: 'Callendar-Van Dusen C, 1/°C⁴, used below 0 °C (IEC 60751 value by default).', example: 'cvd_c = -4.183e-12' },
-    { name: 'class', form: { form: 'choice', options: ['AA', 'A', 'B', 'C'] }, doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A' },
-    { name: 'element', form: { form: 'choice', options: ['film', 'wire'] }, doc: 'How the element is built: `film` (thin film) or `wire` (wire-wound). IEC 60751 specifies each tolerance class over a wider range for wire-wound elements; when absent the narrower film range is assumed.', example: 'element = wire' },
+    { name: 'class', form: { form: 'choice', options: ['AA', 'A', 'B', 'C'] }, doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A', optional: true, optionDocs: { AA: 'IEC 60751 class AA: ±(0.1 + 0.0017|t|) °C.', A: 'IEC 60751 class A: ±(0.15 + 0.002|t|) °C.', B: 'IEC 60751 class B: ±(0.3 + 0.005|t|) °C.', C: 'IEC 60751 class C: ±(0.6 + 0.01|t|) °C.' } },
+    { name: 'element', form: { form: 'choice', options: ['film', 'wire'] }, doc: 'How the element is built: `film` (thin film) or `wire` (wire-wound). IEC 60751 specifies each tolerance class over a wider range for wire-wound elements; when absent the narrower film range is assumed.', example: 'element = wire', optional: true },
     { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '2.5 mW/K', doc: 'Self-heating constant: the power that warms the element 1 K. The default is a typical thin-film element in still air (from memory); in a stirred liquid it is many times higher.', example: 'dissipation = 2.5 mW/K' },
     { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-200 °C .. 850 °C', doc: 'Temperature range the element is rated for (default: the range of the IEC 60751 equation).', example: 'rated = -50 °C .. 500 °C' },
   ],
@@ -149,4 +165,9 @@ export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined
     FIELD_INDEX.set(block, index);
   }
   return index.get(name);
+}
+
+/** A block kind with its article as read aloud: "an adc", "an rtd" (ar-tee-dee), "a channel". */
+export function kindWithArticle(kind: string): string {
+  return `${/^(adc|rtd)$/.test(kind) ? 'an' : 'a'} ${kind}`;
 }

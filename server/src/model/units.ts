@@ -73,6 +73,28 @@ const CORE: Record<string, Core> = {
   Hz: { dimension: 'dimensionless', scale: 1, offset: 0, prefixable: true },
 };
 
+/** Unit texts for editors (model/language.ts): whole units, those that take an SI prefix, and the prefixes. */
+export const UNIT_TEXTS = {
+  whole: Object.keys(CORE).filter((u) => !CORE[u]!.prefixable),
+  prefixable: [...Object.keys(CORE).filter((u) => CORE[u]!.prefixable), 'F'],
+  prefixes: Object.keys(PREFIX),
+};
+
+/** The units completion offers after a number, per dimension, with what each is. */
+export const SUGGESTED_UNITS: Record<Dimension, [string, string][]> = {
+  voltage: [['V', 'volt'], ['mV', 'millivolt, 1e-3 V'], ['uV', 'microvolt, 1e-6 V']],
+  current: [['mA', 'milliampere, 1e-3 A'], ['uA', 'microampere, 1e-6 A'], ['µA', 'microampere, 1e-6 A'], ['nA', 'nanoampere, 1e-9 A'], ['pA', 'picoampere, 1e-12 A'], ['fA', 'femtoampere, 1e-15 A'], ['A', 'ampere']],
+  resistance: [['Ω', 'ohm'], ['kΩ', 'kilohm, 1e3 Ω'], ['MΩ', 'megohm, 1e6 Ω'], ['ohm', 'ohm'], ['kohm', 'kilohm, 1e3 Ω'], ['k', 'kilohm as in the resistor code 10k'], ['M', 'megohm as in the resistor code 1M']],
+  capacitance: [['pF', 'picofarad, 1e-12 F'], ['nF', 'nanofarad, 1e-9 F'], ['uF', 'microfarad, 1e-6 F']],
+  temperature: [['°C', 'degree Celsius'], ['K', 'kelvin'], ['°F', 'degree Fahrenheit']],
+  energy: [['eV', 'electronvolt']],
+  power: [['mW', 'milliwatt, 1e-3 W'], ['W', 'watt']],
+  'thermal-resistance': [['K/W', 'kelvin per watt']],
+  ratio: [['%', 'percent, 1e-2'], ['ppm', 'parts per million, 1e-6']],
+  count: [['counts', 'ADC counts']],
+  dimensionless: [],
+};
+
 /** Reads a unit text such as `kΩ`, `mV/K`, `°C`, `k`. Returns a message when unknown. */
 export function readUnit(text: string): UnitInfo | string {
   const slash = text.indexOf('/');

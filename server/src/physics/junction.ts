@@ -108,9 +108,7 @@ function satLogSlope(p: JunctionParams, kelvin: number): number {
   return (p.EG / thermalVoltage(kelvin) + p.XTI) / (m * kelvin);
 }
 
-// The arithmetic below is split into small functions of numbers so that junctionAtTemperature and
-// operatingPointAt (one object per call) and sweepJunction (no object per point, at the end of this
-// file) run the very same floating-point operations and give the same bits.
+// The arithmetic below is split into small functions of numbers, one per step of the model.
 
 /** IS(T) before its range check, A (SPICE temperature law, see satLog). */
 function satAmpsAt(p: JunctionParams, kelvin: number): number {
@@ -368,98 +366,4 @@ export function solveResistorBiasNewton(
   }
   const amps = isx * Math.expm1(v / nVt);
   return { amps, volts: v + amps * p.RS, junctionVolts: v, iterations };
-}
-
-/** A sweep's figures as columns, one array per field (analysis/sense.ts SensedPoint, analysis/sweep.ts SweepTable). */
-/** Columns written by index (typed arrays of the sweep's length, or plain arrays that grow). */
-export interface SweepColumns {
-  volts: number[] | Float64Array;
-  amps: number[] | Float64Array;
-  slope: number[] | Float64Array;
-  powerW: number[] | Float64Array;
-  sourceOhms: number[] | Float64Array;
-}
-
-/**
- * Writes at index i, for each temperature kelvins[i], what analysis/sense.ts sense() gives for a
- * single-bias junction channel: volts, amps, slope, power (volts * amps) and source impedance
- * (sourceOhmsAt), bit for bit (tests/unit/physics/sweep-fast.test.ts). A large spec is mostly such
- * channels; per point, sense() makes several objects and checks the same parameters again. This
- * runs junctionAtTemperature's and operatingPointAt's number functions, without objects, in three
- * passes over the columns:
- * 1. every check, in sense()'s order (at the first temperature that temperature, the parameters,
- *    IS(T), BF(T), then the bias; at each later one the temperature, IS(T) and BF(T); and at each
- *    the resistor solve's own checks), and the per-temperature constants, kept in the columns;
- * 2. the current: the bias current, or the resistor solve in a loop of its own, small enough for V8
- *    to inline the solve (called from the big loop, every call boxed its numbers: 65 bytes of
- *    garbage and about a third of the time per point);
- * 3. the rest of each point.
- * When a check fails at a point, the points before it are finished and the error is thrown: the
- * same message at the same point, with the same columns, as sense() point by point.
- * It lives in this module because under the CommonJS transform that tests and bench run with, each
- * call to another module's export goes through a getter, which made the loop slower than sense().
- */
-export function sweepJunction(p: JunctionParams, bias: Bias, kelvins: readonly number[], out: SweepColumns): void {
-  const diode = p.kind === 'diode';
-  const seriesOhms = p.RS;
-  // Pass 1. Scratch: isx in powerW, nVt in sourceOhms, d ln isx/dT in slope.
-  let checked = 0;
-  try {
-    for (let i = 0; i < kelvins.length; i++) {
-      const kelvin = kelvins[i]!;
-      if (i === 0) checkParams(p, kelvin);
-      else checkTemperature(kelvin);
-      // junctionAtTemperature
-      const satAmps = satAmpsAt(p, kelvin);
-      const dLnSatDT = satLogSlope(p, kelvin);
-      const nVt = emissionVoltage(p, kelvin);
-      checkSatAmps(p, kelvin, satAmps);
-      let isx = satAmps;
-      let dLnIsxDT = dLnSatDT;
-      if (!diode) {
-        const betaF = betaFAt(p, kelvin);
-        isx = bjtIsx(satAmps, betaF);
-        dLnIsxDT = bjtDLnIsxDT(p, kelvin, dLnSatDT, betaF);
-        checkBetaF(p, kelvin, betaF, isx);
-      }
-      // operatingPointAt's checks
-      if (i === 0) checkBias(bias);
-      if (bias.kind === 'resistor') checkSolveArgs(isx, bias.ohms + seriesOhms, nVt, bias.supply);
-      out.powerW[i] = isx;
-      out.sourceOhms[i] = nVt;
-      out.slope[i] = dLnIsxDT;
-      checked = i + 1;
-    }
-  } catch (err) {
-    finishPoints(bias, seriesOhms, kelvins, out, checked);
-    throw err;
-  }
-  finishPoints(bias, seriesOhms, kelvins, out, kelvins.length);
-}
-
-/** Passes 2 and 3 of sweepJunction for the first `count` points. */
-function finishPoints(bias: Bias, seriesOhms: number, kelvins: readonly number[], out: SweepColumns, count: number): void {
-  if (bias.kind === 'resistor') solveAmpsColumn(out.powerW, out.sourceOhms, bias.ohms + seriesOhms, bias.supply, out.amps, count);
-  else for (let i = 0; i < count; i++) out.amps[i] = bias.amps;
-  for (let i = 0; i < count; i++) {
-    const kelvin = kelvins[i]!;
-    const isx = out.powerW[i]!;
-    const nVt = out.sourceOhms[i]!;
-    const dLnIsxDT = out.slope[i]!;
-    const amps = out.amps[i]!;
-    // operatingPointAt
-    const u = amps + isx;
-    const junctionVolts = junctionVoltsAt(nVt, amps, isx);
-    const volts = terminalVolts(junctionVolts, amps, seriesOhms);
-    // sense()
-    out.volts[i] = volts;
-    out.slope[i] = terminalSlope(bias, seriesOhms, slopeAtFixedAmps(junctionVolts, kelvin, nVt, amps, u, dLnIsxDT), nVt, u);
-    out.powerW[i] = volts * amps;
-    out.sourceOhms[i] = sourceOhmsAt(bias, dynamicOhmsAt(nVt, u, seriesOhms));
-  }
-}
-
-/** amps[i] = solveResistorBiasAmps(isx[i], rt, nVt[i], supply) for arguments already checked. */
-function solveAmpsColumn(isx: ArrayLike<number>, nVt: ArrayLike<number>, rt: number, supply: number, amps: number[] | Float64Array, count: number): void {
-  for (let i = 0; i < count; i++) amps[i] = solveChecked(isx[i]!, rt, nVt[i]!, supply);
 }

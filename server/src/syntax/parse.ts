@@ -7,7 +7,7 @@
 import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 import { shiftOffsets } from './shift';
-import { readPieceFast } from './fast-reader';
+import { shown } from '../checks/shown';
 
 /**
  * Parses `text`. With a cache, the text is cut before every block header line and each piece is
@@ -15,38 +15,7 @@ import { readPieceFast } from './fast-reader';
  * parse); pieces seen in the previous parse are reused with their offsets moved.
  */
 export function parse(text: string, cache?: ParseCache): ParseResult {
-  return cache ? cache.parse(text) : parseByPieces(text);
-}
-
-/**
- * The same result with the generated parser alone on the whole text (the reference that the fast
- * reader and the piecewise parse are tested against).
- */
-export function parseWithGrammarOnly(text: string): ParseResult {
-  return parseWhole(text);
-}
-
-/** Each piece read by the fast reader, or by the generated parser when it holds an error line. */
-function parseByPieces(text: string): ParseResult {
-  const items: TopItem[] = [];
-  const problems: SyntaxProblem[] = [];
-  for (const { start, end } of pieces(text)) {
-    const { base, baseAt } = readPiece(text, start, end);
-    const by = start - baseAt;
-    for (const item of by === 0 ? base.tree.items : shiftOffsets(base.tree.items, by)) items.push(item);
-    for (const p of by === 0 ? base.problems : shiftOffsets(base.problems, by)) problems.push(p);
-  }
-  return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
-}
-
-/**
- * One piece of `text`: a well-formed one read by the fast reader where it stands (`baseAt` = start),
- * one with an error line by the generated parser at offset 0 (`baseAt` = 0).
- */
-function readPiece(text: string, start: number, end: number): { base: ParseResult; baseAt: number } {
-  const fast = readPieceFast(text, start, end);
-  if (fast) return { base: { tree: { kind: 'document', items: fast, span: { start, end } }, problems: [] }, baseAt: start };
-  return { base: parseWhole(text.slice(start, end)), baseAt: 0 };
+  return cache ? cache.parse(text) : parseWhole(text);
 }
 
 // A block header at the start of a line (sticky: tested at each line start without slicing).
@@ -71,11 +40,20 @@ export class ParseCache {
     const next = new Map<string, PieceEntry>();
     const items: TopItem[] = [];
     const problems: SyntaxProblem[] = [];
-    for (const { start, end } of pieces(text)) {
-      const piece = text.slice(start, end);
+    const spans = pieces(text);
+    const slices = spans.map(({ start, end }) => text.slice(start, end));
+    // Several new pieces (a document opened, text pasted): one parse of the whole text, whose
+    // items are cut into the pieces where they stand (the same tree: see parse()). One new piece
+    // (a keystroke): that piece alone.
+    let fresh = 0;
+    for (const piece of slices) if (!this.pieces.has(piece) && ++fresh > 1) break;
+    const whole = fresh > 1 ? new WholeParse(parseWhole(text)) : undefined;
+    spans.forEach(({ start, end }, k) => {
+      const piece = slices[k]!;
       let entry = next.get(piece) ?? this.pieces.get(piece);
       if (!entry) {
-        const { base, baseAt } = readPiece(text, start, end);
+        const base = whole ? whole.cut(start, end) : parseWhole(piece);
+        const baseAt = whole ? start : 0;
         entry = { base, baseAt, at: baseAt, placed: base };
       }
       // A piece that did not move is reused as it is; one that moved is copied with new offsets.
@@ -83,9 +61,28 @@ export class ParseCache {
       next.set(piece, entry);
       items.push(...entry.placed.tree.items);
       problems.push(...entry.placed.problems);
-    }
+    });
     this.pieces = next;
     return { tree: { kind: 'document', items, span: { start: 0, end: text.length } }, problems };
+  }
+}
+
+/** A whole-text parse handed out piece by piece, in order (items and problems by where they start). */
+class WholeParse {
+  private item = 0;
+  private problem = 0;
+  constructor(private readonly r: ParseResult) {}
+
+  cut(start: number, end: number): ParseResult {
+    const items: TopItem[] = [];
+    const problems: SyntaxProblem[] = [];
+    const all = this.r.tree.items;
+    while (this.item < all.length && all[this.item]!.span.start < start) this.item++;
+    while (this.item < all.length && all[this.item]!.span.start < end) items.push(all[this.item++]!);
+    const ps = this.r.problems;
+    while (this.problem < ps.length && ps[this.problem]!.span.start < start) this.problem++;
+    while (this.problem < ps.length && ps[this.problem]!.span.start < end) problems.push(ps[this.problem++]!);
+    return { tree: { kind: 'document', items, span: { start, end } }, problems };
   }
 }
 
@@ -172,7 +169,7 @@ function collectProblems(item: TopItem, text: string, out: SyntaxProblem[]): voi
   if (!item.closed) {
     const at = item.span.end;
     out.push({
-      message: `block '${item.name.text}' is not closed: add '}' after its last field`,
+      message: `block '${shown(item.name.text)}' is not closed: add '}' after its last field`,
       span: { start: item.name.span.start, end: item.name.span.end },
     });
     void at;

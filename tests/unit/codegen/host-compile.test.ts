@@ -92,7 +92,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         retrimmed.set(name, list);
       }
     }
-  }, 120_000); // generous: the host compiler runs here, on a shared machine
+  }, 180_000); // compiles and runs C: generous on a loaded machine
   afterAll(() => dir?.dispose());
 
   it('compiles without a warning and runs every code of every channel', () => {

@@ -83,7 +83,7 @@ describe('error recovery', () => {
   it('reports every syntax error in one pass, each with its own range', () => {
     const r = parse(src);
     expect(r.problems.map((p) => src.slice(p.span.start, p.span.end))).toEqual([')', '=', 'what is this', 'open']);
-    expect(r.problems[0]!.message).toBe('expected a comment or end of line, found ")"');
+    expect(r.problems[0]!.message).toBe('expected ";", a comment, or end of line, found ")"');
     expect(r.problems[3]!.message).toMatch(/not closed/);
   });
 
@@ -99,5 +99,66 @@ describe('error recovery', () => {
 
   it('never throws on an empty or blank file', () => {
     for (const t of ['', '\n', '   ', '# only a comment', '\r\n\r\n', '}', '{']) expect(() => analyse({ path: '/x/b.tsense', text: t })).not.toThrow();
+  });
+});
+
+// README "Blocks": fields one per line, or separated by `;` (issue 17, item 16).
+describe('fields separated by ;', () => {
+  it('reads two fields on one line, each with its own span', () => {
+    const src = 'adc a {\n  bits = 12; reference = 1.2 V\n}\n';
+    const r = parse(src);
+    expect(r.problems).toEqual([]);
+    const fields = (r.tree.items[0] as BlockNode).fields as FieldNode[];
+    expect(fields.map((f) => src.slice(f.span.start, f.span.end))).toEqual(['bits = 12', 'reference = 1.2 V']);
+  });
+
+  it('takes a trailing ; before a comment, the line end or the closing brace, and a one-line block', () => {
+    for (const src of ['adc a {\n  bits = 12;  # twelve\n  reference = 1.2 V;\n}\n', 'adc a { bits = 12; reference = 1.2 V; }\n', 'adc a { bits = 12; reference = 1.2 V }\n']) {
+      const r = parse(src);
+      expect(r.problems, src).toEqual([]);
+      expect(((r.tree.items[0] as BlockNode).fields as FieldNode[]).map((f) => f.key.text), src).toEqual(['bits', 'reference']);
+    }
+  });
+
+  it('gives a bad rest of the line its own error and keeps the field before it', () => {
+    const src = 'adc a {\n  bits = 12; garbage here\n  reference = 1.2 V\n}\n';
+    const r = parse(src);
+    expect(r.problems).toHaveLength(1);
+    expect(r.problems[0]!.span.start).toBeGreaterThan(src.indexOf('garbage'));
+    expect((r.tree.items[0] as BlockNode).fields.map((f) => f.kind)).toEqual(['field', 'error', 'field']);
+    expect(parse('adc a {\n  bits = 12;;\n}\n').problems).toHaveLength(1);
+  });
+
+  it('analyses a channel written with ; as the same channel written one field per line', () => {
+    const lines = ['junction q {', '  kind = npn', '  IS = 10 fA', '  N = 1', '  BF = 200', '  EG = 1.11 eV', '  XTI = 3', '}', 'adc a {', '  bits = 12', '  reference = 1.2 V', '}', 'channel c {', '  sensor = q', '  adc = a', '  bias = current 20 uA', '  range = 0 °C .. 40 °C', '}', ''];
+    const joined = lines.join('\n').replace('  bits = 12\n  reference', '  bits = 12; reference').replace('  sensor = q\n  adc = a', '  sensor = q; adc = a');
+    const a = analyse({ path: '/x/s.tsense', text: lines.join('\n') });
+    const b = analyse({ path: '/x/s.tsense', text: joined });
+    expect(b.diagnostics.map((d) => d.code)).toEqual(a.diagnostics.map((d) => d.code));
+    expect(b.channels.map((c) => c.summary.voltsMax)).toEqual(a.channels.map((c) => c.summary.voltsMax));
+    expect(b.channels).toHaveLength(1);
+  });
+});
+
+// A UTF-8 byte-order mark (U+FEFF, The Unicode Standard, section 23.8) at the start is skipped, and
+// offsets keep counting it as the one UTF-16 unit it is, as LSP positions do (issue 17, item 16).
+describe('byte-order mark', () => {
+  const src = 'adc a {\n  bits = 12\n  reference = 1.2 V\n}\n';
+
+  it('parses a spec that starts with a BOM without problems, offsets moved by one', () => {
+    const plain = parse(src);
+    const marked = parse('\uFEFF' + src);
+    expect(marked.problems).toEqual([]);
+    const f0 = (plain.tree.items[0] as BlockNode).fields[0] as FieldNode;
+    const f1 = (marked.tree.items[0] as BlockNode).fields[0] as FieldNode;
+    expect(f1.span).toEqual({ start: f0.span.start + 1, end: f0.span.end + 1 });
+  });
+
+  it('reports a syntax error after a BOM at the right offset', () => {
+    const bad = '\uFEFFadc a {\n  bits = = 12\n}\n';
+    const r = parse(bad);
+    expect(r.problems).toHaveLength(1);
+    expect(bad.slice(r.problems[0]!.span.start, r.problems[0]!.span.end)).toBe('=');
+    expect(analyse({ path: '/x/bom.tsense', text: '\uFEFF# comment first\n' + src }).diagnostics.filter((d) => d.code === 'syntax')).toEqual([]);
   });
 });

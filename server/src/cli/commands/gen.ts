@@ -10,10 +10,14 @@ import * as path from 'node:path';
 import { scanGeneratedBlocks, spliceGenerated } from '../../codegen/markers';
 import { conversionFilePath, headerPathFor } from '../../codegen/channel-input';
 import { generateForSpec } from '../../codegen/spec';
+import { symbolClash } from '../../codegen/clash';
 import type { GenerateResult, SpliceBlock } from '../../codegen/types';
 import { parseArgs } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic } from '../text';
+import { writeFilesTogether } from '../write-files';
+import { readDisk } from '../../disk';
+import { shown } from '../../checks/shown';
 import { loadAnalyses } from './check';
 
 export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR]';
@@ -48,7 +52,7 @@ export function runGen(argv: string[], io: CliIO): number {
     return EXIT.errors;
   }
   if (channel !== undefined && !a.channels.some((r) => r.channel.name === channel)) {
-    io.err(`thermoscribe gen: no channel '${channel}' in ${path.basename(a.path)}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}\n`);
+    io.err(`thermoscribe gen: no channel '${shown(channel)}' in ${shown(path.basename(a.path))}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}\n`);
     return EXIT.unusable;
   }
   const cPath = out !== undefined ? path.resolve(io.cwd, out) : conversionFilePath(a.path);
@@ -59,6 +63,14 @@ export function runGen(argv: string[], io: CliIO): number {
     io.err(`thermoscribe gen: ${gen.message} (nothing was written)\n`);
     return EXIT.errors;
   }
+  for (const [file, result] of [[cPath, gen.source], [hPath, gen.header]] as const) {
+    const existing = readDisk(file);
+    const clash = existing !== undefined ? symbolClash(existing, result.channels.map((ch, i) => ({ channel: gen.inputs[i]!.channelName, identifier: ch.identifier }))) : undefined;
+    if (clash) {
+      io.err(`thermoscribe gen: ${rel(io, file)}: ${clash} (nothing was written)\n`);
+      return EXIT.errors;
+    }
+  }
   const plans: Planned[] = [];
   for (const [file, result, header] of [[cPath, gen.source, false], [hPath, gen.header, true]] as const) {
     const p = plan(file, result, header, gen.inputs.map((i) => i.channelName), gen.inputs.map((i) => i.specHash));
@@ -68,13 +80,11 @@ export function runGen(argv: string[], io: CliIO): number {
     }
     plans.push(p);
   }
-  for (const p of plans) {
-    if (!p.changed) continue;
-    const failed = writeAtomically(p.file, p.text);
-    if (failed) {
-      io.err(`thermoscribe gen: cannot write ${rel(io, p.file)}: ${failed}\n`);
-      return EXIT.unusable;
-    }
+  // Both files or neither (cli/write-files.ts): the old pair stays on any failure.
+  const failed = writeFilesTogether(plans.filter((p) => p.changed));
+  if (failed) {
+    io.err(`thermoscribe gen: ${failed} (nothing was changed)\n`);
+    return EXIT.unusable;
   }
   for (const [i, ch] of gen.source.channels.entries()) {
     const input = gen.inputs[i]!;
@@ -101,7 +111,7 @@ function plan(file: string, result: GenerateResult, header: boolean, names: stri
   // In a header, blocks of channels new to it go inside the include guard and extern "C": before
   // the generator's own closing lines when they are still there.
   const present = new Set(scan.blocks.map((b) => b.channel));
-  const tail = header && blocks.some((b) => !present.has(b.channel)) ? existing.search(/#ifdef __cplusplus\r?\n\}\r?\n#endif\r?\n#endif[^\n]*\n?$/) : -1;
+  const tail = header && blocks.some((b) => !present.has(b.channel)) ? existing.search(/#ifdef __cplusplus\r?\n\}\r?\n#endif\r?\n#endif[^\r\n]*(?:\r?\n[ \t]*)*$/) : -1;
   const head = tail > 0 ? existing.slice(0, tail) : existing;
   const spliced = spliceGenerated(head, blocks);
   if (!spliced.ok) return `${file}: ${spliced.message}`;
@@ -117,29 +127,6 @@ function lineOf(text: string, offset: number): number {
   let n = 1;
   for (let i = 0; i < offset && i < text.length; i++) if (text.charCodeAt(i) === 10) n++;
   return n;
-}
-
-/** Temp file in the same folder, then rename over the target (atomic on POSIX); undefined when done. */
-function writeAtomically(file: string, text: string): string | undefined {
-  const tmp = path.join(path.dirname(file), `.${path.basename(file)}.${process.pid}.${Date.now().toString(36)}.tmp`);
-  try {
-    let mode: number | undefined;
-    try {
-      mode = fs.statSync(file).mode & 0o777;
-    } catch {
-      mode = undefined;
-    }
-    fs.writeFileSync(tmp, text, { encoding: 'utf8', flag: 'wx', ...(mode !== undefined ? { mode } : {}) });
-    fs.renameSync(tmp, file);
-    return undefined;
-  } catch (err) {
-    try {
-      fs.rmSync(tmp, { force: true });
-    } catch {
-      // nothing more to clean up
-    }
-    return err instanceof Error ? err.message : String(err);
-  }
 }
 
 function rel(io: CliIO, file: string): string {

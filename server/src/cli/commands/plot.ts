@@ -5,6 +5,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { parseArgs, wholeNumberOption } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
+import { writeFilesTogether } from '../write-files';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
 import { plotData } from '../../plot/data';
@@ -70,21 +71,8 @@ export async function runPlot(argv: string[], io: CliIO): Promise<number> {
     io.err(`thermoscribe plot: drawing failed: ${err instanceof Error ? err.message : String(err)}\n`);
     return EXIT.errors;
   }
-  const failed = writeAtomically(outAbs, svg.endsWith('\n') ? svg : svg + '\n');
+  const failed = writeFilesTogether([{ file: outAbs, text: svg.endsWith('\n') ? svg : svg + '\n' }]);
   if (failed) return (io.err(`thermoscribe plot: cannot write ${out}: ${failed}\n`), EXIT.errors);
   io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${chart === 'both' ? 'transfer curve and error budget' : chart === 'transfer' ? 'transfer curve' : 'error budget'} of channel ${channel})\n`);
   return EXIT.clean;
-}
-
-/** A temporary file in the same folder renamed over the target (atomic on POSIX); the error text, or undefined. */
-function writeAtomically(file: string, text: string): string | undefined {
-  const tmp = path.join(path.dirname(file), `.${path.basename(file)}.${process.pid}.${Date.now().toString(36)}.tmp`);
-  try {
-    fs.writeFileSync(tmp, text, { encoding: 'utf8', flag: 'wx' });
-    fs.renameSync(tmp, file);
-    return undefined;
-  } catch (err) {
-    fs.rmSync(tmp, { force: true });
-    return err instanceof Error ? err.message : String(err);
-  }
 }

@@ -11,6 +11,7 @@ import { channelBudgetAsync } from '../../budget/budget';
 import { budgetSummaryJson } from '../../budget/json';
 import type { ServerContext } from '../context';
 import { channelOf } from './channel-of';
+import { refuseAfterShutdown } from '../guard';
 
 export const RUN_BUDGET = 'thermoscribe/runBudget';
 
@@ -96,6 +97,7 @@ export async function onRunBudget(ctx: ServerContext, params: RunBudgetParams, t
  */
 export function runBudgetHandler(ctx: ServerContext): (params: RunBudgetParams, token: CancellationToken) => Promise<RunBudgetResult> {
   return async (params, token) => {
+    refuseAfterShutdown(ctx.connection, RUN_BUDGET);
     try {
       return await onRunBudget(ctx, params, token);
     } catch (err) {
