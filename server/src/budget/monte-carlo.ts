@@ -45,6 +45,8 @@ interface McRun {
   profile: InlProfile;
   shareAt: number[] | null;
   moments: Moments[];
+  /** Per mode, work arrays for the calibration readings' draws (one per calibration point). */
+  cal: { repQ: Float64Array; repI: Float64Array; shift: CalShift; part: CalShift; zero: Float64Array }[];
 }
 
 function start(f: BudgetFrame, runs: number, seed: number, distribution: 'uniform' | 'normal', shareAt?: number[]): McRun {
@@ -65,6 +67,11 @@ function start(f: BudgetFrame, runs: number, seed: number, distribution: 'unifor
     profile: new InlProfile(),
     shareAt: shareAt ?? null,
     moments: f.modes.map(() => ({ n: 0, y: 0, yy: 0, x: new Float64Array(K), xx: new Float64Array(K), xy: new Float64Array(K) })),
+    cal: f.calIndex.map((points) => {
+      const J = points.length;
+      const zero = new Float64Array(J);
+      return { repQ: new Float64Array(J), repI: new Float64Array(J), shift: { rep: new Float64Array(J), ref: new Float64Array(J) }, part: { rep: zero, ref: zero }, zero };
+    }),
   };
 }
 
@@ -98,9 +105,7 @@ function boards(run: McRun, from: number, to: number): void {
     for (let m = 0; m < f.modes.length; m++) {
       const points = f.calIndex[m]!;
       const J = points.length;
-      const repQ = new Float64Array(J);
-      const repI = new Float64Array(J);
-      const shift: CalShift = { rep: new Float64Array(J), ref: new Float64Array(J) };
+      const { repQ, repI, shift, part } = run.cal[m]!;
       for (let j = 0; j < J; j++) {
         const i = points[j]!;
         repQ[j] = q > 0 ? rng.symmetric() * q * f.kPerLsb[i]! : 0;
@@ -111,29 +116,41 @@ function boards(run: McRun, from: number, to: number): void {
       const g = calibrated(f, m, errs, ce, shift);
       const s = run.out.samples[m]!;
       for (let t = 0; t < G; t++) s[t]![b] = ce[t]! + g * (dq[t]! + di[t]!);
-      if (run.shareAt) {
-        const t = run.shareAt[m]!;
-        const k = f.gridK[t]!;
-        const y = s[t]![b]!;
-        const value = (sh: CalShift, delta: number) => applyTrimK(boardTrim(f, m, errs, sh), k + errs[t]! + delta) - k;
-        const mo = run.moments[m]!;
-        const add = (i: number, x: number) => {
-          if (i < 0) return;
-          mo.x[i]! += x;
-          mo.xx[i]! += x * x;
-          mo.xy[i]! += x * y;
-        };
-        mo.n++;
-        mo.y += y;
-        mo.yy += y * y;
-        for (let i = 0; i < kb; i++) add(i, u[i]!);
-        add(iq, qDraw[t]!);
-        if (ii >= 0) add(ii, y - value({ rep: repQ, ref: shift.ref }, dq[t]!));
-        if (icq >= 0 && J > 0) add(icq, y - value({ rep: repI, ref: shift.ref }, dq[t]! + di[t]!));
-        if (icr >= 0 && J > 0) add(icr, y - value({ rep: shift.rep, ref: new Float64Array(J) }, dq[t]! + di[t]!));
+      if (!run.shareAt) continue;
+      // Variance shares: each input's draw, or its contribution (the error less the error without it).
+      const t = run.shareAt[m]!;
+      const k = f.gridK[t]!;
+      const y = s[t]![b]!;
+      const mo = run.moments[m]!;
+      mo.n++;
+      mo.y += y;
+      mo.yy += y * y;
+      for (let i = 0; i < kb; i++) gather(mo, i, u[i]!, y);
+      if (iq >= 0) gather(mo, iq, qDraw[t]!, y);
+      if (ii >= 0) {
+        part.rep = repQ;
+        part.ref = shift.ref;
+        gather(mo, ii, y - (applyTrimK(boardTrim(f, m, errs, part), k + errs[t]! + dq[t]!) - k), y);
+      }
+      if (J === 0) continue;
+      if (icq >= 0) {
+        part.rep = repI;
+        part.ref = shift.ref;
+        gather(mo, icq, y - (applyTrimK(boardTrim(f, m, errs, part), k + errs[t]! + dq[t]! + di[t]!) - k), y);
+      }
+      if (icr >= 0) {
+        part.rep = shift.rep;
+        part.ref = run.cal[m]!.zero;
+        gather(mo, icr, y - (applyTrimK(boardTrim(f, m, errs, part), k + errs[t]! + dq[t]! + di[t]!) - k), y);
       }
     }
   }
+}
+
+function gather(mo: Moments, i: number, x: number, y: number): void {
+  mo.x[i]! += x;
+  mo.xx[i]! += x * x;
+  mo.xy[i]! += x * y;
 }
 
 /** Squared correlations from the gathered sums (null for inputs not gathered or without spread). */
