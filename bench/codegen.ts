@@ -11,6 +11,7 @@ import { conversionInput, generatableResults } from '../server/src/codegen/chann
 import { junctionChannel, loadOperatingPoint } from '../tests/fixtures/codegen/channels';
 import { compareOnTargets, formatComparison } from '../tests/fixtures/codegen/measure';
 import { toolVersion } from '../tests/fixtures/codegen/toolchain';
+import type { ConversionInput } from '../server/src/codegen/types';
 
 export async function benchCodegen(): Promise<void> {
   console.log('== codegen: 12-bit junction channel, -40..125 degC (invented parameters: IS 1e-14 A, N 1, BF 200, EG 1.11 eV, XTI 3, TNOM 300.15 K, RS 0; 50 uA; 2.5 V reference)');
@@ -33,7 +34,31 @@ export async function benchCodegen(): Promise<void> {
   console.log('   AVR cycles = Timer1 at prescaler 1 around one call, mean/max over every in-range code;');
   console.log('   max error = host gcc result vs the model at every in-range code.');
   console.log(`   (measured in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+  benchVariants(junctionChannel(op));
   benchSamples();
+}
+
+/** The same channel at 0.01 °C and 0.1 °C output, and with run-time trims: bytes and cycles. */
+export function benchVariants(base: ConversionInput): void {
+  console.log('== codegen: output unit and run-time trims, same 12-bit junction channel');
+  console.log('   variant                                   method (entries)   max err degC   AVR bytes   AVR cycles mean/max   M0 bytes');
+  const variants: [string, Partial<ConversionInput>][] = [
+    ['0.01 °C output, 0.02 °C target', { outputScale: 100, errorTarget: 0.02 }],
+    ['0.1 °C output, 0.08 °C target', { outputScale: 10, errorTarget: 0.08 }],
+    ['0.01 °C, run-time offset trim', { calibration: { mode: 'offset', offset: 0.3, runtime: true } }],
+    ['0.01 °C, run-time two-point trim', { calibration: { mode: 'two-point', offset: 0.3, gain: 1.013, runtime: true } }],
+  ];
+  for (const [name, over] of variants) {
+    try {
+      const c = compareOnTargets({ ...base, ...over }, { baselines: false });
+      const o = c.ours;
+      const n = (v: number | undefined, d = 0) => (v === undefined ? 'n/a' : v.toFixed(d));
+      console.log(`   ${name.padEnd(40)}  ${`${c.method} (${c.entries})`.padEnd(17)}  ${n(o.maxErrorC, 4).padStart(12)}   ${n(o.avrBytes).padStart(9)}   ${`${n(o.avrCyclesMean, 1)}/${n(o.avrCyclesMax)}`.padStart(19)}   ${n(o.m0Bytes).padStart(8)}`);
+    } catch (e) {
+      console.log(`   ${name.padEnd(40)}  failed: ${(e as Error).message.split('\n')[0]}`);
+    }
+  }
+  console.log('   max error of trimmed variants is against the untrimmed model (the trims move it on purpose).');
 }
 
 /** The same figures for every channel of samples/*.tsense that the engine analyses. */

@@ -107,3 +107,30 @@ describe('thermoscribe/conversionChannels and thermoscribe/conversionCode', () =
     expect(client.exited).toBeNull();
   });
 });
+
+describe('orphan generated blocks (#13 item 10)', () => {
+  it('warns of a block whose channel the spec no longer defines, and offers to remove it from the C file', async () => {
+    const withOld = generateForSpec(analyse({ path: spec, text: SPEC_TEXT.replace('channel housing', 'channel old_pump') }), { fileStem: 'pump_conversion' });
+    if (!withOld.ok) throw new Error(withOld.message);
+    const cFile = path.join(dir, 'pump_conversion.c');
+    fs.writeFileSync(cFile, withOld.source.text);
+    const after = client.publications(uri).length;
+    void client.conn.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: uriOf(cFile), type: 2 }] });
+    const ds = await client.diagnosticsWhere(uri, (d) => d.some((x) => x.code === 'generated-orphan'), after);
+    const orphan = ds.find((d) => d.code === 'generated-orphan')!;
+    expect(orphan.message).toContain("pump_conversion.c holds a generated block for 'old_pump'");
+    const actions = await client.request<{ title: string; kind: string; edit?: { changes: Record<string, { range: { start: { line: number }; end: { line: number } }; newText: string }[]> } }[]>('textDocument/codeAction', {
+      textDocument: { uri },
+      range: orphan.range,
+      context: { diagnostics: [orphan], only: ['quickfix'] },
+    });
+    const fix = actions.find((a) => a.title === "Remove the generated block of 'old_pump'");
+    expect(fix?.kind).toBe('quickfix');
+    const edits = fix!.edit!.changes[uriOf(cFile)]!;
+    expect(edits).toHaveLength(1);
+    const lines = withOld.source.text.split('\n');
+    expect(lines[edits[0]!.range.start.line]).toMatch(/^\/\* thermoscribe:begin channel=old_pump /);
+    expect(lines[edits[0]!.range.end.line - 1]).toBe('/* thermoscribe:end channel=old_pump */');
+    expect(edits[0]!.newText).toBe('');
+  });
+});

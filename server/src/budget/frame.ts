@@ -12,6 +12,7 @@ import type { ChannelDef } from '../model/types';
 import { sense } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
+import { fittedChannel } from '../calibration/fit';
 import { NominalInverse } from './nominal-inverse';
 import { contributorsOf, perturb } from './contributors';
 import type { CalSetting, Contributor } from './types';
@@ -57,7 +58,10 @@ export function budgetGrid(c: ChannelDef, points: number): number[] {
   return Array.from({ length: n }, (_, i) => (i === n - 1 ? c.highK : c.lowK + ((c.highK - c.lowK) * i) / (n - 1)));
 }
 
-export function makeFrame(c: ChannelDef, points = 49): BudgetFrame {
+export function makeFrame(measuredOrNominal: ChannelDef, points = 49): BudgetFrame {
+  // With measured points, the firmware converts with the model fitted to them (outliers left out,
+  // calibration/fit.ts), so the budget's boards and reported values start from that model too.
+  const c = fittedChannel(measuredOrNominal);
   const all = contributorsOf(c, effectiveOversamplingBits(c));
   const board = all.filter((k) => k.scope === 'board');
   const reading = all.filter((k) => k.scope === 'reading');

@@ -187,6 +187,10 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
     if (c === null || k === null) return null;
     const full = 2 ** bits;
     if (!(c >= 0 && c <= full - 1)) return outOfDomain(ctx, code.span, `a ${bits}-bit code must be from 0 to ${full - 1} (found ${shown(code.number.text)})`);
+    if (!Number.isInteger(c)) return outOfDomain(ctx, code.span, `a code is a whole number of counts, 1 to ${full - 2} (found ${shown(code.number.text)}); give the code the converter returned`);
+    // A code at either rail is a clipped reading: it says only "at or beyond", not which temperature.
+    if (c === 0 || c === full - 1)
+      return outOfDomain(ctx, code.span, `code ${c} is the ${c === 0 ? 'bottom' : 'full scale'} of the ${bits}-bit converter: a clipped reading does not tell the temperature; use points whose codes lie from 1 to ${full - 2}`);
     if (!(k > 0)) return outOfDomain(ctx, temp.span, 'a temperature must be above 0 K (absolute zero)');
     out.push({ kelvin: k, code: c, span: { start: code.span.start, end: temp.span.end } });
     i += 3;

@@ -3,7 +3,8 @@
 // two or more (a two-current channel does not depend on IS: N alone). Least squares on the
 // temperature residuals by Gauss-Newton with a Levenberg-Marquardt damping term (Levenberg,
 // Quart. Appl. Math. 2, 1944; Marquardt, J. SIAM 11, 1963); numerical derivatives.
-// The fitted channel (fittedChannel) is what code generation should convert with.
+// The fitted channel (fittedChannel: every point but a flagged outlier) is what code generation
+// and the error budget convert with.
 import type { ChannelDef, JunctionDef, MeasuredPoint } from '../model/types';
 import { sense } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
@@ -29,6 +30,11 @@ export interface FitResult {
   toleranceK: number;
   /** Index of the point that disagrees with the others, or null. */
   outlier: number | null;
+  /**
+   * The channel fitted to every point but the outlier: what code generation and the error budget
+   * use (the same as `channel` when no point is an outlier).
+   */
+  used: ChannelDef;
 }
 
 type Param = 'lnIS' | 'N';
@@ -165,7 +171,15 @@ export function fitMeasured(c: ChannelDef): FitResult | null {
     if (worst >= 0) outlier = worst;
   }
   const s = all.channel.sensor as JunctionDef;
+  // The outlier is left out of the fit that the firmware and the budget use.
+  let used = all.channel;
+  if (outlier !== null) {
+    const rest = pts.filter((_, i) => i !== outlier);
+    const refit = fitOn(c, rest, paramsFor(c, rest.length));
+    if (refit) used = refit.channel;
+  }
   return {
+    used,
     channel: all.channel,
     parameters: { ...(names.includes('lnIS') ? { IS: s.params.IS } : {}), N: s.params.N },
     points,
@@ -177,5 +191,5 @@ export function fitMeasured(c: ChannelDef): FitResult | null {
 
 /** The channel with its measured constants fitted (for code generation); the channel itself when nothing was measured. */
 export function fittedChannel(c: ChannelDef): ChannelDef {
-  return fitMeasured(c)?.channel ?? c;
+  return fitMeasured(c)?.used ?? c;
 }

@@ -16,11 +16,15 @@ import { checkDividerOptimum } from './divider-optimum';
 import { checkLeadResistance } from './lead-resistance';
 import { checkBetaExtrapolated } from './beta-extrapolated';
 import { checkClassValidity } from './class-validity';
+import { checkSaturation } from './saturation';
+import { checkSensorFault } from './sensor-fault';
 
 export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkSupply,
   checkBiasWindow,
   checkClip,
+  checkSaturation,
+  checkSensorFault,
   checkResolution,
   checkSelfHeating,
   checkNonlinearity,

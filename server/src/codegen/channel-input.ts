@@ -9,12 +9,13 @@ import * as path from 'node:path';
 import { channelKey } from '../analysis/cache';
 import { kelvinAtVolts } from '../analysis/inverse';
 import { sense } from '../analysis/sense';
-import { fittedChannel } from '../calibration/fit';
+import { fitMeasured, fittedChannel } from '../calibration/fit';
 import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelDef } from '../model/types';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import type { ConversionInput } from './types';
+import { sensorFaults, usableCodes, type SensorFault } from '../sensors/faults';
+import { CodegenInputError, type ConversionInput } from './types';
 
 /** Defaults when the channel gives no code options: hundredths of a degC, 0.02 degC, auto. */
 export const CODE_DEFAULTS = { outputScale: 100, errorC: 0.02, method: 'auto', floatVariant: false } as const;
@@ -78,16 +79,49 @@ export function channelSpecHash(c: ChannelDef): string {
 }
 
 /**
+ * The first error reported inside the channel's block or the blocks of its sensor and ADC (a
+ * definition with an error may have taken a default in its place), or undefined.
+ */
+export function channelError(c: ChannelDef, diagnostics: readonly Diagnostic[]): Diagnostic | undefined {
+  const inside = (d: Diagnostic, b: { file: string; span: { start: number; end: number } }) => d.file === b.file && d.span.start >= b.span.start && d.span.end <= b.span.end;
+  return diagnostics.find((d) => d.severity === 'error' && (inside(d, c) || inside(d, c.sensor) || inside(d, c.adc)));
+}
+
+/**
  * Channels whose code can be generated: analysed, ADC of at most 16 bits, and (when the analysis'
- * diagnostics are given) no error reported inside the channel's block, since an erroneous design
+ * diagnostics are given) no error reported inside the channel's block or its sensor's or ADC's, since an erroneous design
  * (a clipping ADC, a junction that is not biased) has no sound inverse over its codes.
  */
 export function generatableResults(channels: readonly ChannelResult[], diagnostics: readonly Diagnostic[] = []): ChannelResult[] {
-  const errs = diagnostics.filter((d) => d.severity === 'error');
-  return channels.filter((r) => {
-    const c = r.channel;
-    return conversionBits(c) <= MAX_CODE_BITS && !errs.some((d) => d.file === c.file && d.span.start >= c.span.start && d.span.end <= c.span.end);
-  });
+  return channels.filter((r) => conversionBits(r.channel) <= MAX_CODE_BITS && channelError(r.channel, diagnostics) === undefined);
+}
+
+/**
+ * Fault tests of the conversion: a value is taken as a fault when it is at least as near a fault's
+ * code as the range end on that side (common practice, no source: the nearer explanation wins, and
+ * a tie goes to the safe side). A fault whose code is in range is left out; one on a saturated end
+ * code that the range also reaches is kept, the safe side (fault-in-range warns of both).
+ */
+export function faultLimits(faults: readonly SensorFault[], codeLow: number, codeHigh: number, n: number): { faultBelow?: number; faultAbove?: number } {
+  let faultBelow: number | undefined;
+  let faultAbove: number | undefined;
+  const w = 2 ** n;
+  for (const f of faults) {
+    const first = f.code * w;
+    const last = (f.code + 1) * w - 1;
+    if (first > codeHigh) {
+      const t = Math.max(codeHigh + 1, Math.ceil((codeHigh + first) / 2));
+      faultAbove = faultAbove === undefined ? t : Math.min(faultAbove, t);
+    } else if (last < codeLow) {
+      const t = Math.min(codeLow - 1, Math.floor((codeLow + last) / 2));
+      faultBelow = faultBelow === undefined ? t : Math.max(faultBelow, t);
+    }
+  }
+  return { ...(faultBelow !== undefined ? { faultBelow } : {}), ...(faultAbove !== undefined ? { faultAbove } : {}) };
+}
+
+function faultNotes(faults: readonly SensorFault[]): string[] {
+  return faults.map((f) => `${f.what[0]!.toUpperCase()}${f.what.slice(1)}: ADC code ${f.code}${f.distinct ? '' : ' (a temperature of the range gives it too: cannot be told apart)'}; assumes ${f.assumption}.`);
 }
 
 export function conversionInput(r: ChannelResult, specPath: string): ConversionInput {
@@ -112,9 +146,16 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     codeMin = Math.min(a, b);
     codeMax = Math.max(a, b);
   }
+  // The end codes of the converter's scale stand for every voltage beyond them: never in range.
+  const usable = usableCodes(c.adc.bits, codeMin, codeMax);
+  if (!usable) {
+    throw new CodegenInputError(c.name, 'range', `every code of the range is an end code of '${c.adc.name}' (0 or ${2 ** c.adc.bits - 1}), which stands for any voltage beyond it; move the sensed voltage inside 1 .. ${2 ** c.adc.bits - 2} LSB`);
+  }
   // Decimated values: ADC code k covers the values k * 2^n .. (k + 1) * 2^n - 1.
-  const codeLow = codeMin * 2 ** n;
-  const codeHigh = Math.min(2 ** bits - 1, (codeMax + 1) * 2 ** n - 1);
+  const codeLow = usable.low * 2 ** n;
+  const codeHigh = Math.min(2 ** bits - 1, (usable.high + 1) * 2 ** n - 1);
+  const faults = sensorFaults(c, codeMin, codeMax);
+  const limits = faultLimits(faults, codeLow, codeHigh, n);
   // Board calibration from the spec: the trims differ per board, so the firmware sets them at run
   // time (offset 0 and gain 1 until it does).
   const cal = c.calibration?.mode;
@@ -125,23 +166,31 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
         ? { mode: 'two-point', offset: 0, gain: 1, runtime: true }
         : { mode: 'none', runtime: false };
   const notes = [`Channel ${c.name} of ${path.basename(specPath)}.`];
-  if (model !== c) notes.push(`Converts with the model fitted to the ${c.measured!.length} measured point(s) of the spec.`);
+  if (model !== c) {
+    const out = fitMeasured(c)?.outlier ?? null;
+    const left = out === null ? '' : ` (the point ${c.measured![out]!.code} counts at ${+(c.measured![out]!.kelvin - ZERO_CELSIUS_K).toFixed(3)} °C disagrees with the others and is left out)`;
+    notes.push(`Converts with the model fitted to the ${c.measured!.length - (out === null ? 0 : 1)} measured point(s) of the spec${left}.`);
+  }
   if (n > 0) {
     notes.push(
       `Takes the decimated value of ${4 ** n} readings summed and shifted right by ${n} (oversampling = ${n} bits): ` +
         `${bits} bits, 0 .. ${2 ** bits - 1}; pass that value, not a single ${c.adc.bits}-bit reading.`,
     );
   }
+  notes.push(...faultNotes(faults));
   return {
     channelName: c.name,
     bits,
+    ...limits,
     ...(n > 0 ? { oversamplingBits: n } : {}),
     codeLow,
     codeHigh,
     celsiusAtCode: (code: number) => kelvinAtVolts(model, (meanReadingOfDecimated(code, n) + 0.5) * lsb, lowK, highK) - ZERO_CELSIUS_K,
     outputScale: opts.outputScale,
     errorTarget: opts.errorC,
-    method: opts.method,
+    // `conversion = line`: the firmware converts with one straight line, as the spec says.
+    method: c.conversion === 'line' ? 'line' : opts.method,
+    optimise: ('optimise' in opts ? opts.optimise : undefined) ?? 'balanced',
     calibration,
     floatVariant: opts.floatVariant,
     specHash: channelSpecHash(c),

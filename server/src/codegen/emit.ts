@@ -1,7 +1,7 @@
 // C99 text for one channel. Integer-only unless the float variant is asked for; no libm ever.
 // Every constant below comes from a design that was simulated exactly in TypeScript first.
 
-import { GAIN_Q, type TrimDesign } from './calibration';
+import { GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, type TrimDesign } from './calibration';
 import { commentLines } from './names';
 import type { PolyDesign } from './polynomial';
 import type { TableDesign } from './table';
@@ -21,12 +21,27 @@ export interface ChannelPlan {
   outBits: 16 | 32;
   /** The trimmed output can leave the output type's range: clamp in C. */
   needClamp: boolean;
+  /** Smallest and largest untrimmed value over the in-range codes (run-time trim setters bound the trims with them). */
+  kernelMin: number;
+  kernelMax: number;
+  /** Internal fraction bits of the kernel: it works in 1/(scale * 2^fracBits) degC and rounds at the end. */
+  fracBits: number;
+  /** Untrimmed values at the low and high in-range codes. */
+  kernelAtLow: number;
+  kernelAtHigh: number;
   floatVariant: boolean;
   /** Final outputs at the low and high in-range codes (what a clamped code returns). */
   outAtLow: number;
   outAtHigh: number;
+  /** Codes at or below / at or above these are a sensor fault (absent: no test on that side). */
+  faultBelow?: number;
+  faultAbove?: number;
+  /** Smallest and largest degC spanned by one code over the range (NaN when unknown). */
+  perCountC: { min: number; max: number };
   maxErrorC: number;
   errorTarget: number;
+  /** A straight line asked for by the spec (`conversion = line`): its error is not held to the target. */
+  line?: boolean;
   note?: string;
 }
 
@@ -35,6 +50,9 @@ const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
 #define THSC_IN_RANGE      0u /* code inside the designed range */
 #define THSC_CLAMPED_COLD  1u /* colder than the range: output pinned to the coldest end */
 #define THSC_CLAMPED_HOT   2u /* hotter than the range: output pinned to the hottest end */
+#endif
+#ifndef THSC_SENSOR_FAULT
+#define THSC_SENSOR_FAULT  3u /* open or shorted sensor or lead: not a temperature; make the load safe */
 #endif`;
 
 const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
@@ -59,6 +77,47 @@ const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
 #define THSC_MUL_HI8(s, f) ((uint16_t)((__extension__((__uint24)(s) * (uint8_t)(f) + 128u)) >> 8))
 #else
 #define THSC_MUL_HI8(s, f) ((uint16_t)(((uint32_t)(s) * (uint8_t)(f) + 128UL) >> 8))
+#endif
+#endif
+#ifndef THSC_GAIN_HELPER
+#define THSC_GAIN_HELPER 1
+/* floor((y * d + 32768) / 65536) for 16-bit y and d: the gain correction of a run-time trim. On
+   an 8-bit AVR with a multiplier, the signed 16 x 16 -> 32-bit multiply of Atmel application note
+   AVR201 (four hardware multiplies, inline) instead of a library call; the low byte is not formed,
+   as it cannot carry into the result. */
+#if defined(__AVR__) && defined(__GNUC__) && defined(__AVR_HAVE_MUL__)
+static inline int16_t thsc_gain_corr(int16_t y, int16_t d)
+{
+    int16_t r;
+    uint8_t b1, z;
+    __asm__ (
+        "clr %[z]\\n\\t"
+        "muls %B[y], %B[d]\\n\\t"
+        "mov %A[r], __tmp_reg__\\n\\t"
+        "mov %B[r], __zero_reg__\\n\\t"
+        "mul %A[y], %A[d]\\n\\t"
+        "mov %[b1], __zero_reg__\\n\\t"
+        "mulsu %B[y], %A[d]\\n\\t"
+        "sbc %B[r], %[z]\\n\\t"
+        "add %[b1], __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "mulsu %B[d], %A[y]\\n\\t"
+        "sbc %B[r], %[z]\\n\\t"
+        "add %[b1], __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "lsl %[b1]\\n\\t"
+        "adc %A[r], %[z]\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "clr __zero_reg__"
+        : [r] "=&r" (r), [b1] "=&r" (b1), [z] "=&r" (z)
+        : [y] "a" (y), [d] "a" (d));
+    return r;
+}
+#define THSC_GAIN_CORR(y, d) thsc_gain_corr((y), (d))
+#else
+#define THSC_GAIN_CORR(y, d) ((int16_t)THSC_ASR32((int32_t)(y) * (d) + 32768L, 16))
 #endif
 #endif`;
 
@@ -119,12 +178,61 @@ function describe(p: ChannelPlan): string[] {
           `(0..${2 ** p.bits - 1}), not one reading; the readings need noise of at least 0.5 LSB rms to dither.`,
         ]
       : []),
-    `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code).`,
+    `In range: codes ${p.low}..${p.high} (temperature ${p.dir > 0 ? 'rises' : 'falls'} with the code). A code stands for the centre`,
+    `of its step (code + 0.5 LSB)${perCountText(p)}.`,
     `Method: ${what}; ${trim}.`,
-    `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
-    'from an exact simulation of this integer arithmetic.',
+    p.line
+      ? `Straight line (conversion = line in the spec), not held to a code error target: max error vs the model over every in-range code ${p.maxErrorC.toFixed(4)} degC,`
+      : `Max error vs the model over every in-range code: ${p.maxErrorC.toFixed(4)} degC (target ${p.errorTarget} degC),`,
+    'from an exact simulation of this integer arithmetic; the quantisation of the code comes on top.',
     `${names(p).fn}() returns THSC_IN_RANGE, or THSC_CLAMPED_COLD / THSC_CLAMPED_HOT when the code is`,
-    'outside the range; the output is then pinned to the nearest range end (never wrapped).',
+    'outside the range; the output is then pinned to the nearest range end (never wrapped):',
+    ...clampedText(p),
+    ...faultText(p),
+    ...(p.trim.runtime
+      ? [
+          `${names(p).setter}() writes ${p.trim.mode === 'offset' ? 'a 16-bit field' : 'two 16-bit fields'}: not atomic on an 8-bit core. When conversions run in an`,
+          'interrupt, call it with that interrupt disabled (on AVR: ATOMIC_BLOCK(ATOMIC_RESTORESTATE) of',
+          '<util/atomic.h>), or call it from the same context that converts.',
+        ]
+      : []),
+  ];
+}
+
+function outText(p: ChannelPlan, v: number): string {
+  return `${v} (${+(v / p.scale).toFixed(6)} degC)`;
+}
+
+function perCountText(p: ChannelPlan): string {
+  const { min, max } = p.perCountC;
+  if (!Number.isFinite(min) || !Number.isFinite(max)) return '';
+  const fmt = (x: number) => (x >= 0.01 ? x.toFixed(3) : x.toPrecision(2));
+  return min === max || fmt(min) === fmt(max) ? `; one count spans ${fmt(max)} degC` : `; one count spans ${fmt(min)} to ${fmt(max)} degC over the range`;
+}
+
+/** The exact outputs of a clamped code (none with run-time trims: they follow the trim). */
+function clampedText(p: ChannelPlan): string[] {
+  const [cold, hot] = p.dir > 0 ? [p.outAtLow, p.outAtHigh] : [p.outAtHigh, p.outAtLow];
+  if (p.trim.runtime) return ['  the range end\'s value with the trims in force at the time.'];
+  return [`  THSC_CLAMPED_COLD gives exactly ${outText(p, cold)}, THSC_CLAMPED_HOT ${outText(p, hot)}.`];
+}
+
+function faultText(p: ChannelPlan): string[] {
+  const tests = [
+    ...(p.faultBelow !== undefined ? [`${p.faultBelow === 0 ? 'code 0' : `codes <= ${p.faultBelow}`}`] : []),
+    ...(p.faultAbove !== undefined ? [`${p.faultAbove === 2 ** p.bits - 1 ? `code ${p.faultAbove}` : `codes >= ${p.faultAbove}`}`] : []),
+  ];
+  if (tests.length === 0) {
+    return [
+      'No code of this channel is set apart as a sensor fault (an open or shorted sensor gives an',
+      'in-range code, or none was computed): detect faults another way before acting on the value.',
+    ];
+  }
+  return [
+    `THSC_SENSOR_FAULT: ${tests.join(' and ')}, the codes nearer an open or shorted sensor's code than the`,
+    'range (the output is then pinned to the nearest range end and is not a temperature).',
+    'SAFETY: on THSC_SENSOR_FAULT put the load in its safe state (heater off, alarm raised);',
+    'do not act on the value. Treat repeated clamped readings the same way.',
   ];
 }
 
@@ -149,11 +257,15 @@ function declarations(p: ChannelPlan): string {
     out.push(
       p.trim.mode === 'offset'
         ? `void ${n.setter}(int16_t offset_units); /* offset in 1/${p.scale} degC */`
-        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
+        : `/* Two-point trim: out = y + floor((y * D + 32768) / 65536) + offset_units, with y the untrimmed\n` +
+          `   value and D = 4 * gain_q${GAIN_Q} - 65536; gain_q${GAIN_Q} = gain * 2^${GAIN_Q}, held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5). */\n` +
+          `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
     );
   }
   if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
-  return out.join('\n');
+  // Guarded: a self-contained block and the header may meet in one translation unit, and a
+  // typedef given twice is an error before C11.
+  return [`#ifndef ${n.up}_DECLARED`, `#define ${n.up}_DECLARED 1`, ...out, '#endif'].join('\n');
 }
 
 export function emitHeaderBody(p: ChannelPlan): string {
@@ -167,24 +279,41 @@ function clampCode(p: ChannelPlan, early = false): string[] {
   // Comparisons that can never be true are left out (-Wtype-limits under -Wextra).
   const lowTest = p.low > 0 ? `code < ${p.low}u` : undefined;
   const highTest = p.high < 65535 ? `code > ${p.high}u` : undefined;
+  // Fault tests come first: a fault code lies beyond the range on its side.
+  const faultLow = p.faultBelow === undefined ? undefined : p.faultBelow === 0 ? 'code == 0u' : `code <= ${p.faultBelow}u`;
+  const faultHigh = p.faultAbove === undefined ? undefined : p.faultAbove === 65535 ? 'code == 65535u' : `code >= ${p.faultAbove}u`;
   if (early) {
     // Without run-time trims the output at a range end is a constant: a clamped code returns it
     // at once, and the in-range path carries no status (fewer live registers on an 8-bit MCU).
     // One unsigned comparison tests both ends (the wrap-around puts codes below the range high).
     const outT = `int${p.outBits}_t`;
-    const lowRet = `{ *out = (${outT})${lit(p.outAtLow, p.outBits)}; return ${below}; }`;
-    const highRet = `{ *out = (${outT})${lit(p.outAtHigh, p.outBits)}; return ${above}; }`;
+    const ret = (v: number, st: string) => `{ *out = (${outT})${lit(v, p.outBits)}; return ${st}; }`;
+    const lowSide = [
+      ...(faultLow ? [`if (${faultLow}) ${ret(p.outAtLow, 'THSC_SENSOR_FAULT')}`] : []),
+      ...(lowTest ? [`if (${lowTest}) ${ret(p.outAtLow, below)}`] : []),
+    ];
+    const highSide = [
+      ...(faultHigh ? [`if (${faultHigh}) ${ret(p.outAtHigh, 'THSC_SENSOR_FAULT')}`] : []),
+      ...(highTest ? [ret(p.outAtHigh, above)] : []),
+    ];
     if (lowTest && highTest) {
       out.push(`    if ((uint16_t)(code - ${p.low}u) > ${p.high - p.low}u) {`);
-      out.push(`        if (${lowTest}) ${lowRet}`);
-      out.push(`        ${highRet}`);
+      for (const l of [...lowSide, ...highSide]) out.push(`        ${l}`);
       out.push('    }');
-    } else if (lowTest) out.push(`    if (${lowTest}) ${lowRet}`);
-    else if (highTest) out.push(`    if (${highTest}) ${highRet}`);
+    } else if (lowTest) for (const l of lowSide) out.push(`    ${l}`);
+    else if (highTest) {
+      if (faultHigh) out.push(`    if (${faultHigh}) ${ret(p.outAtHigh, 'THSC_SENSOR_FAULT')}`);
+      out.push(`    if (${highTest}) ${ret(p.outAtHigh, above)}`);
+    }
     return out;
   }
-  if (lowTest) out.push(`    if (${lowTest}) { code = ${p.low}u; status = ${below}; }`);
-  if (highTest) out.push(`    ${lowTest ? 'else ' : ''}if (${highTest}) { code = ${p.high}u; status = ${above}; }`);
+  const tests: [string, number, string][] = [
+    ...(faultLow ? [[faultLow, p.low, 'THSC_SENSOR_FAULT'] as [string, number, string]] : []),
+    ...(lowTest ? [[lowTest, p.low, below] as [string, number, string]] : []),
+    ...(faultHigh ? [[faultHigh, p.high, 'THSC_SENSOR_FAULT'] as [string, number, string]] : []),
+    ...(highTest ? [[highTest, p.high, above] as [string, number, string]] : []),
+  ];
+  tests.forEach(([test, code, st], i) => out.push(`    ${i > 0 ? 'else ' : ''}if (${test}) { code = ${code}u; status = ${st}; }`));
   return out;
 }
 
@@ -264,9 +393,49 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
 
 function trimExpr(p: ChannelPlan, n: ReturnType<typeof names>, value: string): string {
   const off = p.trim.runtime ? `(int32_t)${n.trims}.offset` : lit32(p.trim.offsetScaled);
-  const gain = p.trim.runtime ? `(int32_t)${n.trims}.gain_q${GAIN_Q}` : lit32(p.trim.gainQ);
   if (p.trim.mode === 'offset') return `(int32_t)${value} + ${off}`;
-  return `THSC_ASR32((int32_t)${value} * ${gain} + ${lit32(2 ** (GAIN_Q - 1))}, ${GAIN_Q}) + ${off}`;
+  // y + floor((y * D + 2^15) / 2^16) + O (calibration.ts): a 16 x 16 -> 32-bit product, whose
+  // high half is the correction (the value fits int16 whenever a two-point trim is designed).
+  return `(int32_t)${value} + THSC_ASR32((int32_t)(int16_t)${value} * ${p.trim.gainD}L + 32768L, 16) + ${off}`;
+}
+
+/** The setter of run-time trims; it bounds them so that every in-range output fits the output type. */
+function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string {
+  const bounded = p.outBits === 16;
+  const kmin = lit32(p.kernelMin);
+  const kmax = lit32(p.kernelMax);
+  if (p.trim.mode === 'offset') {
+    if (!bounded) return `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`;
+    return [
+      `void ${n.setter}(int16_t offset_units)`,
+      '{',
+      '    /* Held so that no in-range output leaves int16_t: the conversion then needs no clamp. */',
+      // A side whose bound lies outside int16_t needs no test (-Wtype-limits).
+      ...(32767 - p.kernelMax < 32767 ? [`    if (offset_units > ${32767 - p.kernelMax}) offset_units = ${32767 - p.kernelMax};`] : []),
+      ...(-32768 - p.kernelMin > -32768 ? [`    if (offset_units < ${-32768 - p.kernelMin}) offset_units = ${-32768 - p.kernelMin};`] : []),
+      `    ${n.trims}.offset = offset_units;`,
+      '}',
+    ].join('\n');
+  }
+  const g = `gain_q${GAIN_Q}`;
+  return [
+    `void ${n.setter}(int16_t offset_units, uint16_t ${g})`,
+    '{',
+    '    int32_t d, lo, hi, off;',
+    `    /* The gain is held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5) and stored as D = 4 * gain - 65536; the`,
+    '       offset is held so that no in-range output leaves int16_t (the conversion needs no clamp). */',
+    `    if (${g} < ${GAIN_Q_MIN}u) ${g} = ${GAIN_Q_MIN}u;`,
+    `    else if (${g} > ${GAIN_Q_MAX}u) ${g} = ${GAIN_Q_MAX}u;`,
+    `    d = (int32_t)${g} * 4 - (int32_t)65536L;`,
+    `    lo = (int32_t)(${kmin} + THSC_ASR32(${kmin} * d + 32768L, 16));`,
+    `    hi = (int32_t)(${kmax} + THSC_ASR32(${kmax} * d + 32768L, 16));`,
+    '    off = offset_units;',
+    '    if (off > 32767L - hi) off = 32767L - hi;',
+    '    if (off < -32768L - lo) off = -32768L - lo;',
+    `    ${n.trims}.offset = (int16_t)off;`,
+    `    ${n.trims}.gain_d = (int16_t)d;`,
+    '}',
+  ].join('\n');
 }
 
 function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
@@ -280,27 +449,65 @@ function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
   return `static const int32_t ${n.data}[${segs.length}][3] THSC_ROM = {\n${rows(segs, 2, '    ')}\n};`;
 }
 
-export function emitSourceBody(p: ChannelPlan): string {
+/**
+ * The channel's definitions. With `header` (the file's own header name) the block includes it for
+ * the types, prototypes and status codes and does not repeat them (a typedef given twice is an
+ * error before C11, a warning under -pedantic); without, the block declares them itself.
+ */
+export function emitSourceBody(p: ChannelPlan, header?: string): string {
   const n = names(p);
   const k = kernelCode(p, n);
   const outT = `int${p.outBits}_t`;
-  const parts: string[] = [headComment(p), '#include <stdint.h>', SHARED_STATUS, SHARED_IMPL, declarations(p), dataCode(p, n)];
+  const own = header ? [`#include "${header}" /* this channel's types, prototypes and status codes */`] : ['#include <stdint.h>', SHARED_STATUS, declarations(p)];
+  const parts: string[] = [headComment(p), ...own, SHARED_IMPL, dataCode(p, n)];
   if (p.trim.runtime) {
-    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : `int16_t offset; uint16_t gain_q${GAIN_Q};`;
-    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainQ}u`;
+    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int16_t offset; int16_t gain_d;';
+    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainD}`;
     parts.push(`static struct { ${fields} } ${n.trims} = { ${init} };`);
-    parts.push(
-      p.trim.mode === 'offset'
-        ? `void ${n.setter}(int16_t offset_units)\n{\n    ${n.trims}.offset = offset_units;\n}`
-        : `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q})\n{\n    ${n.trims}.offset = offset_units;\n    ${n.trims}.gain_q${GAIN_Q} = gain_q${GAIN_Q};\n}`,
-    );
+    parts.push(trimRuntimeSetter(p, n));
   }
+  if (p.trim.runtime && p.outBits === 16) {
+    // Run-time trims on a 16-bit output: the untrimmed conversion (with its early returns at the
+    // range ends) and the trim applied once to whatever it gives; the compiler inlines the first.
+    const inner: ChannelPlan = { ...p, trim: { ...p.trim, mode: 'none', runtime: false }, outAtLow: p.kernelAtLow, outAtHigh: p.kernelAtHigh };
+    parts.push(conversionFunction(inner, n, kernelCode(inner, n), `static uint8_t ${n.id}_untrimmed(uint16_t code, int16_t *out)`));
+    const corr = p.trim.mode === 'two-point' ? ['    int16_t corr;'] : [];
+    const apply =
+      p.trim.mode === 'offset'
+        ? [`    *out = (int16_t)(kernel + ${n.trims}.offset);`]
+        : [
+            `    corr = THSC_GAIN_CORR(kernel, ${n.trims}.gain_d);`,
+            `    *out = (int16_t)(kernel + corr + ${n.trims}.offset);`,
+          ];
+    parts.push([`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    int16_t kernel;', ...corr, `    uint8_t status = ${n.id}_untrimmed(code, &kernel);`, ...apply, '    return status;', '}'].join('\n'));
+  } else {
+    parts.push(conversionFunction(p, n, k, `uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`));
+  }
+  if (p.floatVariant) parts.push(floatVariant(p, n));
+  return `${parts.join('\n')}\n`;
+}
+
+/**
+ * The kernel's internal fraction bits rounded off: floor((kernel + 2^(F-1)) / 2^F). 16-bit: biased
+ * into uint16 and shifted (no right shift of a negative number, C99 6.5.7p5); the design keeps
+ * kernel + 2^(F-1) inside int16.
+ */
+function roundFraction(p: ChannelPlan, wide: boolean): string[] {
+  const f = p.fracBits;
+  if (f === 0) return [];
+  if (wide) return [`    kernel = THSC_ASR32(kernel + ${2 ** (f - 1)}L, ${f}); /* to 1/${p.scale} degC, rounded */`];
+  return [`    kernel = (int16_t)((int16_t)((uint16_t)((uint16_t)kernel + ${0x8000 + 2 ** (f - 1)}u) >> ${f}) - ${0x8000 >> f}); /* to 1/${p.scale} degC, rounded */`];
+}
+
+/** The conversion function with the given signature (early returns unless trims are set at run time). */
+function conversionFunction(p: ChannelPlan, n: ReturnType<typeof names>, k: ReturnType<typeof kernelCode>, signature: string): string {
+  const outT = `int${p.outBits}_t`;
   const early = !p.trim.runtime;
-  const lines: string[] = [`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{'];
+  const lines: string[] = [signature, '{'];
   if (!early) lines.push('    uint8_t status = THSC_IN_RANGE;');
   lines.push(...k.decl);
   if (p.trim.mode !== 'none') lines.push('    int32_t trimmed;');
-  lines.push(...clampCode(p, early), ...k.body);
+  lines.push(...clampCode(p, early), ...k.body, ...roundFraction(p, k.wide));
   if (p.trim.mode === 'none') {
     lines.push(`    *out = (${outT})kernel;`);
   } else {
@@ -312,9 +519,7 @@ export function emitSourceBody(p: ChannelPlan): string {
     lines.push(`    *out = (${outT})trimmed;`);
   }
   lines.push(early ? '    return THSC_IN_RANGE;' : '    return status;', '}');
-  parts.push(lines.join('\n'));
-  if (p.floatVariant) parts.push(floatVariant(p, n));
-  return `${parts.join('\n')}\n`;
+  return lines.join('\n');
 }
 
 /** Same points, float interpolation without the integer rounding; no libm. */
@@ -338,6 +543,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
       `    b = (float)${rd}(&${n.data}[idx + 1u]);`,
       `    y = a + (b - a) * ((float)(off & ${2 ** d.shift - 1}u) / ${2 ** d.shift}.0f);`,
     );
+    if (p.fracBits > 0) lines.push(`    y = y / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
   } else if (d.kind === 'table') {
     lines.push(`    y = (float)${rd}(&${n.data}[code - ${p.low}u]);`);
   } else {
@@ -349,7 +555,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
     lines.push(`    y += (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`);
   } else if (p.trim.mode === 'two-point') {
     lines.push(
-      `    y = y * ((float)${p.trim.runtime ? `${n.trims}.gain_q${GAIN_Q}` : p.trim.gainQ} / ${2 ** GAIN_Q}.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
+      `    y = y * ((65536.0f + (float)${p.trim.runtime ? `${n.trims}.gain_d` : p.trim.gainD}) / 65536.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
     );
   }
   lines.push(`    *celsius = y / ${p.scale}.0f;`, '    return status;', '}');

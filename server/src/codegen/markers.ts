@@ -174,3 +174,20 @@ export function spliceGenerated(existing: string, blocks: readonly SpliceBlock[]
   }
   return { ok: true, text };
 }
+
+/**
+ * Generated blocks of `text` whose channel is not in `channels` (the channel was removed or
+ * renamed in the spec): their names, and the text without them when `prune` is set. Only whole
+ * blocks, markers included, are removed; everything else is kept byte for byte.
+ */
+export function orphanBlocks(text: string, channels: ReadonlySet<string>, prune = false): { orphans: FoundBlock[]; text: string } {
+  const orphans = scanGeneratedBlocks(text).blocks.filter((b) => !channels.has(b.channel));
+  if (!prune || orphans.length === 0) return { orphans, text };
+  let out = '';
+  let at = 0;
+  for (const b of orphans) {
+    out += text.slice(at, b.start);
+    at = b.end;
+  }
+  return { orphans, text: out + text.slice(at) };
+}

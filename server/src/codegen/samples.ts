@@ -7,7 +7,9 @@ export interface Samples {
   low: number;
   high: number;
   scale: number;
-  /** scale * celsiusAtCode(code) for code = low..high. */
+  /** Internal fraction bits F: the kernel works in 1/(scale * 2^F) degC and rounds to the output unit at the end. */
+  frac: number;
+  /** scale * 2^frac * celsiusAtCode(code) for code = low..high (kernel units). */
   f: Float64Array;
   /** What the trimmed output should be at each code (output units). */
   ideal: Float64Array;
@@ -29,9 +31,24 @@ export function modelAt(s: Samples, code: number): number {
   return a + (b - a) * (code - s.low - i);
 }
 
-/** Final output (trim + clamp) from a kernel value. */
+/** A kernel value rounded to the output unit: floor((k + 2^(F-1)) / 2^F), as the C does it. */
+export function rounded(s: Samples, kernel: number): number {
+  return s.frac === 0 ? kernel : Math.floor((kernel + 2 ** (s.frac - 1)) / 2 ** s.frac);
+}
+
+/** Final output (rounding, trim, clamp) from a kernel value. */
 export function finish(s: Samples, kernel: number): number {
-  return clamp(applyTrim(s.trim, kernel), s.outMin, s.outMax);
+  return clamp(applyTrim(s.trim, rounded(s, kernel)), s.outMin, s.outMax);
+}
+
+/**
+ * The same samples with F internal fraction bits: a coarse output unit then does not force table
+ * points and constant terms onto whole output units (which costs many more points for the same
+ * error). Only for kernels that stay inside int16 with room to spare.
+ */
+export function withFraction(s: Samples, frac: number): Samples {
+  if (frac === 0) return s;
+  return { ...s, frac, f: s.f.map((v) => v * 2 ** frac) };
 }
 
 /** |output - ideal| in output units at in-range code index k. */

@@ -4,7 +4,8 @@
 import type { ChannelResult } from '../analysis/types';
 import { DiagnosticSink, type Diagnostic } from '../checks/diagnostic';
 import { channelSpecHash, conversionFilePath, generatableResults } from './channel-input';
-import { scanGeneratedBlocks } from './markers';
+import { orphanBlocks, scanGeneratedBlocks } from './markers';
+import type { DocumentNode } from '../syntax/ast';
 import type { FoundBlock } from './types';
 
 export interface StaleBlock {
@@ -32,19 +33,38 @@ export function staleBlocks(cText: string, analysis: { channels: readonly Channe
   return out;
 }
 
+/** Every channel the spec defines: the analysed ones and the channel blocks of the entry file. */
+export function specChannelNames(analysis: { channels: readonly ChannelResult[]; files?: readonly { parse: { tree: DocumentNode } }[] }): Set<string> {
+  const names = new Set(analysis.channels.map((r) => r.channel.name));
+  for (const item of analysis.files?.[0]?.parse.tree.items ?? []) if (item.kind === 'block' && item.keyword.text === 'channel') names.add(item.name.text);
+  return names;
+}
+
 /**
- * `generated-stale` diagnostics on the name of each channel whose block in the spec's
- * `<stem>_conversion.c` is out of date; `read` gives a file's text (or undefined when absent).
+ * `generated-stale` diagnostics on the name of each channel whose block in a conversion file is
+ * out of date, and (when the analysis carries its files) `generated-orphan` for each block of a
+ * channel the spec does not define. `cPaths`: the files to compare, by default the spec's
+ * `<stem>_conversion.c`; `read` gives a file's text (or undefined when absent).
  */
-export function staleDiagnostics(analysis: { path: string; channels: readonly ChannelResult[] }, read: (absPath: string) => string | undefined): Diagnostic[] {
-  const cPath = conversionFilePath(analysis.path);
-  const text = read(cPath);
-  if (text === undefined) return [];
+export function staleDiagnostics(
+  analysis: { path: string; channels: readonly ChannelResult[]; files?: readonly { parse: { tree: DocumentNode } }[] },
+  read: (absPath: string) => string | undefined,
+  cPaths: readonly string[] = [conversionFilePath(analysis.path)],
+): Diagnostic[] {
   const sink = new DiagnosticSink();
-  const file = cPath.split(/[\\/]/).pop() ?? cPath;
-  for (const s of staleBlocks(text, analysis)) {
-    const c = s.result.channel;
-    sink.report('generated-stale', c.file, c.nameSpan, `the generated code for '${c.name}' in ${file} was made from an earlier version of this channel (spec ${s.block.hash}, now ${s.currentHash}); regenerate it`, { channel: c.name });
+  for (const cPath of cPaths) {
+    const text = read(cPath);
+    if (text === undefined) continue;
+    const file = cPath.split(/[\\/]/).pop() ?? cPath;
+    for (const s of staleBlocks(text, analysis)) {
+      const c = s.result.channel;
+      sink.report('generated-stale', c.file, c.nameSpan, `the generated code for '${c.name}' in ${file} was made from an earlier version of this channel (spec ${s.block.hash}, now ${s.currentHash}); regenerate it`, { channel: c.name });
+    }
+    if (!analysis.files) continue;
+    const names = specChannelNames(analysis);
+    for (const b of orphanBlocks(text, names).orphans) {
+      sink.report('generated-orphan', analysis.path, { start: 0, end: 0 }, `${file} holds a generated block for '${b.channel}', a channel this spec does not define (removed or renamed); delete the block (thermoscribe gen --prune) or restore the channel`, { channel: b.channel, codeFile: cPath });
+    }
   }
   return sink.items;
 }

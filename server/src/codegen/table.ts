@@ -62,7 +62,7 @@ function monotoneOk(e: number[], j: number, dir: 1 | -1): boolean {
 }
 
 /** Best table at one spacing, or undefined when it cannot be represented. */
-export function designTable(s: Samples, shift: number): { design: TableDesign; maxErr: number } | undefined {
+export function designTable(s: Samples, shift: number, start: (code: number) => number = (code) => modelAt(s, code)): { design: TableDesign; maxErr: number } | undefined {
   const n = s.high - s.low + 1;
   if (shift === 0) {
     const entries = Array.from(s.f, (v) => Math.round(v));
@@ -86,7 +86,7 @@ export function designTable(s: Samples, shift: number): { design: TableDesign; m
   const base = Math.floor(s.low / h) * h;
   const segs = Math.floor((s.high - base) / h) + 1;
   const e: number[] = [];
-  for (let i = 0; i <= segs; i++) e.push(Math.round(modelAt(s, base + i * h)));
+  for (let i = 0; i <= segs; i++) e.push(Math.round(start(base + i * h)));
   if (!e.every(fitsInt32)) return undefined;
   const err = Array.from({ length: segs }, (_, i) => segmentError(s, e, shift, base, i));
   // Coordinate search: move one entry while the worse of its two segments improves.

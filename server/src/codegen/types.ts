@@ -15,11 +15,21 @@ export interface ConversionInput {
    * Monotonic (rising or falling) on [codeLow, codeHigh].
    */
   celsiusAtCode(code: number): number;
+  /**
+   * Sensor faults (open or shorted sensor or lead): codes at or below `faultBelow`, or at or above
+   * `faultAbove`, return THSC_SENSOR_FAULT instead of a clamped status. Absent: no fault test on
+   * that side. Must lie outside codeLow..codeHigh.
+   */
+  faultBelow?: number;
+  faultAbove?: number;
+  /** What auto favours among designs that meet the target (absent: balanced). */
+  optimise?: 'size' | 'speed' | 'balanced';
   /** Fixed-point unit of the output: 100 => signed hundredths of a degC. */
   outputScale: number;
   /** degC, max error allowed vs the model over every in-range code (callers default it to 0.02). */
   errorTarget: number;
-  method: 'auto' | 'table' | 'polynomial';
+  /** 'line': one straight line over the range (the spec's `conversion = line`); its error is what it is, not held to errorTarget. */
+  method: 'auto' | 'table' | 'polynomial' | 'line';
   calibration: {
     mode: 'none' | 'offset' | 'two-point';
     /** degC added after the conversion (offset and two-point modes). */
@@ -57,6 +67,18 @@ export interface GenerateOptions {
   fileStem: string;
   /** true: emit the header (declarations); false/absent: the C source (definitions). */
   header?: boolean;
+  /**
+   * Put before every identifier generated for a channel (functions, types, tables, macros), so
+   * that two specs with a channel of the same name link together: a C identifier of 1..32
+   * characters starting with a letter. Absent: none.
+   */
+  prefix?: string;
+  /**
+   * Source only. false/absent: each block includes `<fileStem>.h` for its types and prototypes
+   * (never repeats them, so a file that also includes the header compiles cleanly); true: each
+   * block declares them itself (a block pasted into a file of the user's own).
+   */
+  selfContained?: boolean;
 }
 
 export interface GenerateResult {

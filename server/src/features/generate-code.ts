@@ -39,7 +39,8 @@ export function generateForChannel(a: Analysis, channel: string, existing: strin
   const stem = path.basename(file, '.c');
   try {
     const input = conversionInput(r, a.path);
-    const gen = generateC([input], { fileStem: stem });
+    // Only the .c is written here (no header beside it): the block declares its own types.
+    const gen = generateC([input], { fileStem: stem, selfContained: true });
     const ch = gen.channels[0]!;
     if (existing === undefined) return { ok: true, result: { file, text: gen.text, create: true, maxErrorC: ch.maxErrorC, method: ch.method } };
     const clash = symbolClash(existing, [{ channel, identifier: ch.identifier }]);

@@ -1,5 +1,6 @@
 // Hover: computed figures for a channel, its bias, a junction or an ADC; a number's value in
 // base units; a field's documentation and default. Offsets in, markdown and a span out.
+import { describeFaults, sensorFaults } from '../sensors/faults';
 import type { Analysis } from '../engine';
 import type { ChannelResult, SweepPoint } from '../analysis/types';
 import type { AdcDef, JunctionDef } from '../model/types';
@@ -128,6 +129,7 @@ export function channelHover(r: ChannelResult): string {
     `Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** (${f.countsPerK(s.worst.countsPerKelvin)}) at ${f.celsius(s.worst.celsius)}` +
       (c.resolutionKPerCount !== null ? `; required ${f.perCount(c.resolutionKPerCount)}` : ''),
     `Sensed voltage: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)}, a span of ${f.volts(spanV)} = ${f.percent(spanV / vref)} of the ${f.volts(vref)} reference (peak at ${f.percent(s.voltsMax / vref)}); codes ${s.codeMin} .. ${s.codeMax}`,
+    `Sensor faults (what the ADC reads):\n${describeFaults(sensorFaults(c, s.codeMin, s.codeMax)).map((l) => `- ${l}`).join('\n')}`,
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)} (θJA ${f.trimNumber(c.thetaJA, 4)} K/W)`,
     `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
     ...(r.budget ? [budgetHoverSection(r.budget)] : []),

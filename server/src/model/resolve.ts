@@ -445,11 +445,12 @@ function readAccuracy(r: BlockReader): number | null {
 
 /** Options of the generated conversion code; undefined when the channel gives none of them. */
 function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
-  if (!['output', 'code_error', 'code_method', 'float_variant'].some((n) => r.terms(n))) return undefined;
+  if (!['output', 'code_error', 'code_method', 'float_variant', 'optimise'].some((n) => r.terms(n))) return undefined;
   const unit = r.quantity('output', 0.01);
   const error = r.quantity('code_error', 0.02);
   const method = r.choice('code_method', 'auto') as CodegenSpec['method'];
   const floatVariant = r.choice('float_variant', 'no') === 'yes';
+  const optimise = r.terms('optimise') ? (r.choice('optimise', 'balanced') as NonNullable<CodegenSpec['optimise']>) : undefined;
   if (!unit || !error) return null;
   const at = (name: string) => r.fieldSpans[name] ?? r.ref.node.name.span;
   const scale = Math.round(1 / unit.value);
@@ -461,7 +462,7 @@ function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
     r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${0.5 / scale} °C) to 100 °C; got ${error.value} °C`);
     return null;
   }
-  return { outputScale: scale, errorC: error.value, method, floatVariant };
+  return { outputScale: scale, errorC: error.value, method, floatVariant, ...(optimise ? { optimise } : {}) };
 }
 
 function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {

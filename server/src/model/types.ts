@@ -163,6 +163,8 @@ export interface CodegenSpec {
   /** Largest error allowed between the generated code and the model, degC. */
   errorC: number;
   method: 'auto' | 'table' | 'polynomial';
+  /** What auto favours (absent: balanced; left out when not written, so older spec hashes stay). */
+  optimise?: 'size' | 'speed' | 'balanced';
   /** Also emit a float function. */
   floatVariant: boolean;
 }

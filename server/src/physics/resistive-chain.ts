@@ -85,3 +85,20 @@ export function chainOhmsAt(ch: ResistiveChain, volts: number): number {
   const r = rm - ch.leadOhms;
   return r > 0 ? r : NaN;
 }
+
+/**
+ * Voltage at the ADC pin with the sensor open (R -> infinity) or shorted (R = 0, the uncompensated
+ * leads still in series), before the converter's limits. null: an open sensor on a current source,
+ * whose output then rises to its compliance voltage, which this model does not know. Limits of the
+ * same Ohm's-law and divider equations as chainAt.
+ */
+export function chainFaultVolts(ch: ResistiveChain): { open: number | null; short: number } {
+  const e = ch.excitation;
+  const out = (v: number) => ch.gain * v + ch.offsetVolts;
+  if (e.kind === 'current') return { open: null, short: out(e.amps * ch.leadOhms) };
+  const vs = ch.dividerVolts ?? e.supply;
+  const sum = e.ohms + ch.leadOhms;
+  return e.position === 'above'
+    ? { open: out(vs), short: out(sum > 0 ? (vs * ch.leadOhms) / sum : 0) }
+    : { open: out(0), short: out(sum > 0 ? (vs * e.ohms) / sum : vs) };
+}

@@ -1,6 +1,7 @@
 // The machine-readable report: per file its diagnostics (0-based line/character ranges) and, per
 // channel, the sweep, a summary and every resolved input in base SI units, so that a report can be
 // checked independently of this tool.
+import { sensorFaults } from '../sensors/faults';
 import type { Analysis } from '../engine';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelResult } from '../analysis/types';
@@ -67,6 +68,8 @@ export function channelJson(r: ChannelResult) {
       sourceOhmsMax: s.sourceOhmsMax,
       nonlinearity: s.nonlinearity,
     },
+    // Open and shorted sensor: the code each gives (volts null: driven to a source's compliance).
+    faults: sensorFaults(c, s.codeMin, s.codeMax).map((x) => ({ fault: x.kind, what: x.what, volts: x.volts, code: x.code, distinct: x.distinct, assumption: x.assumption })),
     // Error budget summary (budget/json.ts); null when it could not be computed.
     budget: r.budget ? budgetSummaryJson(r.budget) : null,
   };

@@ -56,7 +56,7 @@ describe('generateC (pure)', () => {
     ['NaN model', { celsiusAtCode: () => NaN }, /celsiusAtCode: gave NaN at code/],
     ['non-monotonic model', { celsiusAtCode: (c: number) => Math.sin(c / 10) }, /not monotonic/],
     ['throwing model', { celsiusAtCode: () => { throw new Error('boom'); } }, /threw at code \d+: boom/],
-    ['gain', { calibration: { mode: 'two-point', gain: 3, runtime: false } }, /calibration\.gain: must be in 0\.5\.\.2, got 3/],
+    ['gain', { calibration: { mode: 'two-point', gain: 3, runtime: false } }, /calibration\.gain: must be in 0\.5\.\.1\.4999, got 3/],
     ['unreachable target', { errorTarget: 0.006, method: 'polynomial' }, /cannot be met/],
   ];
   for (const [what, over, msg] of bad) {

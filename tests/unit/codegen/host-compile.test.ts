@@ -58,6 +58,9 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
     // model is the engine's exact inverse (analysis/inverse.ts), itself checked against published
     // equations in the physics and sensor tests.
     channels.push(...sampleChannels());
+    // The same channels with a coarse output unit (0.1 degC, 0.08 degC target): the kernel then
+    // carries internal fraction bits and rounds at the end, which must match the simulation too.
+    channels.push(...sampleChannels().map((c) => ({ ...c, channelName: `${c.channelName}.coarse`, outputScale: 10, errorTarget: 0.08 })));
     const src = generateC(channels, { fileStem: 'conv' });
     const hdr = generateC(channels, { fileStem: 'conv', header: true });
     const { plans } = planChannels(channels);
@@ -92,7 +95,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         retrimmed.set(name, list);
       }
     }
-  }, 180_000); // compiles and runs C: generous on a loaded machine
+  }, 300_000); // compiles and runs every code of every channel: generous on a shared machine
   afterAll(() => dir?.dispose());
 
   it('compiles without a warning and runs every code of every channel', () => {
@@ -132,7 +135,9 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
         if (got[code]!.f !== undefined) worstFloat = Math.max(worstFloat, Math.abs(got[code]!.f! - want));
       }
       console.log(`host gcc: ${c.channelName}: ${c.codeHigh - c.codeLow + 1} codes, max error ${worst.toFixed(4)} degC (target ${c.errorTarget})${c.floatVariant ? `, float variant ${worstFloat.toFixed(4)} degC` : ''}`);
-      expect(worst, c.channelName).toBeLessThanOrEqual(c.errorTarget);
+      // A straight line (`conversion = line`) is held to its own claimed error, not to the target.
+      const claimed = c.method === 'line' ? planChannels([c]).plans[0]!.maxErrorC + 1e-9 : c.errorTarget;
+      expect(worst, c.channelName).toBeLessThanOrEqual(claimed);
       // The float variant skips only the final integer rounding: within target plus one output unit.
       if (c.floatVariant) expect(worstFloat, c.channelName).toBeLessThanOrEqual(c.errorTarget + 1 / c.outputScale);
     }
@@ -156,7 +161,8 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
       }
       // Status names the temperature side: a falling channel's low codes are hot (2), a rising one's cold (1).
       const falling = c.celsiusAtCode(c.codeHigh) < c.celsiusAtCode(c.codeLow);
-      if (c.codeLow > 0) expect(got[0]!.status).toBe(falling ? 2 : 1);
+      // Code 0 may instead be a sensor fault (3) when a shorted or open sensor reads near it.
+      if (c.codeLow > 0) expect(c.faultBelow !== undefined && 0 <= c.faultBelow ? 3 : falling ? 2 : 1).toBe(got[0]!.status);
     }
   });
 

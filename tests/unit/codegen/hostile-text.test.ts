@@ -39,6 +39,12 @@ describe.skipIf(!haveGcc)('hostile text in generated C compiles as plain comment
       const ids = planChannels(channels).plans.map((p) => p.ident);
       dir.write(`c${k}.h`, hdr.text);
       dir.write(`c${k}.c`, src.text);
+      // A plain stem is named in the source's #include (any other stem gives self-contained blocks).
+      const included = /#include "([^"]*)"/.exec(src.text)?.[1];
+      if (included !== undefined) {
+        expect(included, JSON.stringify(c)).toMatch(/^[A-Za-z0-9_+-][A-Za-z0-9_.+-]*\.h$/);
+        dir.write(included, hdr.text);
+      }
       dir.write(`m${k}.c`, `#include "c${k}.h"\nint main(void)\n{\n    return 0;\n}\n`);
       const where = JSON.stringify(c);
       // Preprocessed text without comments: nothing of the injected code may remain.

@@ -68,4 +68,13 @@ describe('staleBlocks / staleDiagnostics', () => {
     const broken = c.replace('/* thermoscribe:end channel=coolant */', '');
     expect(() => staleBlocks(broken, a)).not.toThrow();
   });
+
+  it('reports a block of a channel the spec no longer defines as generated-orphan (#13 item 10)', () => {
+    const a = run(TEXT.replace('channel housing {', 'channel casing {'));
+    const d = staleDiagnostics(a, (p) => (p === conversionFilePath(SPEC) ? c : undefined));
+    expect(d.map((x) => [x.code, x.data?.channel])).toEqual([['generated-orphan', 'housing']]);
+    expect(d[0]!.message).toContain("pump_conversion.c holds a generated block for 'housing', a channel this spec does not define");
+    // Without the spec's files (the caller cannot say which channels it defines): no orphan.
+    expect(staleDiagnostics({ path: a.path, channels: a.channels }, (p) => (p === conversionFilePath(SPEC) ? c : undefined))).toEqual([]);
+  });
 });

@@ -50,12 +50,12 @@ describe('issue #17 item 12: links, read-only files and modes', () => {
     expect(gen('pump.tsense').code).toBe(0);
     fs.mkdirSync(at('real'));
     fs.renameSync(at('pump_conversion.c'), at('real/conv.c'));
-    fs.writeFileSync(at('real/conv.c'), read('real/conv.c').replace('#define COOLANT_SCALE 10 ', '#define COOLANT_SCALE 99 '));
+    fs.writeFileSync(at('real/conv.c'), read('real/conv.c').replace('Channel coolant: 10-bit', 'Channel coolant: 99-bit'));
     fs.symlinkSync('real/conv.c', at('pump_conversion.c'));
     const r = gen('pump.tsense');
     expect(r.code).toBe(0);
     expect(fs.lstatSync(at('pump_conversion.c')).isSymbolicLink()).toBe(true);
-    expect(read('real/conv.c')).toContain('#define COOLANT_SCALE 10 ');
+    expect(read('real/conv.c')).toContain('Channel coolant: 10-bit');
     expect(temps()).toEqual([]);
   });
 

@@ -1,7 +1,12 @@
-// thermoscribe check FILE... [--format text|json|sarif] [--root DIR]
+// thermoscribe check FILE... [--format text|json|sarif] [--root DIR] [--code FILE.c]
+// Also compares the generated conversion code with each spec: the `<stem>_conversion.c` beside it,
+// or the file named with --code (generated-stale, generated-orphan).
 // Exit 0 when clean, 1 when any error-severity diagnostic, 2 when an input is unusable.
 import * as path from 'node:path';
 import { analyse, type Analysis } from '../../engine';
+import { conversionFilePath } from '../../codegen/channel-input';
+import { staleDiagnostics } from '../../codegen/stale';
+import type { Diagnostic } from '../../checks/diagnostic';
 import { analysisJson, diagnosticJson, REPORT_VERSION } from '../../report/json';
 import { sarifLog } from '../../report/sarif';
 import { parseArgs, type ParsedArgs } from '../args';
@@ -9,7 +14,7 @@ import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic } from '../text';
 import { VERSION } from '../version';
 
-export const CHECK_USAGE = 'thermoscribe check FILE... [--format text|json|sarif] [--root DIR]';
+export const CHECK_USAGE = 'thermoscribe check FILE... [--format text|json|sarif] [--root DIR] [--code FILE.c]';
 
 export function loadAnalyses(files: string[], rootOpt: string | undefined, io: CliIO, host: DiskHost): Analysis[] | string {
   const out: Analysis[] = [];
@@ -38,7 +43,7 @@ export function analyseOne(args: ParsedArgs, io: CliIO, host: DiskHost): Analysi
 }
 
 export function runCheck(argv: string[], io: CliIO): number {
-  const args = parseArgs(argv, ['format', 'root']);
+  const args = parseArgs(argv, ['format', 'root', 'code']);
   if (typeof args === 'string') return usage(io, args);
   const format = (args.options.get('format') ?? 'text') as string;
   if (!['text', 'json', 'sarif'].includes(format)) return usage(io, `--format takes text, json or sarif (got '${format}')`);
@@ -50,7 +55,14 @@ export function runCheck(argv: string[], io: CliIO): number {
     io.err(`thermoscribe: ${analyses}\n`);
     return EXIT.unusable;
   }
-  const all = uniqueDiagnostics(analyses);
+  const code = args.options.get('code');
+  if (code === true) return usage(io, 'option --code needs a value');
+  const codeFiles = (a: Analysis) => (code !== undefined ? [path.resolve(io.cwd, code)] : [conversionFilePath(a.path)]);
+  // One --code file for several specs: a block of another spec is not an orphan, so orphans are
+  // looked for only when each spec has its own file.
+  const shared = code !== undefined && analyses.length > 1;
+  const generated = analyses.flatMap((a) => staleDiagnostics(shared ? { path: a.path, channels: a.channels } : a, (f) => host.read(f), codeFiles(a)));
+  const all = uniqueDiagnostics(analyses, generated);
   const indexOf = (file: string) => host.index(file);
   if (format === 'json') {
     io.out(JSON.stringify({ version: REPORT_VERSION, tool: { name: 'thermoscribe', version: VERSION }, analyses: analyses.map((a) => analysisJson(a, indexOf)), diagnostics: all.map((d) => diagnosticJson(d, indexOf(d.file))) }, null, 2) + '\n');
@@ -67,9 +79,9 @@ export function runCheck(argv: string[], io: CliIO): number {
 }
 
 /** A used file checked from two entry files reports its problems once. */
-function uniqueDiagnostics(analyses: Analysis[]) {
+function uniqueDiagnostics(analyses: Analysis[], extra: Diagnostic[] = []) {
   const seen = new Set<string>();
-  return analyses.flatMap((a) => a.diagnostics).filter((d) => {
+  return [...analyses.flatMap((a) => a.diagnostics), ...extra].filter((d) => {
     const key = `${d.file}:${d.span.start}:${d.span.end}:${d.code}:${d.message}`;
     if (seen.has(key)) return false;
     seen.add(key);

@@ -1,15 +1,22 @@
-// thermoscribe gen FILE [--channel NAME] [--out PATH] [--root DIR]
+// thermoscribe gen FILE [--channel NAME] [--out PATH] [--root DIR] [--prune] [--prefix NAME]
+// --prefix goes before every identifier generated (two specs with a same-named channel then link).
 // Writes the conversion code of every channel (or one) to PATH (default `<spec-stem>_conversion.c`
 // beside the spec) and the header beside it (same stem, `.h`). An existing file has only the
 // marked blocks replaced (blocks of channels not in it are added); hand-written code is kept.
-// Exit 0 when written, 1 when the spec has errors or a channel's code cannot be made as asked,
-// 2 when an input is unusable (bad arguments, unreadable spec, damaged markers, a write failing).
+// Channels with errors (in their block, their sensor's or their ADC's) or whose code cannot be made
+// as asked are left out and named with the reason; the clean ones are still written. Blocks of
+// channels the spec no longer has (orphans) are named, and removed only with --prune (which
+// removes every block this spec does not define: never prune a file that several specs share).
+// Exit 0 when written, 1 when a channel was left out (or none could be generated), 2 when an input
+// is unusable (bad arguments, unreadable spec, damaged markers, a write failing).
 // Both files are planned (and any damaged marker refused) before either is written.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { scanGeneratedBlocks, spliceGenerated } from '../../codegen/markers';
+import { orphanBlocks, scanGeneratedBlocks, spliceGenerated } from '../../codegen/markers';
+import { specChannelNames } from '../../codegen/stale';
 import { conversionFilePath, headerPathFor } from '../../codegen/channel-input';
-import { generateForSpec } from '../../codegen/spec';
+import { generateForSpec, splitChannels } from '../../codegen/spec';
+import { prefixProblem } from '../../codegen/generate';
 import { symbolClash } from '../../codegen/clash';
 import type { GenerateResult, SpliceBlock } from '../../codegen/types';
 import { parseArgs } from '../args';
@@ -20,7 +27,7 @@ import { readDisk } from '../../disk';
 import { shown } from '../../checks/shown';
 import { loadAnalyses } from './check';
 
-export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR]';
+export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR] [--prune] [--prefix NAME]';
 
 interface Planned {
   file: string;
@@ -30,13 +37,17 @@ interface Planned {
 }
 
 export function runGen(argv: string[], io: CliIO): number {
-  const args = parseArgs(argv, ['channel', 'out', 'root']);
+  const args = parseArgs(argv, ['channel', 'out', 'root', 'prefix']);
   if (typeof args === 'string') return usage(io, args);
   if (args.positional.length !== 1) return usage(io, 'name exactly one .tsense file');
   const channel = args.options.get('channel');
   const out = args.options.get('out');
   const root = args.options.get('root');
   if (channel === true || out === true || root === true) return usage(io, 'options --channel, --out and --root need a value');
+  const prefix = args.options.get('prefix');
+  if (prefix === true) return usage(io, 'option --prefix needs a value');
+  const badPrefix = prefix === undefined ? undefined : prefixProblem(prefix);
+  if (badPrefix) return usage(io, `--prefix ${badPrefix}`);
   if (out !== undefined && !/\.c$/.test(out)) return usage(io, `--out names the C source file and must end in .c (got '${out}'); the header is written beside it with .h`);
   const host = new DiskHost();
   const analyses = loadAnalyses(args.positional, root, io, host);
@@ -45,22 +56,22 @@ export function runGen(argv: string[], io: CliIO): number {
     return EXIT.unusable;
   }
   const a = analyses[0]!;
-  const errors = a.diagnostics.filter((d) => d.severity === 'error');
-  if (errors.length > 0) {
-    for (const d of errors) io.err(formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
-    io.err(`thermoscribe gen: the spec has ${errors.length} error${errors.length === 1 ? '' : 's'}; fix them first (nothing was written)\n`);
-    return EXIT.errors;
-  }
-  if (channel !== undefined && !a.channels.some((r) => r.channel.name === channel)) {
-    io.err(`thermoscribe gen: no channel '${shown(channel)}' in ${shown(path.basename(a.path))}; channels: ${a.channels.map((r) => r.channel.name).join(', ') || '(none)'}\n`);
+  if (channel !== undefined && !a.channels.some((r) => r.channel.name === channel) && !specChannelNames(a).has(channel)) {
+    io.err(`thermoscribe gen: no channel '${shown(channel)}' in ${shown(path.basename(a.path))}; channels: ${[...specChannelNames(a)].join(', ') || '(none)'}\n`);
     return EXIT.unusable;
   }
+  const split = splitChannels(a, channel);
+  const errors = a.diagnostics.filter((d) => d.severity === 'error');
+  if (split.leftOut.length > 0) for (const d of errors) io.err(formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
+  else if (errors.length > 0) io.err(`thermoscribe gen: note: the spec has ${errors.length} error${errors.length === 1 ? '' : 's'} outside the channels generated (run check)\n`);
   const cPath = out !== undefined ? path.resolve(io.cwd, out) : conversionFilePath(a.path);
   const hPath = headerPathFor(cPath);
   const stem = path.basename(cPath, '.c');
-  const gen = generateForSpec(a, { channel, fileStem: stem });
-  if (!gen.ok) {
-    io.err(`thermoscribe gen: ${gen.message} (nothing was written)\n`);
+  const gen = split.clean.length > 0 ? generateForSpec({ path: a.path, channels: split.clean }, { fileStem: stem, prefix }) : undefined;
+  const leftOut = [...split.leftOut, ...(gen?.leftOut ?? [])];
+  for (const l of leftOut) io.err(`thermoscribe gen: left out '${l.channel}': ${l.why}\n`);
+  if (!gen || !gen.ok) {
+    io.err(`thermoscribe gen: ${gen && !gen.ok ? `${gen.message}; ` : ''}no channel could be generated (nothing was written)\n`);
     return EXIT.errors;
   }
   for (const [file, result] of [[cPath, gen.source], [hPath, gen.header]] as const) {
@@ -71,9 +82,12 @@ export function runGen(argv: string[], io: CliIO): number {
       return EXIT.errors;
     }
   }
+  const prune = args.options.get('prune') === true;
+  const names = specChannelNames(a);
   const plans: Planned[] = [];
+  const orphans: string[] = [];
   for (const [file, result, header] of [[cPath, gen.source, false], [hPath, gen.header, true]] as const) {
-    const p = plan(file, result, header, gen.inputs.map((i) => i.channelName), gen.inputs.map((i) => i.specHash));
+    const p = plan(file, result, header, gen.inputs.map((i) => i.channelName), gen.inputs.map((i) => i.specHash), names, prune, orphans);
     if (typeof p === 'string') {
       io.err(`thermoscribe gen: ${p} (nothing was written)\n`);
       return EXIT.unusable;
@@ -91,12 +105,14 @@ export function runGen(argv: string[], io: CliIO): number {
     io.out(`${input.channelName}: ${ch.method}, ${ch.entries} ${ch.method === 'table' ? 'points' : 'segments'}, max error ${ch.maxErrorC.toFixed(4)} °C over codes ${input.codeLow}..${input.codeHigh} (target ${input.errorTarget} °C), about ${ch.bytesEstimate} bytes on an 8-bit AVR\n`);
   }
   for (const p of plans) io.out(`${p.changed ? (p.created ? 'created' : 'updated') : 'unchanged'} ${rel(io, p.file)}\n`);
+  for (const o of orphans) io.out(prune ? `removed ${o}\n` : `orphan ${o}: no channel of this name in the spec; remove it with --prune\n`);
+  if (leftOut.length > 0) io.out(`left out ${leftOut.length} channel${leftOut.length === 1 ? '' : 's'}: ${leftOut.map((l) => l.channel).join(', ')} (reasons above)\n`);
   io.out('Caution: generated from a design model; verify the channel against a calibrated reference before relying on it (see the file header).\n');
-  return EXIT.clean;
+  return leftOut.length > 0 ? EXIT.errors : EXIT.clean;
 }
 
 /** The new text of one file, or why it cannot be written. */
-function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[]): Planned | string {
+function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[], specNames: ReadonlySet<string>, prune: boolean, orphans: string[]): Planned | string {
   let existing: string | undefined;
   try {
     existing = fs.existsSync(file) ? fs.readFileSync(file, 'utf8') : undefined;
@@ -115,7 +131,9 @@ function plan(file: string, result: GenerateResult, header: boolean, names: stri
   const head = tail > 0 ? existing.slice(0, tail) : existing;
   const spliced = spliceGenerated(head, blocks);
   if (!spliced.ok) return `${file}: ${spliced.message}`;
-  let text = spliced.text;
+  const orphan = orphanBlocks(spliced.text, specNames, prune);
+  for (const b of orphan.orphans) orphans.push(`block '${b.channel}' in ${path.basename(file)}`);
+  let text = orphan.text;
   if (tail > 0) {
     const eol = /\r\n/.test(existing) ? '\r\n' : '\n';
     text = (text.endsWith(eol + eol) ? text : text + eol) + existing.slice(tail);

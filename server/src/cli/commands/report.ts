@@ -1,4 +1,5 @@
 // thermoscribe report FILE [--channel NAME] [--root DIR]: each channel's sweep as a table.
+import { describeFaults, sensorFaults } from '../../sensors/faults';
 import { parseArgs } from '../args';
 import { DiskHost, EXIT, type CliIO } from '../io';
 import { formatDiagnostic, table } from '../text';
@@ -45,6 +46,7 @@ export function channelReport(r: ChannelResult): string {
     `  sensed ${formatSI(s.voltsMin, 'V')} .. ${formatSI(s.voltsMax, 'V')}, codes ${s.codeMin} .. ${s.codeMax}, current ${formatSI(s.ampsMin, 'A')} .. ${formatSI(s.ampsMax, 'A')}`,
     `  worst resolution ${trimNumber(s.worst.celsiusPerCount, 3)} °C/count (${trimNumber(s.worst.countsPerKelvin, 3)} counts/K) at ${trimNumber(s.worst.celsius, 4)} °C`,
     `  self-heating up to ${trimNumber(s.selfHeatingMaxK * 1000, 3)} mK; straight-line error: end-point ${trimNumber(s.nonlinearity.endPointK, 3)} K, best fit ${trimNumber(s.nonlinearity.bestFitK, 3)} K`,
+    ...describeFaults(sensorFaults(c, s.codeMin, s.codeMax)).map((l) => `  fault: ${l}`),
     '',
   ];
   const rows = r.sweep.map((p) => [

@@ -14,6 +14,8 @@ import { TextDocument } from 'vscode-languageserver-textdocument';
 import { quickFixes, type FixEdit } from '../../features/quickfix';
 import { conversionFilePath, generatableChannels, generateForChannel } from '../../features/generate-code';
 import { blockAt } from '../../features/locate';
+import { headerPathFor } from '../../codegen/channel-input';
+import { scanGeneratedBlocks } from '../../codegen/markers';
 import type { ServerContext } from '../context';
 import { docForFile, toDiagnostic, toRange, toSpan } from '../convert';
 import { pathToUri, readDisk } from '../documents';
@@ -58,6 +60,22 @@ export function onCodeActions(ctx: ServerContext, params: CodeActionParams, lazy
     const data: GenerateData = { uri: doc.uri, channel: staleChannel };
     const action: CodeAction = { title: `Regenerate conversion code for ${staleChannel}`, kind: CodeActionKind.QuickFix, diagnostics: [stale], isPreferred: true, data };
     out.push(lazy ? action : onResolveCodeAction(ctx, action));
+  }
+  // Removing an orphan block (a channel the spec no longer defines) from the C file and its header.
+  for (const d of params.context.diagnostics) {
+    const od = d.data as { channel?: unknown; codeFile?: unknown } | undefined;
+    if (d.code !== 'generated-orphan' || typeof od?.channel !== 'string' || typeof od.codeFile !== 'string' || !wants(CodeActionKind.QuickFix)) continue;
+    const changes: Record<string, TextEdit[]> = {};
+    for (const file of [od.codeFile, headerPathFor(od.codeFile)]) {
+      const open = ctx.documents.byPath(file);
+      const text = open?.getText() ?? readDisk(file);
+      const b = text === undefined ? undefined : scanGeneratedBlocks(text).blocks.find((x) => x.channel === od.channel);
+      if (!b || text === undefined) continue;
+      const uri = open?.uri ?? pathToUri(file);
+      const td = TextDocument.create(uri, 'c', 0, text);
+      changes[uri] = [{ range: { start: td.positionAt(b.start), end: td.positionAt(b.end) }, newText: '' }];
+    }
+    if (Object.keys(changes).length > 0) out.push({ title: `Remove the generated block of '${od.channel}'`, kind: CodeActionKind.QuickFix, diagnostics: [d], edit: { changes } });
   }
   return out;
 }

@@ -1,0 +1,72 @@
+// Sensor faults: the ADC code an open or a shorted sensor gives in its channel's circuit, and
+// whether that code can be told from a code of the designed range. The voltages come from each
+// kind's own module (sensors/<kind>/faults.ts); this file only dispatches to them and turns
+// voltages into codes. Temporary dispatcher: the sensor-kind registry replaces the switch below.
+import { adcCode } from '../analysis/sweep';
+import type { ChannelDef } from '../model/types';
+import { junctionFaultVolts } from './junction/faults';
+import { rtdFaultVolts } from './rtd/faults';
+import { thermistorFaultVolts } from './thermistor/faults';
+
+/** One fault as a kind module describes it. */
+export interface FaultVolts {
+  kind: 'open' | 'short';
+  /** What breaks, in a few words ("open thermistor or lead"). */
+  what: string;
+  /**
+   * Voltage at the ADC pin, V, before the converter's limits; null: driven to a source's
+   * compliance voltage, taken as at or above the reference (full scale).
+   */
+  volts: number | null;
+  /** The assumption behind the figure, in one sentence. */
+  assumption: string;
+}
+
+export interface SensorFault extends FaultVolts {
+  /** ADC code the fault gives (0 .. 2^bits - 1). */
+  code: number;
+  /**
+   * false when a temperature of the range gives the same code (the code lies within the sweep's
+   * codes, the saturated end codes included): the firmware cannot tell the fault from it.
+   */
+  distinct: boolean;
+}
+
+function faultVolts(c: ChannelDef): FaultVolts[] {
+  switch (c.sensor.kind) {
+    case 'junction':
+      return junctionFaultVolts(c);
+    case 'thermistor':
+      return thermistorFaultVolts(c);
+    case 'rtd':
+      return rtdFaultVolts(c);
+  }
+}
+
+/**
+ * The in-range ADC codes a conversion may trust: the sweep's codes without the two ends of the
+ * converter's scale. Code 0 stands for every voltage below 1 LSB and code 2^bits - 1 for every one
+ * above (2^bits - 1) LSB, so a reading there may come from any temperature beyond (saturation).
+ * null when no code is left.
+ */
+export function usableCodes(bits: number, codeMin: number, codeMax: number): { low: number; high: number } | null {
+  const low = Math.max(codeMin, 1);
+  const high = Math.min(codeMax, 2 ** bits - 2);
+  return low <= high ? { low, high } : null;
+}
+
+/** The open and shorted sensor faults of a channel, with their codes, given its sweep's code span. */
+export function sensorFaults(c: ChannelDef, codeMin: number, codeMax: number): SensorFault[] {
+  const vref = c.adc.reference.value;
+  const top = 2 ** c.adc.bits - 1;
+  return faultVolts(c).map((f) => {
+    const code = f.volts === null || !Number.isFinite(f.volts) ? top : adcCode(f.volts, vref, c.adc.bits);
+    return { ...f, code, distinct: code < codeMin || code > codeMax };
+  });
+}
+
+/** One line per fault for hovers and reports: what breaks, its code, whether it stands apart, why. */
+export function describeFaults(faults: readonly SensorFault[]): string[] {
+  return faults.map((f) =>
+    `${f.what}: code ${f.code}${f.distinct ? '' : ' — a temperature of the range reads the same code, so the fault cannot be seen'} (assumes ${f.assumption})`);
+}
