@@ -3,7 +3,8 @@
 // Each reports bad input with the span of the offending term and returns null; never throws.
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
 import type { BiasDef, CalibrationSpec, MeasuredPoint, MonteCarloSpec } from '../model/types';
-import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from '../model/read-value';
+import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from '../model/read-value';
+import { PART_DOMAINS } from '../model/schema';
 import { readUnit } from '../model/units';
 import { shown } from '../checks/shown';
 
@@ -86,11 +87,9 @@ export function readTwoCurrentBias(terms: Term[], ctx: ReadContext): { first: Bi
   const tolOf = (q: QuantityTerm, v: number, dim: 'current' | 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
   if (head.text === 'currents') {
     if (!noExtra(terms, 4, ctx)) return null;
-    const i1 = readQuantityValue(a, 'current', ctx);
-    const i2 = readQuantityValue(b, 'current', ctx);
+    const i1 = readPart(a, PART_DOMAINS.biasCurrent, ctx);
+    const i2 = readPart(b, PART_DOMAINS.biasCurrent, ctx);
     if (i1 === null || i2 === null) return null;
-    if (!(i1 > 0)) return outOfDomain(ctx, a.span, 'a bias current must be above 0 A');
-    if (!(i2 > 0)) return outOfDomain(ctx, b.span, 'a bias current must be above 0 A');
     const t1 = tolOf(a, i1, 'current');
     const t2 = tolOf(b, i2, 'current');
     if (t1 === null || t2 === null) return null;
@@ -103,13 +102,10 @@ export function readTwoCurrentBias(terms: Term[], ctx: ReadContext): { first: Bi
   const from = terms[4];
   const v = terms[5];
   if (!from || from.kind !== 'word' || from.text !== 'from' || !v || v.kind !== 'quantity' || !noExtra(terms, 6, ctx)) return bad(ctx, span, hint);
-  const r1 = readQuantityValue(a, 'resistance', ctx);
-  const r2 = readQuantityValue(b, 'resistance', ctx);
-  const vs = readQuantityValue(v, 'voltage', ctx);
+  const r1 = readPart(a, PART_DOMAINS.biasResistor, ctx);
+  const r2 = readPart(b, PART_DOMAINS.biasResistor, ctx);
+  const vs = readPart(v, PART_DOMAINS.supply, ctx);
   if (r1 === null || r2 === null || vs === null) return null;
-  if (!(r1 > 0)) return outOfDomain(ctx, a.span, 'a bias resistor must be above 0 Ω');
-  if (!(r2 > 0)) return outOfDomain(ctx, b.span, 'a bias resistor must be above 0 Ω');
-  if (!(vs > 0 && vs <= 1000)) return outOfDomain(ctx, v.span, `the supply must be above 0 V and at most 1000 V (found ${shown(v.number.text)} V)`);
   const t1 = tolOf(a, r1, 'resistance');
   const t2 = tolOf(b, r2, 'resistance');
   const tv = tolOf(v, vs, 'voltage');

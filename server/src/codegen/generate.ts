@@ -89,7 +89,7 @@ function sample(c: ConversionInput): Samples {
       fail(c, 'celsiusAtCode', `threw at code ${c.codeLow + k}: ${(e as Error).message}`);
     }
     if (!Number.isFinite(v) || Math.abs(v) > 10000)
-      fail(c, 'celsiusAtCode', `gave ${v} at code ${c.codeLow + k}; expected a finite temperature within +-10000 degC`);
+      fail(c, 'celsiusAtCode', `ADC code ${c.codeLow + k} maps to no temperature the sensor gives within 50 K of the channel's range (a count is too coarse or the reference too far above the sensed voltage); use more bits or a reference nearer the sensed voltage`);
     f[k] = v * c.outputScale;
     if (Math.abs(f[k]!) > 2 ** 30) fail(c, 'outputScale', `scaled temperature ${f[k]} at code ${c.codeLow + k} exceeds 2^30`);
   }

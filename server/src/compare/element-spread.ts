@@ -4,6 +4,7 @@
 // RTD: R0 (the stated r0 tolerance plus the class's a, as a relative R0 error a x A) and the slope
 // (the class's b as a relative error of A, since a change e of A moves the reading by about e t):
 // our reading of the IEC 60751 class formula a + b|t| as two physical spreads.
+import { trimNumber } from '../model/read-value';
 import type { RtdDef, ThermistorDef } from '../model/types';
 import { betaToSteinhartHart } from '../physics/steinhart-hart';
 import { RTD_CLASSES } from '../physics/callendar-van-dusen';
@@ -15,7 +16,7 @@ export interface ElementContributor {
   amount: number;
 }
 
-const pct = (r: number) => `± ${String(Number((r * 100).toPrecision(3)))} %`;
+const pct = (r: number) => `± ${trimNumber(r * 100, 3)} %`;
 
 export function elementContributors(s: ThermistorDef | RtdDef): ElementContributor[] {
   const out: ElementContributor[] = [];

@@ -3,6 +3,7 @@
 // The channel's chain inverts resistance exactly (analysis/inverse.ts), so an element-resistance
 // error maps to the same temperature error whatever the circuit: the error is
 // T_model(R_true(T)) - T. Circuit and ADC errors are the error budget's (server/src/budget).
+import { trimNumber } from '../model/read-value';
 import type { ChannelDef } from '../model/types';
 import { elementAt } from '../analysis/sense';
 import { shKelvinAt } from '../physics/steinhart-hart';
@@ -72,5 +73,5 @@ export function sensorSpread(c: ChannelDef): SensorSpread | null {
 }
 
 function trim(v: number): string {
-  return String(Number(v.toPrecision(3)));
+  return trimNumber(v, 3);
 }

@@ -293,6 +293,6 @@ function valueText(q: QuantityTerm, m: Meaning): string | null {
 /** A base-unit number: plain for moderate magnitudes, exponent form (1e-4) otherwise. */
 function baseNumber(v: number): string {
   const abs = Math.abs(v);
-  if (v === 0 || (abs >= 1e-3 && abs < 1e7)) return String(Number(v.toPrecision(6)));
+  if (v === 0 || !Number.isFinite(v) || (abs >= 1e-3 && abs < 1e7) || abs >= 1e100) return f.trimNumber(v, 6);
   return Number(v.toPrecision(6)).toExponential().replace('e+', 'e');
 }

@@ -34,7 +34,7 @@ export function rangeEndOhms(a: Analysis, s: ThermistorDef | RtdDef): { channel:
   }));
 }
 
-const sci = (v: number) => (v === 0 ? '0' : Number(v.toPrecision(5)).toExponential().replace('e+', 'e'));
+const sci = (v: number) => (v === 0 || !Number.isFinite(v) ? f.trimNumber(v, 5) : Number(v.toPrecision(5)).toExponential().replace('e+', 'e'));
 const tol = (t: number) => (t ? ` ± ${f.percent(t)}` : '');
 const dissipation = (thetaJA: number) => `dissipation constant ${f.formatSI(1 / thetaJA, 'W/K')} (${f.trimNumber(thetaJA, 4)} K/W)`;
 

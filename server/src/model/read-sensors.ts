@@ -4,7 +4,8 @@
 import type { QuantityTerm, Term } from '../syntax/ast';
 import type { BlockReader, Resolution } from './resolve';
 import type { AdcDef, BiasDef, RtdDef, SensorDef, ThermistorDef, Toleranced, WiringDef } from './types';
-import { noExtra, readQuantityValue, readTolerance, spanOf, trimNumber, formatSI } from './read-value';
+import { checkDomain, noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, formatSI } from './read-value';
+import { BLOCKS, fieldSpec, PART_DOMAINS, type FieldForm } from './schema';
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { betaToSteinhartHart, fitSteinhartHart, shMonotonicMessage, shResistanceAt, type ShCoefficients } from '../physics/steinhart-hart';
@@ -68,14 +69,9 @@ function readPoint(r: BlockReader, name: string): [number, number] | null | unde
     r.ok = false;
     return null;
   }
-  const k = readQuantityValue(t, 'temperature', r.ctx(name));
-  const ohms = readQuantityValue(q, 'resistance', r.ctx(name));
+  const k = readPart(t, PART_DOMAINS.temperature, r.ctx(name));
+  const ohms = readPart(q, PART_DOMAINS.pointResistance, r.ctx(name));
   if (k === null || ohms === null) return (r.ok = false), null;
-  if (!(k > 0) || !(ohms > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, spanOf(terms), `${name}: the temperature must be above 0 K and the resistance above 0 Ω`);
-    r.ok = false;
-    return null;
-  }
   return [k, ohms];
 }
 
@@ -91,8 +87,8 @@ function readBeta(r: BlockReader): Toleranced | null | undefined {
   }
   const k = q.unit ? readQuantityValue(q, 'temperature', r.ctx('beta'), true) : q.number.value;
   if (k === null) return (r.ok = false), null;
-  if (!(k >= 100 && k <= 20000)) {
-    r.sink.report('out-of-domain', r.ref.file, q.span, `beta must be from 100 K to 20000 K (found ${trimNumber(k, 6)} K); NTC thermistors sit around 3000 K to 5000 K`);
+  const form = fieldSpec(BLOCKS.thermistor, 'beta')!.form as Extract<FieldForm, { form: 'quantity' }>;
+  if (!checkDomain(k, form, q.span, r.ctx('beta'), () => `${trimNumber(k, 6)} K; NTC thermistors sit around 3000 K to 5000 K`)) {
     r.ok = false;
     return null;
   }
@@ -126,11 +122,7 @@ export function readThermistor(r: BlockReader, base: Base): ThermistorDef | null
     const b = readBeta(r);
     const r25q = r.quantity('r25');
     const br = r.range('beta_range', [T25, 85 + ZERO_C]);
-    if (r25q && !(r25q.value >= 1 && r25q.value <= 1e8)) {
-      r.sink.report('out-of-domain', r.ref.file, r25q.span, `r25 must be from 1 Ω to 100 MΩ (found ${formatSI(r25q.value, 'Ω')})`);
-      r.ok = false;
-    }
-    if (b && r25q && br && r.ok) {
+      if (b && r25q && br && r.ok) {
       coeffs = betaToSteinhartHart(r25q.value, b.value, T25);
       r25 = r25q;
       beta = { ...b, lowK: br.low, highK: br.high };
@@ -187,10 +179,6 @@ export function readRtd(r: BlockReader, base: Base): RtdDef | null {
   const element = r.terms('element') ? (r.choice('element', 'film') as 'film' | 'wire') : null;
   const rated = r.range('rated', [CVD_LOW_C + ZERO_C, CVD_HIGH_C + ZERO_C]);
   const theta = readDissipation(r, 2.5e-3);
-  if (r0 && !(r0.value >= 1 && r0.value <= 1e6)) {
-    r.sink.report('out-of-domain', r.ref.file, r0.span, `r0 must be from 1 Ω to 1 MΩ (found ${formatSI(r0.value, 'Ω')}); a Pt100 has 100, a Pt1000 1000`);
-    r.ok = false;
-  }
   if (!r.ok || !r0 || !A || !B || !C || !rated || theta === null) return null;
   const k = { A: A.value, B: B.value, C: C.value };
   // The curve must rise over the rated range (dR/dt > 0) for the reading to have one temperature.
@@ -252,17 +240,9 @@ export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
   };
   const [, rq, pos, from, vq] = terms;
   if (!rq || rq.kind !== 'quantity' || !pos || pos.kind !== 'word' || (pos.text !== 'above' && pos.text !== 'below') || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, 5, ctx)) return bad();
-  const ohms = readQuantityValue(rq, 'resistance', ctx);
-  const volts = readQuantityValue(vq, 'voltage', ctx);
+  const ohms = readPart(rq, PART_DOMAINS.biasResistor, ctx);
+  const volts = readPart(vq, PART_DOMAINS.supply, ctx);
   if (ohms === null || volts === null) return (r.ok = false), null;
-  if (!(ohms >= 1e-3) || ohms > 1e9) {
-    r.sink.report('out-of-domain', r.ref.file, rq.span, `divider resistor must be from 1 mΩ to 1 GΩ (found ${shown(rq.number.text)})`);
-    return (r.ok = false), null;
-  }
-  if (!(volts > 0) || volts > 1000) {
-    r.sink.report('out-of-domain', r.ref.file, vq.span, `divider supply must be above 0 V and at most 1000 V (found ${shown(vq.number.text)} V)`);
-    return (r.ok = false), null;
-  }
   const tol = (q: QuantityTerm, v: number, dim: 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
   const rt = tol(rq, ohms, 'resistance');
   const vt = tol(vq, volts, 'voltage');
@@ -367,15 +347,8 @@ export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias
     } else {
       const g = r.quantity('gain', 1);
       const o = r.quantity('offset', 0);
-      if (g && o) {
-        if (!(g.value > 0) || g.value > 10000) {
-          r.sink.report('out-of-domain', file, g.span, `gain must be above 0 and at most 10000 (found ${trimNumber(g.value, 6)})`);
-          r.ok = false;
-        } else if (Math.abs(o.value) > 1000) {
-          r.sink.report('out-of-domain', file, o.span, `offset must be within ±1000 V (found ${trimNumber(o.value, 6)} V)`);
-          r.ok = false;
-        } else out.amplifier = { gain: g.value, offsetVolts: o.value };
-      }
+      // Domains (schema.ts) are checked as they are read.
+      if (g && o) out.amplifier = { gain: g.value, offsetVolts: o.value };
     }
   }
   const wiring = readWiring(r);

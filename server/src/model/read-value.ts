@@ -3,7 +3,7 @@
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
 import type { DiagnosticSink } from '../checks/diagnostic';
 import { DIMENSION_WORDS, readUnit, type Dimension, type UnitInfo } from './units';
-import type { FieldForm } from './schema';
+import { PART_DOMAINS, type FieldForm } from './schema';
 import type { Toleranced } from './types';
 import { shown } from '../checks/shown';
 
@@ -21,9 +21,17 @@ export function spanOf(terms: Term[]): Span {
   return { start: terms[0]!.span.start, end: terms[terms.length - 1]!.span.end };
 }
 
+/**
+ * What every output shows for a figure that could not be computed: trimNumber, fixedNumber and
+ * formatSI are the one way figures reach users (text, hover, report, comparison, plot labels), and
+ * none of them can show NaN, Infinity or -0. JSON keeps numbers (JSON.stringify writes null for a
+ * non-finite one, so it stays valid JSON).
+ */
+export const NO_FIGURE = 'n/a';
+
 /** Formats a base-unit value for messages: 4700 ohm -> "4.7 kΩ". */
 export function formatSI(value: number, unit: string, digits = 3): string {
-  if (!Number.isFinite(value)) return String(value);
+  if (!Number.isFinite(value)) return NO_FIGURE;
   if (value === 0) return `0 ${unit}`;
   const prefixes: [number, string][] = [[1e9, 'G'], [1e6, 'M'], [1e3, 'k'], [1, ''], [1e-3, 'm'], [1e-6, 'µ'], [1e-9, 'n'], [1e-12, 'p'], [1e-15, 'f'], [1e-18, 'a']];
   const abs = Math.abs(value);
@@ -33,8 +41,20 @@ export function formatSI(value: number, unit: string, digits = 3): string {
   return `${value.toExponential(digits - 1)} ${unit}`;
 }
 
+/** `digits` significant digits, no trailing zeros; never NaN, Infinity or -0. */
 export function trimNumber(v: number, digits: number): string {
-  return String(Number(v.toPrecision(digits)));
+  if (!Number.isFinite(v)) return NO_FIGURE;
+  const r = Number(v.toPrecision(digits));
+  // Only a value far outside every stated domain gets here; its digits would say nothing.
+  if (Math.abs(r) >= 1e100) return r > 0 ? 'over 1e99' : 'below -1e99';
+  return r === 0 ? '0' : String(r);
+}
+
+/** A fixed number of decimals (table columns); never NaN, Infinity or -0. */
+export function fixedNumber(v: number, decimals: number): string {
+  if (!Number.isFinite(v)) return NO_FIGURE;
+  const s = v.toFixed(decimals);
+  return /^-0(\.0*)?$/.test(s) ? s.slice(1) : s;
 }
 
 function unitOf(term: QuantityTerm, ctx: ReadContext): UnitInfo | null {
@@ -111,7 +131,8 @@ export function readTolerance(tol: QuantityTerm, nominal: number, dimension: Dim
     rel = Math.abs(abs / nominal);
   }
   if (!(rel >= 0) || rel >= 1) {
-    ctx.sink.report('out-of-domain', ctx.file, tol.span, `${ctx.field}: a tolerance must be from 0 % to below 100 % (found ${trimNumber(rel * 100, 4)} %)`);
+    const found = rel * 100 < 1e6 ? `${trimNumber(rel * 100, 4)} %` : shortText(tol.number.text) + (tol.unit ? ` ${tol.unit.text}` : '');
+    ctx.sink.report('out-of-domain', ctx.file, tol.span, `${ctx.field}: a tolerance must be from 0 % to below 100 % (found ${found})`);
     return null;
   }
   return rel;
@@ -122,20 +143,29 @@ const BASE_UNIT: Record<Dimension, string> = {
   'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
 };
 
+/** A quantity's domain in words: "from 1 to 1000000 Ω", "above 0 and at most 1". */
+export function describeDomain(form: QuantityForm): string {
+  const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
+  const kind = form.integer ? 'a whole number ' : '';
+  return form.minInclusive ? `${kind}from ${form.min} to ${form.max}${base}` : `${kind}above ${form.min} and at most ${form.max}${base}`;
+}
+
 /** Checks the domain of a quantity field and reports a precise range when it is outside. */
 /** `shown` gives the value as written, for the message (made only when there is one). */
 export function checkDomain(value: number, form: QuantityForm, span: Span, ctx: ReadContext, shown: () => string): boolean {
-  const lowOk = form.min === undefined || (form.minInclusive ? value >= form.min : value > form.min);
-  const highOk = form.max === undefined || value <= form.max;
+  const lowOk = form.minInclusive ? value >= form.min : value > form.min;
+  const highOk = value <= form.max;
   const intOk = !form.integer || Number.isInteger(value);
   if (lowOk && highOk && intOk) return true;
-  const parts: string[] = [];
-  if (form.min !== undefined) parts.push(form.minInclusive ? `at least ${form.min}` : `above ${form.min}`);
-  if (form.max !== undefined) parts.push(`at most ${form.max}`);
-  const kind = form.integer ? 'a whole number ' : '';
-  const base = BASE_UNIT[form.dimension] ? ` ${BASE_UNIT[form.dimension]}` : '';
-  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${kind}${parts.join(' and ')}${base} (found ${shown()})`);
+  ctx.sink.report('out-of-domain', ctx.file, span, `${ctx.field} must be ${describeDomain(form)} (found ${shown()})`);
   return false;
+}
+
+/** A value inside a phrase or range read in its stated domain (schema.ts PART_DOMAINS); null when outside (reported). */
+export function readPart(term: QuantityTerm, domain: QuantityForm, ctx: ReadContext): number | null {
+  const value = readQuantityValue(term, domain.dimension, ctx, domain.difference ?? false);
+  if (value === null) return null;
+  return checkDomain(value, domain, term.span, ctx, () => showValue(value, term, domain.dimension)) ? value : null;
 }
 
 /** Reads a quantity field, with its optional tolerance. */
@@ -148,7 +178,7 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
   if (!noExtra(terms, 1, ctx)) return null;
   const value = readQuantityValue(first, form.dimension, ctx, form.difference ?? false);
   if (value === null) return null;
-  if (!checkDomain(value, form, first.span, ctx, () => showValue(value, first))) return null;
+  if (!checkDomain(value, form, first.span, ctx, () => showValue(value, first, form.dimension))) return null;
   let tolerance = 0;
   if (first.tolerance) {
     if (!form.tolerance) {
@@ -162,9 +192,17 @@ export function readQuantityField(terms: Term[], form: QuantityForm, ctx: ReadCo
   return { value, tolerance, span: first.span };
 }
 
-function showValue(value: number, term: QuantityTerm): string {
-  const text = shown(term.number.text) + (term.unit ? ` ${shown(term.unit.text)}` : '');
-  return value === term.number.value ? text : `${text} = ${trimNumber(value, 6)}`;
+function showValue(value: number, term: QuantityTerm, dimension?: Dimension): string {
+  const text = shortText(shown(term.number.text)) + (term.unit ? ` ${shown(term.unit.text)}` : '');
+  const base = dimension && BASE_UNIT[dimension] ? ` ${BASE_UNIT[dimension]}` : '';
+  // The value in base units only where it reads as a figure (a far-out value is shown as written).
+  const readable = value === 0 || (Math.abs(value) >= 1e-15 && Math.abs(value) < 1e15);
+  return value === term.number.value || !readable ? text : `${text} = ${trimNumber(value, 6)}${base}`;
+}
+
+/** A number as written, shortened when very long (a 100,000-digit value is not echoed in full). */
+function shortText(text: string): string {
+  return text.length > 24 ? `${text.slice(0, 20)}…` : text;
 }
 
 export function noExtra(terms: Term[], used: number, ctx: ReadContext): boolean {
@@ -183,13 +221,11 @@ export function readRange(terms: Term[], dimension: Dimension, ctx: ReadContext)
   }
   if (!noExtra(terms, 1, ctx)) return null;
   const lowTerm: QuantityTerm = t.low.unit || !t.high.unit ? t.low : { ...t.low, unit: t.high.unit };
-  const low = readQuantityValue(lowTerm, dimension, ctx);
-  const high = readQuantityValue(t.high, dimension, ctx);
+  const domain = dimension === 'temperature' ? PART_DOMAINS.temperature : dimension === 'current' ? PART_DOMAINS.currentBound : null;
+  const read = (q: QuantityTerm) => (domain ? readPart(q, domain, ctx) : readQuantityValue(q, dimension, ctx));
+  const low = read(lowTerm);
+  const high = read(t.high);
   if (low === null || high === null) return null;
-  if (dimension === 'temperature' && low <= 0) {
-    ctx.sink.report('out-of-domain', ctx.file, t.low.span, `${ctx.field}: a temperature must be above 0 K (absolute zero); found ${trimNumber(low, 6)} K`);
-    return null;
-  }
   if (!(high > low)) {
     ctx.sink.report('out-of-domain', ctx.file, t.span, `${ctx.field}: the upper end must be above the lower end`);
     return null;

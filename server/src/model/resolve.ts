@@ -5,10 +5,10 @@ import { pieceOrigin } from '../syntax/parse';
 import { contentToken, movedCopy, sameContent } from './moved';
 import { shiftOffsets } from '../syntax/shift';
 import { DiagnosticSink } from '../checks/diagnostic';
-import { BLOCKS, blockSpec, kindWithArticle, fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
+import { BLOCKS, blockSpec, fieldSpec, kindWithArticle, PART_DOMAINS, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
 import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, RtdDef, ThermistorDef, Toleranced } from './types';
-import { noExtra, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
+import { noExtra, readPart, trimNumber, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readRtd, readSensorRef, readThermistor } from './read-sensors';
@@ -357,13 +357,8 @@ function readBias(r: BlockReader): BiasDef | null {
   if (head.text === 'current') {
     const q = terms[1];
     if (!q || q.kind !== 'quantity' || !noExtra(terms, 2, ctx)) return bad();
-    const amps = readQuantityValue(q, 'current', ctx);
+    const amps = readPart(q, PART_DOMAINS.biasCurrent, ctx);
     if (amps === null) return (r.ok = false), null;
-    if (!(amps > 0)) {
-      r.sink.report('out-of-domain', r.ref.file, q.span, `bias current must be above 0 A (found ${shown(q.number.text)}${q.unit ? ' ' + q.unit.text : ''})`);
-      r.ok = false;
-      return null;
-    }
     const t = tol(q, amps, 'current');
     if (t === null) return (r.ok = false), null;
     return { kind: 'current', amps: { value: amps, tolerance: t, span: q.span }, span };
@@ -373,17 +368,9 @@ function readBias(r: BlockReader): BiasDef | null {
     const from = terms[2];
     const vq = terms[3];
     if (!rq || rq.kind !== 'quantity' || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, 4, ctx)) return bad();
-    const ohms = readQuantityValue(rq, 'resistance', ctx);
-    const volts = readQuantityValue(vq, 'voltage', ctx);
+    const ohms = readPart(rq, PART_DOMAINS.biasResistor, ctx);
+    const volts = readPart(vq, PART_DOMAINS.supply, ctx);
     if (ohms === null || volts === null) return (r.ok = false), null;
-    if (!(ohms > 0)) {
-      r.sink.report('out-of-domain', r.ref.file, rq.span, `bias resistor must be above 0 Ω (found ${shown(rq.number.text)})`);
-      return (r.ok = false), null;
-    }
-    if (!(volts > 0) || volts > 1000) {
-      r.sink.report('out-of-domain', r.ref.file, vq.span, `bias supply must be above 0 V and at most 1000 V (found ${shown(vq.number.text)} V)`);
-      return (r.ok = false), null;
-    }
     const rt = tol(rq, ohms, 'resistance');
     const vt = tol(vq, volts, 'voltage');
     if (rt === null || vt === null) return (r.ok = false), null;
@@ -406,20 +393,22 @@ function readResolution(r: BlockReader): number | null {
   const [q, per, what] = terms;
   if (!q || q.kind !== 'quantity' || !per || per.kind !== 'word' || per.text !== 'per' || !what || (what.kind !== 'word' && what.kind !== 'unit')) return bad();
   if (!noExtra(terms, 3, r.ctx('resolution'))) return bad();
-  if (!(q.number.value > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, q.span, 'resolution must be above 0');
-    return (r.ok = false), null;
-  }
   const whatUnit = readUnit(what.text);
   if (typeof whatUnit === 'string') return bad();
   if (whatUnit.dimension === 'count') {
-    const k = readQuantityValue(q, 'temperature', r.ctx('resolution'), true);
+    const k = readPart(q, PART_DOMAINS.resolution, r.ctx('resolution'));
     return k === null ? ((r.ok = false), null) : k;
   }
   if (whatUnit.dimension === 'temperature') {
     const qUnit = q.unit ? readUnit(q.unit.text) : null;
     if (qUnit !== null && (typeof qUnit === 'string' || qUnit.dimension !== 'count')) return bad();
-    return whatUnit.scale / q.number.value;
+    const k = whatUnit.scale / q.number.value;
+    const d = PART_DOMAINS.resolution;
+    if (!(k >= d.min && k <= d.max)) {
+      r.sink.report('out-of-domain', r.ref.file, q.span, `resolution must be from ${1 / d.max} to ${1 / d.min} counts per kelvin (found ${q.number.text} per ${what.text})`);
+      return (r.ok = false), null;
+    }
+    return k;
   }
   return bad();
 }
@@ -434,12 +423,8 @@ function readAccuracy(r: BlockReader): number | null {
     r.ok = false;
     return null;
   }
-  const k = readQuantityValue(q, 'temperature', r.ctx('accuracy'), true);
+  const k = readPart(q, PART_DOMAINS.accuracy, r.ctx('accuracy'));
   if (k === null) return (r.ok = false), null;
-  if (!(k > 0)) {
-    r.sink.report('out-of-domain', r.ref.file, q.span, 'accuracy must be above 0');
-    return (r.ok = false), null;
-  }
   return k;
 }
 
@@ -455,11 +440,11 @@ function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
   const at = (name: string) => r.fieldSpans[name] ?? r.ref.node.name.span;
   const scale = Math.round(1 / unit.value);
   if (!(scale >= 1 && scale <= 10000 && Math.abs(1 / unit.value - scale) <= 1e-6 * scale)) {
-    r.sink.report('out-of-domain', r.ref.file, at('output'), `output must divide 1 °C into a whole number of units, 1 to 10000 (such as 0.01 °C or 0.05 °C); got ${unit.value} °C`);
+    r.sink.report('out-of-domain', r.ref.file, at('output'), `output must divide 1 °C into a whole number of units, 1 to 10000 (such as 0.01 °C or 0.05 °C); got ${trimNumber(unit.value, 6)} °C`);
     return null;
   }
   if (!(error.value >= 0.5 / scale && error.value <= 100)) {
-    r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${0.5 / scale} °C) to 100 °C; got ${error.value} °C`);
+    r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${trimNumber(0.5 / scale, 6)} °C) to 100 °C; got ${trimNumber(error.value, 6)} °C`);
     return null;
   }
   return { outputScale: scale, errorC: error.value, method, floatVariant, ...(optimise ? { optimise } : {}) };

@@ -6,7 +6,12 @@ import type { Dimension } from './units';
 export type BlockKind = 'junction' | 'thermistor' | 'rtd' | 'adc' | 'channel';
 
 export type FieldForm =
-  | { form: 'quantity'; dimension: Dimension; tolerance?: boolean; integer?: boolean; min?: number; minInclusive?: boolean; max?: number; difference?: boolean }
+  /**
+   * Every quantity states its sound domain, in base SI units: wide enough for every real part, narrow
+   * enough that no figure derived from it leaves the range of a double (common practice, no source).
+   * Outside it the value gets an out-of-domain diagnostic naming the range.
+   */
+  | { form: 'quantity'; dimension: Dimension; tolerance?: boolean; integer?: boolean; min: number; minInclusive?: boolean; max: number; difference?: boolean }
   | { form: 'range'; dimension: Dimension }
   | { form: 'choice'; options: string[] }
   /** `targets`, when given, lists every kind accepted (the channel's sensor: junction, thermistor or rtd). */
@@ -50,16 +55,16 @@ const junction: BlockSpec = {
   template: ['kind', 'IS', 'N', 'BF'],
   fields: [
     { name: 'kind', form: { form: 'choice', options: ['npn', 'pnp', 'diode'] }, defaultText: 'npn', doc: 'npn or pnp for a diode-connected transistor (base tied to collector; the terminal current includes the base current), diode for a plain junction diode.', example: 'kind = npn', optionDocs: { npn: 'Diode-connected NPN transistor (base tied to collector).', pnp: 'Diode-connected PNP transistor (base tied to collector).', diode: 'A plain junction diode.' } },
-    { name: 'IS', form: { form: 'quantity', dimension: 'current', min: 0, tolerance: true }, doc: 'Saturation current at TNOM (SPICE IS).', example: 'IS = 10 fA' },
+    { name: 'IS', form: { form: 'quantity', dimension: 'current', tolerance: true, min: 1e-24, minInclusive: true, max: 1e-3 }, doc: 'Saturation current at TNOM (SPICE IS).', example: 'IS = 10 fA' },
     { name: 'N', aliases: ['NF'], form: { form: 'quantity', dimension: 'dimensionless', min: 0.5, minInclusive: true, max: 4, tolerance: true }, defaultText: '1', doc: 'Emission coefficient (SPICE N for a diode, NF for a transistor), with an optional part-to-part spread (`N = 1.004 ± 0.2 %`).', example: 'N = 1.0' },
-    { name: 'BF', form: { form: 'quantity', dimension: 'dimensionless', min: 0, tolerance: true }, defaultText: '100', doc: 'Forward current gain (SPICE BF), with an optional spread (`BF = 200 ± 50 %`); ignored for a plain diode.', example: 'BF = 200' },
+    { name: 'BF', form: { form: 'quantity', dimension: 'dimensionless', tolerance: true, min: 0.1, minInclusive: true, max: 1e5 }, defaultText: '100', doc: 'Forward current gain (SPICE BF), with an optional spread (`BF = 200 ± 50 %`); ignored for a plain diode.', example: 'BF = 200' },
     { name: 'EG', form: { form: 'quantity', dimension: 'energy', min: 0.1, minInclusive: true, max: 5 }, defaultText: '1.11 eV', doc: 'Activation energy (SPICE EG); 1.11 eV for silicon.', example: 'EG = 1.11 eV' },
     { name: 'XTI', form: { form: 'quantity', dimension: 'dimensionless', min: -10, minInclusive: true, max: 20 }, defaultText: '3', doc: 'Saturation-current temperature exponent (SPICE XTI).', example: 'XTI = 3' },
     { name: 'XTB', form: { form: 'quantity', dimension: 'dimensionless', min: -10, minInclusive: true, max: 10 }, defaultText: '0', doc: 'Temperature exponent of BF (SPICE XTB).', example: 'XTB = 1.5' },
-    { name: 'TNOM', form: { form: 'quantity', dimension: 'temperature', min: 0 }, defaultText: '27 °C', doc: 'Temperature at which the parameters were extracted (SPICE TNOM; SPICE\'s default is 27 °C).', example: 'TNOM = 27 °C' },
-    { name: 'RS', form: { form: 'quantity', dimension: 'resistance', min: 0, minInclusive: true }, defaultText: '0 Ω', doc: 'Series resistance in the current path (diode RS; for a transistor fold RB/(1+BF) + RE in here).', example: 'RS = 1.5 ohm' },
+    { name: 'TNOM', form: { form: 'quantity', dimension: 'temperature', min: 173.15, minInclusive: true, max: 473.15 }, defaultText: '27 °C', doc: 'Temperature at which the parameters were extracted (SPICE TNOM; SPICE\'s default is 27 °C).', example: 'TNOM = 27 °C' },
+    { name: 'RS', form: { form: 'quantity', dimension: 'resistance', min: 0, minInclusive: true, max: 1e6 }, defaultText: '0 Ω', doc: 'Series resistance in the current path (diode RS; for a transistor fold RB/(1+BF) + RE in here).', example: 'RS = 1.5 ohm' },
     { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-55 °C .. 150 °C', doc: 'Junction temperature range the part is rated for.', example: 'rated = -55 °C .. 150 °C' },
-    { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true }, defaultText: '500 K/W', doc: 'Junction-to-ambient thermal resistance for self-heating. The default is a conservative figure for a small SOT-23 part on minimal copper (from memory).', example: 'theta_ja = 350 K/W' },
+    { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true, max: 1e5 }, defaultText: '500 K/W', doc: 'Junction-to-ambient thermal resistance for self-heating. The default is a conservative figure for a small SOT-23 part on minimal copper (from memory).', example: 'theta_ja = 350 K/W' },
   ],
 };
 
@@ -69,9 +74,9 @@ const adc: BlockSpec = {
   template: ['bits', 'reference'],
   fields: [
     { name: 'bits', form: { form: 'quantity', dimension: 'dimensionless', integer: true, min: 1, minInclusive: true, max: 24 }, doc: 'Resolution in bits (1 to 24).', example: 'bits = 12' },
-    { name: 'reference', form: { form: 'quantity', dimension: 'voltage', min: 0, tolerance: true }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
-    { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 0 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm', optional: true },
-    { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 0 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF', optional: true },
+    { name: 'reference', form: { form: 'quantity', dimension: 'voltage', tolerance: true, min: 1e-3, minInclusive: true, max: 1000 }, doc: 'Reference voltage (full scale), with an optional tolerance.', example: 'reference = 3.3 V ± 1 %' },
+    { name: 'max_source', form: { form: 'quantity', dimension: 'resistance', min: 1e-3, minInclusive: true, max: 1e12 }, doc: 'Highest source impedance the converter tolerates at its input (from its datasheet). Unchecked when absent.', example: 'max_source = 10 kohm', optional: true },
+    { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 1e-15, minInclusive: true, max: 1e-3 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF', optional: true },
     { name: 'offset_error', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Offset error of the converter in LSB (from its datasheet), for the error budget.', example: 'offset_error = ± 2 LSB' },
     { name: 'gain_error', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Gain (full-scale) error of the converter, relative, for the error budget.', example: 'gain_error = ± 0.2 %' },
     { name: 'inl', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Integral nonlinearity in LSB, for the error budget: a bound on every reading, calibration readings included. The worst case takes any value within it at each reading; the Monte Carlo draws one smooth curve of the code per board within it, so a calibration removes it at the calibration code.', example: 'inl = ± 1 LSB' },
@@ -88,25 +93,25 @@ const channel: BlockSpec = {
     { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
     { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %', words: ['resistor', 'resistors', 'current', 'currents', 'divider', 'above', 'below', 'from', 'and'] },
     { name: 'range', form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
-    { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
+    { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-4, minInclusive: true, max: 1000 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
     { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count', optional: true, words: ['per'] },
     { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C', optional: true },
-    { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true }, defaultText: 'the sensor\'s theta_ja', doc: 'Thermal resistance for this channel\'s mounting, overriding the sensor\'s.', example: 'theta_ja = 250 K/W' },
+    { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true, max: 1e5 }, defaultText: 'the sensor\'s theta_ja', doc: 'Thermal resistance for this channel\'s mounting, overriding the sensor\'s.', example: 'theta_ja = 250 K/W' },
     { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table', optionDocs: { table: 'Firmware converts codes through a generated table (model-exact).', line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } },
     { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: 'Sound window for the bias current (see bias-current-low/high).', example: 'current_window = 5 uA .. 500 uA' },
     { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C', words: ['none', 'one', 'two', 'point', 'points', 'at', 'and'] },
     { name: 'cal_reference', form: { form: 'phrase', syntax: '± t' }, defaultText: '± 0 °C (exact)', doc: 'Uncertainty of the reference thermometer each board is calibrated against (half-width, 0 to 10 K). The error budget passes it, with the quantisation and INL of the calibration readings, through the trim to every temperature.', example: 'cal_reference = ± 0.05 °C' },
     { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. On a junction channel the model is fitted to them (IS with one point; IS and N with two or more) and the error budget and generated code use the fitted model; a point that disagrees with the others is flagged and left out of that fit. Codes are whole numbers inside the converter scale (not 0 or full scale); thermistor and RTD channels do not use the points (a warning says so).', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C', optional: true, words: ['at', 'and'] },
     { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7', words: ['runs', 'seed', 'normal', 'uniform'] },
-    { name: 'output', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.01 °C', doc: 'Unit of the integer the generated conversion code returns: `0.01 °C` returns signed hundredths of a degree. 1 divided by it must be a whole number from 1 to 10000.', example: 'output = 0.1 °C' },
-    { name: 'code_error', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0 }, defaultText: '0.02 °C', doc: 'Largest error the generated conversion code may add to the model, checked at every in-range ADC code by simulating its integer arithmetic exactly. At least half an `output` unit.', example: 'code_error = 0.05 °C' },
+    { name: 'output', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-4, minInclusive: true, max: 1 }, defaultText: '0.01 °C', doc: 'Unit of the integer the generated conversion code returns: `0.01 °C` returns signed hundredths of a degree. 1 divided by it must be a whole number from 1 to 10000.', example: 'output = 0.1 °C' },
+    { name: 'code_error', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-4, minInclusive: true, max: 100 }, defaultText: '0.02 °C', doc: 'Largest error the generated conversion code may add to the model, checked at every in-range ADC code by simulating its integer arithmetic exactly. At least half an `output` unit.', example: 'code_error = 0.05 °C' },
     { name: 'code_method', form: { form: 'choice', options: ['auto', 'table', 'polynomial'] }, defaultText: 'auto', doc: 'How the generated code converts: `table` (points with linear interpolation), `polynomial` (piecewise quadratic) or `auto` (whichever meets `code_error` in fewer bytes).', example: 'code_method = table' },
     { name: 'optimise', form: { form: 'choice', options: ['size', 'speed', 'balanced'] }, defaultText: 'balanced', doc: 'What `code_method = auto` favours among the designs that meet `code_error`: `size` (fewest flash bytes), `speed` (fewest cycles per conversion: a table before a polynomial, fewer steps) or `balanced` (bytes plus estimated cycles, so a design a little larger but much faster wins).', example: 'optimise = speed' },
     { name: 'float_variant', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes to generate, beside the integer function, one returning a float in °C (no maths library needed).', example: 'float_variant = yes' },
     { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits', words: ['bits', 'bit'] },
     { name: 'ratiometric', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes when the ADC reference is the divider\'s own supply: the code then follows the divider ratio and the supply cancels. The divider supply must equal the ADC reference.', example: 'ratiometric = yes' },
-    { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between a thermistor or RTD and the ADC: V_adc = gain × V + offset.', example: 'gain = 20' },
-    { name: 'offset', form: { form: 'quantity', dimension: 'voltage' }, defaultText: '0 V', doc: 'Output offset of that amplifier, V (may be negative).', example: 'offset = -0.1 V' },
+    { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', min: 1e-3, minInclusive: true, max: 1e4 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between a thermistor or RTD and the ADC: V_adc = gain × V + offset.', example: 'gain = 20' },
+    { name: 'offset', form: { form: 'quantity', dimension: 'voltage', min: -1000, minInclusive: true, max: 1000 }, defaultText: '0 V', doc: 'Output offset of that amplifier, V (may be negative).', example: 'offset = -0.1 V' },
     { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm', words: ['wires', 'wire'] },
     { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge', optional: true },
   ],
@@ -117,12 +122,12 @@ const thermistor: BlockSpec = {
   doc: 'An NTC thermistor. Give its curve one way: `r25` and `beta` (the beta model), `sh_a`, `sh_b`, `sh_c` (Steinhart-Hart coefficients), or `point_1`..`point_3` (three measured points; the engine fits the Steinhart-Hart coefficients through them exactly).',
   template: ['r25', 'beta', 'dissipation'],
   fields: [
-    { name: 'r25', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 25 °C (R25), with its tolerance. Required with `beta`.', example: 'r25 = 10k ± 1 %', alternative: 'r25 and beta' },
-    { name: 'beta', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 0, tolerance: true }, doc: 'Beta constant in kelvin, with its tolerance: R(T) = R25 exp(beta (1/T - 1/298.15 K)).', example: 'beta = 3950 K ± 1 %', alternative: 'r25 and beta' },
+    { name: 'r25', form: { form: 'quantity', dimension: 'resistance', tolerance: true, min: 1, minInclusive: true, max: 1e8 }, doc: 'Resistance at 25 °C (R25), with its tolerance. Required with `beta`.', example: 'r25 = 10k ± 1 %', alternative: 'r25 and beta' },
+    { name: 'beta', form: { form: 'quantity', dimension: 'temperature', difference: true, tolerance: true, min: 100, minInclusive: true, max: 20000 }, doc: 'Beta constant in kelvin, with its tolerance: R(T) = R25 exp(beta (1/T - 1/298.15 K)).', example: 'beta = 3950 K ± 1 %', alternative: 'r25 and beta' },
     { name: 'beta_range', form: { form: 'range', dimension: 'temperature' }, defaultText: '25 °C .. 85 °C', doc: 'The two temperatures beta is specified between on the datasheet (beta 25/85 by default). The beta model is exact at 25 °C and keeps the datasheet\'s resistance ratio between these two; outside them its error grows.', example: 'beta_range = 25 °C .. 50 °C' },
-    { name: 'sh_a', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart A (1/K): 1/T = A + B ln R + C (ln R)^3 with R in ohms.', example: 'sh_a = 1.129e-3', alternative: 'Steinhart-Hart coefficients' },
-    { name: 'sh_b', form: { form: 'quantity', dimension: 'dimensionless', min: 0 }, doc: 'Steinhart-Hart B (1/K).', example: 'sh_b = 2.341e-4', alternative: 'Steinhart-Hart coefficients' },
-    { name: 'sh_c', form: { form: 'quantity', dimension: 'dimensionless' }, doc: 'Steinhart-Hart C (1/K).', example: 'sh_c = 8.775e-8', alternative: 'Steinhart-Hart coefficients' },
+    { name: 'sh_a', form: { form: 'quantity', dimension: 'dimensionless', min: -1, minInclusive: true, max: 1 }, doc: 'Steinhart-Hart A (1/K): 1/T = A + B ln R + C (ln R)^3 with R in ohms.', example: 'sh_a = 1.129e-3', alternative: 'Steinhart-Hart coefficients' },
+    { name: 'sh_b', form: { form: 'quantity', dimension: 'dimensionless', min: 0, max: 1 }, doc: 'Steinhart-Hart B (1/K).', example: 'sh_b = 2.341e-4', alternative: 'Steinhart-Hart coefficients' },
+    { name: 'sh_c', form: { form: 'quantity', dimension: 'dimensionless', min: -1, minInclusive: true, max: 1 }, doc: 'Steinhart-Hart C (1/K).', example: 'sh_c = 8.775e-8', alternative: 'Steinhart-Hart coefficients' },
     { name: 'point_1', form: { form: 'phrase', syntax: 'T R' }, doc: 'A measured point, temperature then resistance; give three (point_1, point_2, point_3) and the engine fits the Steinhart-Hart coefficients through them exactly.', example: 'point_1 = 0 °C 32.65k', alternative: 'three points' },
     { name: 'point_2', form: { form: 'phrase', syntax: 'T R' }, doc: 'The second measured point (see point_1).', example: 'point_2 = 25 °C 10k', alternative: 'three points' },
     { name: 'point_3', form: { form: 'phrase', syntax: 'T R' }, doc: 'The third measured point (see point_1).', example: 'point_3 = 70 °C 1.752k', alternative: 'three points' },
@@ -137,16 +142,42 @@ const rtd: BlockSpec = {
   doc: 'A platinum resistance thermometer (Pt100, Pt1000, any R0) following the Callendar-Van Dusen equation of IEC 60751.',
   template: ['r0', 'class'],
   fields: [
-    { name: 'r0', form: { form: 'quantity', dimension: 'resistance', min: 0, tolerance: true }, doc: 'Resistance at 0 °C: 100 for a Pt100, 1000 for a Pt1000, with an optional tolerance.', example: 'r0 = 1000' },
-    { name: 'cvd_a', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '3.9083e-3', doc: 'Callendar-Van Dusen A, 1/°C (IEC 60751 value by default).', example: 'cvd_a = 3.9083e-3' },
-    { name: 'cvd_b', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-5.775e-7', doc: 'Callendar-Van Dusen B, 1/°C² (IEC 60751 value by default).', example: 'cvd_b = -5.775e-7' },
-    { name: 'cvd_c', form: { form: 'quantity', dimension: 'dimensionless' }, defaultText: '-4.183e-12', doc: 'Callendar-Van Dusen C, 1/°C⁴, used below 0 °C (IEC 60751 value by default).', example: 'cvd_c = -4.183e-12' },
+    { name: 'r0', form: { form: 'quantity', dimension: 'resistance', tolerance: true, min: 1, minInclusive: true, max: 1e6 }, doc: 'Resistance at 0 °C: 100 for a Pt100, 1000 for a Pt1000, with an optional tolerance.', example: 'r0 = 1000' },
+    { name: 'cvd_a', form: { form: 'quantity', dimension: 'dimensionless', min: -0.1, minInclusive: true, max: 0.1 }, defaultText: '3.9083e-3', doc: 'Callendar-Van Dusen A, 1/°C (IEC 60751 value by default).', example: 'cvd_a = 3.9083e-3' },
+    { name: 'cvd_b', form: { form: 'quantity', dimension: 'dimensionless', min: -1e-3, minInclusive: true, max: 1e-3 }, defaultText: '-5.775e-7', doc: 'Callendar-Van Dusen B, 1/°C² (IEC 60751 value by default).', example: 'cvd_b = -5.775e-7' },
+    { name: 'cvd_c', form: { form: 'quantity', dimension: 'dimensionless', min: -1e-6, minInclusive: true, max: 1e-6 }, defaultText: '-4.183e-12', doc: 'Callendar-Van Dusen C, 1/°C⁴, used below 0 °C (IEC 60751 value by default).', example: 'cvd_c = -4.183e-12' },
     { name: 'class', form: { form: 'choice', options: ['AA', 'A', 'B', 'C'] }, doc: 'Tolerance class of IEC 60751: AA ±(0.1 + 0.0017|t|) °C, A ±(0.15 + 0.002|t|), B ±(0.3 + 0.005|t|), C ±(0.6 + 0.01|t|). Reported as a figure; unstated when absent.', example: 'class = A', optional: true, optionDocs: { AA: 'IEC 60751 class AA: ±(0.1 + 0.0017|t|) °C.', A: 'IEC 60751 class A: ±(0.15 + 0.002|t|) °C.', B: 'IEC 60751 class B: ±(0.3 + 0.005|t|) °C.', C: 'IEC 60751 class C: ±(0.6 + 0.01|t|) °C.' } },
     { name: 'element', form: { form: 'choice', options: ['film', 'wire'] }, doc: 'How the element is built: `film` (thin film) or `wire` (wire-wound). IEC 60751 specifies each tolerance class over a wider range for wire-wound elements; when absent the narrower film range is assumed.', example: 'element = wire', optional: true },
     { name: 'dissipation', form: { form: 'phrase', syntax: 'x mW/K' }, defaultText: '2.5 mW/K', doc: 'Self-heating constant: the power that warms the element 1 K. The default is a typical thin-film element in still air (from memory); in a stirred liquid it is many times higher.', example: 'dissipation = 2.5 mW/K' },
     { name: 'rated', form: { form: 'range', dimension: 'temperature' }, defaultText: '-200 °C .. 850 °C', doc: 'Temperature range the element is rated for (default: the range of the IEC 60751 equation).', example: 'rated = -50 °C .. 500 °C' },
   ],
 };
+
+type QuantityDomain = Extract<FieldForm, { form: 'quantity' }>;
+
+/**
+ * Sound domains of the values inside phrase fields and ranges (bias, points, resolution, accuracy,
+ * temperature ranges), in base SI units, checked with the same message as a quantity field.
+ * Engineering bounds wide enough for every real circuit (common practice, no source).
+ */
+export const PART_DOMAINS = {
+  /** A bias current: 1 pA to 1 A. */
+  biasCurrent: { form: 'quantity', dimension: 'current', min: 1e-12, minInclusive: true, max: 1 },
+  /** A bias or divider resistor: 1 mΩ to 1 GΩ. */
+  biasResistor: { form: 'quantity', dimension: 'resistance', min: 1e-3, minInclusive: true, max: 1e9 },
+  /** A supply rail: 1 mV to 1000 V (as the ADC reference). */
+  supply: { form: 'quantity', dimension: 'voltage', min: 1e-3, minInclusive: true, max: 1000 },
+  /** A measured point's resistance: 1 mΩ to 1 GΩ. */
+  pointResistance: { form: 'quantity', dimension: 'resistance', min: 1e-3, minInclusive: true, max: 1e9 },
+  /** Any temperature in a spec: 1 K to 1273.15 K (1000 °C; the IEC 60751 equation ends at 850 °C). */
+  temperature: { form: 'quantity', dimension: 'temperature', min: 1, minInclusive: true, max: 1273.15 },
+  /** A resolution, kelvin per count: 1 µK to 1000 K. */
+  resolution: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-6, minInclusive: true, max: 1000 },
+  /** An accuracy target: 1 mK to 1000 K. */
+  accuracy: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-3, minInclusive: true, max: 1000 },
+  /** The bounds of a current window: 1 pA to 1 A. */
+  currentBound: { form: 'quantity', dimension: 'current', min: 1e-12, minInclusive: true, max: 1 },
+} as const satisfies Record<string, QuantityDomain>;
 
 export const BLOCKS: Record<BlockKind, BlockSpec> = { junction, thermistor, rtd, adc, channel };
 

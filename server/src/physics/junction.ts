@@ -39,24 +39,26 @@ function finiteError(name: string, value: number, min?: number, minIncluded?: bo
 
 function satAmpsError(p: JunctionParams, kelvin: number): RangeError {
   return new RangeError(
-    `junction: IS(T) at ${kelvin} K leaves the double range (TNOM ${p.TNOM} K); temperature too far from TNOM`,
+    `the saturation current IS cannot be computed at ${kelvin.toPrecision(4)} K: too far from TNOM (${p.TNOM.toPrecision(5)} K) for a double`,
   );
 }
 
 function betaFError(p: JunctionParams, kelvin: number): RangeError {
-  return new RangeError(`junction: BF(T) at ${kelvin} K leaves the double range (XTB ${p.XTB})`);
+  return new RangeError(`the transistor's gain BF cannot be computed at ${kelvin.toPrecision(4)} K with XTB = ${p.XTB}: too far from TNOM for a double`);
 }
 
 function solverArgsError(isx: number, rt: number, nvt: number): RangeError {
-  return new RangeError(`solveResistorBiasAmps: need finite isx > 0 A, rt > 0 ohm, nvt > 0 V (got ${isx}, ${rt}, ${nvt})`);
+  void isx, rt, nvt;
+  return new RangeError('the resistor bias cannot be solved for these IS, N and bias values; check them against their stated ranges');
 }
 
 function solverOverflowError(): RangeError {
-  return new RangeError('solveResistorBiasAmps: rt/nvt, isx*rt/nvt or supply/nvt overflows a double');
+  return new RangeError('the resistor bias cannot be solved: the bias resistor or supply is too large for the junction\'s IS and N; check the bias');
 }
 
 function solverSupplyError(supply: number): RangeError {
-  return new RangeError(`solveResistorBiasAmps: supply must be a finite number >= 0 V (got ${supply})`);
+  void supply;
+  return new RangeError('the bias supply must be a voltage from 0 V to 1000 V');
 }
 
 function requireFinite(name: string, value: number, min: number, minIncluded: boolean, unit: string): void {

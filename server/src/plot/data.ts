@@ -68,6 +68,30 @@ export function plotData(result: ChannelResult, budget: BudgetResult | null | un
   return { channel: c.name, transfer, error: budget ? errorSeries(budget, notes) : null, notes };
 }
 
+/** Beyond this magnitude a figure is not drawn (chart scales and labels stay readable and finite). */
+const DRAWABLE = 1e12;
+
+/**
+ * Why the data cannot be drawn as asked (fewer than two finite points, or a figure too large for a
+ * chart), in the spec's words; null when it can. Checked before drawing, so nothing half-drawn is written.
+ */
+export function plotProblem(d: PlotData, chart: 'both' | 'transfer' | 'error'): string | null {
+  const ok = (a: number[]) => a.every((x) => Number.isFinite(x) && Math.abs(x) <= DRAWABLE);
+  const t = d.transfer;
+  if (chart !== 'error') {
+    if (t.celsius.length < 2) return `channel '${d.channel}' has fewer than two sweep points with a finite voltage to draw`;
+    if (!ok(t.volts) || !ok(t.celsius)) return `channel '${d.channel}': the sensed voltage leaves the drawable range (±${DRAWABLE} V); check the bias and gain`;
+  }
+  if (chart !== 'transfer') {
+    const e = d.error;
+    if (!e || e.celsius.length < 2) return `channel '${d.channel}': the error budget has fewer than two temperatures with a finite error to draw`;
+    for (const m of e.modes) {
+      if (!ok(m.worstLow) || !ok(m.worstHigh)) return `channel '${d.channel}': the error (${m.label}) leaves the drawable range (±${DRAWABLE} K); check the reference, bits and bias`;
+    }
+  }
+  return null;
+}
+
 function errorSeries(b: BudgetResult, notes: string[]): ErrorSeries {
   // Keep only temperatures where every series is finite, so that no chart gets a NaN.
   const keep: number[] = [];

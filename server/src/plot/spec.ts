@@ -4,6 +4,7 @@
 // ± accuracy target). The one spec builder shared by the CLI's SVG and the editor panel.
 // Plain JSON with fixed numbers: no expressions, no data loading, so it renders offline under a
 // strict content security policy (with vega-interpreter) as well as in Node.
+import { trimNumber } from '../model/read-value';
 import type { CalMode } from '../budget/types';
 import type { ErrorSeries, ModeBand, PlotData } from './data';
 import { NEUTRAL_THEME, type PlotTheme } from './theme';
@@ -44,7 +45,7 @@ const PANEL_TITLE = 22;
 const LEGEND_ROW = 16;
 
 const r6 = (x: number) => Number(x.toPrecision(6));
-const k3 = (x: number) => String(Number(x.toPrecision(3)));
+const k3 = (x: number) => trimNumber(x, 3);
 
 /** The chart spec of a channel's plot data. */
 export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {

@@ -180,7 +180,7 @@ describe('thermoscribe gen', () => {
   it('exits 2 on unusable arguments', () => {
     expect(runCli(['gen']).code).toBe(2);
     expect(runCli(['gen', 'missing.tsense']).err).toContain("cannot read 'missing.tsense'");
-    expect(runCli(['gen', 'pump.tsense', '--out', 'x.txt']).err).toContain('must end in .c');
+    expect(runCli(['gen', 'pump.tsense', '--out', 'x.txt']).err).toContain("--out takes a file in an existing folder, ending in .c (got 'x.txt')");
     const r = runCli(['gen', 'pump.tsense', '--channel', 'nope']);
     expect(r.code).toBe(2);
     expect(r.err).toContain("no channel 'nope' in pump.tsense; channels: coolant, housing");

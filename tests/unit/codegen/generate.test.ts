@@ -49,14 +49,14 @@ describe('generateC (pure)', () => {
 
   const bad: [string, Parameters<typeof syntheticDiodeChannel>[0], RegExp][] = [
     ['bits', { bits: 17 }, /bits: must be an integer 1\.\.16, got 17/],
-    ['codeHigh', { codeHigh: 5000 }, /codeHigh: must be an integer \d+\.\.1023/],
-    ['codeLow', { codeLow: -1 }, /codeLow: must be an integer 0\.\.1023/],
-    ['outputScale', { outputScale: 0.5 }, /outputScale: must be an integer 1\.\.10000/],
+    ['codeHigh', { codeHigh: 5000 }, /ADC code range: must be an integer \d+\.\.1023/],
+    ['codeLow', { codeLow: -1 }, /ADC code range: must be an integer 0\.\.1023/],
+    ['outputScale', { outputScale: 0.5 }, /output: must be an integer 1\.\.10000/],
     ['errorTarget', { errorTarget: 0.001 }, /below half an output unit/],
-    ['NaN model', { celsiusAtCode: () => NaN }, /celsiusAtCode: gave NaN at code/],
+    ['NaN model', { celsiusAtCode: () => NaN }, /maps to no temperature the sensor gives/],
     ['non-monotonic model', { celsiusAtCode: (c: number) => Math.sin(c / 10) }, /not monotonic/],
     ['throwing model', { celsiusAtCode: () => { throw new Error('boom'); } }, /threw at code \d+: boom/],
-    ['gain', { calibration: { mode: 'two-point', gain: 3, runtime: false } }, /calibration\.gain: must be in 0\.5\.\.1\.4999, got 3/],
+    ['gain', { calibration: { mode: 'two-point', gain: 3, runtime: false } }, /calibration: must be in 0\.5\.\.1\.4999, got 3/],
     ['unreachable target', { errorTarget: 0.006, method: 'polynomial' }, /cannot be met/],
   ];
   for (const [what, over, msg] of bad) {

@@ -1,8 +1,8 @@
 // thermoscribe budget FILE [--channel NAME] [--runs N] [--seed S] [--format text|json] [--root DIR]
 // Error budget per channel: worst case and Monte Carlo per calibration mode, contributor shares.
 // Long runs report progress on stderr and stop cleanly on Ctrl+C (exit 130).
-import { parseArgs, wholeNumberOption } from '../args';
-import { DiskHost, EXIT, type CliIO } from '../io';
+import { DiskHost } from '../io';
+import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { table } from '../text';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
@@ -14,26 +14,31 @@ import { fitMeasured } from '../../calibration/fit';
 import type { ChannelDef } from '../../model/types';
 import { CAUTION } from '../../report/caution';
 
-export const BUDGET_USAGE = 'thermoscribe budget FILE [--channel NAME] [--runs N] [--seed S] [--format text|json] [--root DIR]';
+export const BUDGET: VerbSpec = {
+  name: 'budget',
+  files: 'one',
+  options: { channel: CHANNEL_OPTION, runs: RUNS_OPTION, seed: SEED_OPTION, format: { kind: 'choice', values: ['text', 'json'] }, root: ROOT_OPTION },
+};
+export const BUDGET_USAGE = usageLine(BUDGET);
 
-export async function runBudget(argv: string[], io: CliIO): Promise<number> {
-  const args = parseArgs(argv, ['channel', 'runs', 'seed', 'format', 'root']);
-  const fail = (m: string) => (io.err(`thermoscribe budget: ${m}\nusage: ${BUDGET_USAGE}\n`), EXIT.unusable);
-  if (typeof args === 'string') return fail(args);
-  if (args.positional.length !== 1) return fail('name exactly one .tsense file');
-  const format = String(args.options.get('format') ?? 'text');
-  if (format !== 'text' && format !== 'json') return fail(`--format takes text or json (got '${format}')`);
-  const runs = wholeNumberOption(args, 'runs', 0, 1_000_000);
-  const seed = wholeNumberOption(args, 'seed', 0, 4294967295);
-  if (typeof runs === 'string') return fail(runs);
-  if (typeof seed === 'string') return fail(seed);
+export const runBudget = defineVerb(BUDGET, async (args, io): Promise<Outcome> => {
+  const format = args.text('format');
+  const runs = args.whole('runs');
+  const seed = args.whole('seed');
   const host = new DiskHost();
   const a = analyseOne(args, io, host);
-  if (typeof a === 'number') return a;
-  const only = args.options.get('channel');
-  const channels = typeof only === 'string' ? a.model.channels.filter((c) => c.name === only) : a.model.channels;
+  if (typeof a === 'string') return { unusable: a };
+  const only = args.text('channel');
+  const spec = { diagnostics: a.diagnostics, unprinted: { index: (f: string) => host.index(f) } };
+  // An unknown name is unusable input, unless the spec has errors (which can be what hides it).
+  if (only !== undefined && !a.model.channels.some((c) => c.name === only) && !a.diagnostics.some((d) => d.severity === 'error')) {
+    return { unusable: `no channel named ${shown(only)}; channels: ${a.model.channels.map((c) => c.name).join(', ') || '(none)'}` };
+  }
+  // Only channels that were analysed: a channel with errors has no sound model to draw boards from.
+  const analysed = new Set(a.channels.map((r) => r.channel.name));
+  const channels = a.model.channels.filter((c) => (only === undefined || c.name === only) && analysed.has(c.name));
   if (channels.length === 0) {
-    return fail(typeof only === 'string' ? `no channel named '${String(only)}'; channels: ${a.model.channels.map((c) => c.name).join(', ') || '(none)'}` : 'the file has no channel that could be analysed');
+    return { ...spec, failed: only !== undefined ? `channel ${shown(only)} could not be analysed; run \`thermoscribe check\` for the reasons` : 'the file has no channel that could be analysed' };
   }
   const token = { isCancellationRequested: false };
   const onSigint = () => (token.isCancellationRequested = true);
@@ -44,23 +49,19 @@ export async function runBudget(argv: string[], io: CliIO): Promise<number> {
       const b = await channelBudgetAsync(c, { ...(runs !== undefined ? { runs } : {}), ...(seed !== undefined ? { seed } : {}) }, token, (done, total) => {
         if (total >= 5000) io.err(`\r${c.name}: ${done} of ${total} boards`);
       });
-      if (b === null) {
-        io.err('\nthermoscribe budget: cancelled\n');
-        return 130;
-      }
+      if (b === null) return { cancelled: true };
       results.push({ channel: c, budget: b });
     }
   } catch (err) {
-    io.err(`thermoscribe budget: cannot compute the budget: ${err instanceof Error ? err.message : String(err)}\n`);
-    return EXIT.errors;
+    return { ...spec, failed: `cannot compute the budget: ${err instanceof Error ? err.message : String(err)}` };
   } finally {
     process.removeListener('SIGINT', onSigint);
   }
   if (format === 'json') io.out(JSON.stringify({ channels: results.map((r) => ({ ...budgetJson(r.budget), fit: fitJson(r.channel) })) }, null, 2) + '\n');
   else for (const r of results) io.out(budgetText(r.budget, r.channel) + '\n\n');
   if (format === 'text') io.out(CAUTION + '\n');
-  return EXIT.clean;
-}
+  return spec;
+});
 
 function fitJson(c: ChannelDef) {
   const f = fitMeasured(c);

@@ -7,8 +7,8 @@
 // as asked are left out and named with the reason; the clean ones are still written. Blocks of
 // channels the spec no longer has (orphans) are named, and removed only with --prune (which
 // removes every block this spec does not define: never prune a file that several specs share).
-// Exit 0 when written, 1 when a channel was left out (or none could be generated), 2 when an input
-// is unusable (bad arguments, unreadable spec, damaged markers, a write failing).
+// Exit status by the one rule of cli/verb.ts: 1 also when a channel was left out, none could be
+// generated or a write fails; 2 also for damaged markers in an existing file (an input gen cannot use).
 // Both files are planned (and any damaged marker refused) before either is written.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
@@ -19,15 +19,25 @@ import { generateForSpec, splitChannels } from '../../codegen/spec';
 import { prefixProblem } from '../../codegen/generate';
 import { symbolClash } from '../../codegen/clash';
 import type { GenerateResult, SpliceBlock } from '../../codegen/types';
-import { parseArgs } from '../args';
-import { DiskHost, EXIT, type CliIO } from '../io';
-import { formatDiagnostic } from '../text';
+import { DiskHost, type CliIO } from '../io';
+import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { writeFilesTogether } from '../write-files';
 import { readDisk } from '../../disk';
-import { shown } from '../../checks/shown';
-import { loadAnalyses } from './check';
+import { shown as shownText } from '../../checks/shown';
+import { analyseOne } from './check';
 
-export const GEN_USAGE = 'thermoscribe gen FILE [--channel NAME] [--out PATH.c] [--root DIR] [--prune] [--prefix NAME]';
+export const GEN: VerbSpec = {
+  name: 'gen',
+  files: 'one',
+  options: {
+    channel: CHANNEL_OPTION,
+    out: { kind: 'output', meta: 'PATH.c', suffix: '.c' },
+    root: ROOT_OPTION,
+    prune: { kind: 'flag' },
+    prefix: { kind: 'name', meta: 'NAME' },
+  },
+};
+export const GEN_USAGE = usageLine(GEN);
 
 interface Planned {
   file: string;
@@ -36,70 +46,49 @@ interface Planned {
   created: boolean;
 }
 
-export function runGen(argv: string[], io: CliIO): number {
-  const args = parseArgs(argv, ['channel', 'out', 'root', 'prefix']);
-  if (typeof args === 'string') return usage(io, args);
-  if (args.positional.length !== 1) return usage(io, 'name exactly one .tsense file');
-  const channel = args.options.get('channel');
-  const out = args.options.get('out');
-  const root = args.options.get('root');
-  if (channel === true || out === true || root === true) return usage(io, 'options --channel, --out and --root need a value');
-  const prefix = args.options.get('prefix');
-  if (prefix === true) return usage(io, 'option --prefix needs a value');
+export const runGen = defineVerb(GEN, (args, io): Outcome => {
+  const channel = args.text('channel');
+  const out = args.text('out');
+  const prefix = args.text('prefix');
   const badPrefix = prefix === undefined ? undefined : prefixProblem(prefix);
-  if (badPrefix) return usage(io, `--prefix ${badPrefix}`);
-  if (out !== undefined && !/\.c$/.test(out)) return usage(io, `--out names the C source file and must end in .c (got '${out}'); the header is written beside it with .h`);
+  if (badPrefix) return { unusable: `--prefix ${badPrefix}` };
   const host = new DiskHost();
-  const analyses = loadAnalyses(args.positional, root, io, host);
-  if (typeof analyses === 'string') {
-    io.err(`thermoscribe: ${analyses}\n`);
-    return EXIT.unusable;
-  }
-  const a = analyses[0]!;
+  const a = analyseOne(args, io, host);
+  if (typeof a === 'string') return { unusable: a };
   if (channel !== undefined && !a.channels.some((r) => r.channel.name === channel) && !specChannelNames(a).has(channel)) {
-    io.err(`thermoscribe gen: no channel '${shown(channel)}' in ${shown(path.basename(a.path))}; channels: ${[...specChannelNames(a)].join(', ') || '(none)'}\n`);
-    return EXIT.unusable;
+    return { unusable: `no channel ${shown(channel)} in ${shownText(path.basename(a.path))}; channels: ${[...specChannelNames(a)].join(', ') || '(none)'}` };
   }
   const split = splitChannels(a, channel);
   const errors = a.diagnostics.filter((d) => d.severity === 'error');
-  if (split.leftOut.length > 0) for (const d of errors) io.err(formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
-  else if (errors.length > 0) io.err(`thermoscribe gen: note: the spec has ${errors.length} error${errors.length === 1 ? '' : 's'} outside the channels generated (run check)\n`);
+  // Errors are printed when they left a channel out; otherwise they lie outside what was generated.
+  const spec: Outcome = split.leftOut.length > 0 ? { diagnostics: a.diagnostics, unprinted: { index: (f: string) => host.index(f) } } : {};
+  if (split.leftOut.length === 0 && errors.length > 0) io.err(`thermoscribe gen: note: the spec has ${errors.length} error${errors.length === 1 ? '' : 's'} outside the channels generated (run check)\n`);
   const cPath = out !== undefined ? path.resolve(io.cwd, out) : conversionFilePath(a.path);
   const hPath = headerPathFor(cPath);
   const stem = path.basename(cPath, '.c');
   const gen = split.clean.length > 0 ? generateForSpec({ path: a.path, channels: split.clean }, { fileStem: stem, prefix }) : undefined;
   const leftOut = [...split.leftOut, ...(gen?.leftOut ?? [])];
   for (const l of leftOut) io.err(`thermoscribe gen: left out '${l.channel}': ${l.why}\n`);
-  if (!gen || !gen.ok) {
-    io.err(`thermoscribe gen: ${gen && !gen.ok ? `${gen.message}; ` : ''}no channel could be generated (nothing was written)\n`);
-    return EXIT.errors;
-  }
+  if (!gen || !gen.ok) return { ...spec, failed: `${gen && !gen.ok ? `${gen.message}; ` : ''}no channel could be generated (nothing was written)` };
   for (const [file, result] of [[cPath, gen.source], [hPath, gen.header]] as const) {
     const existing = readDisk(file);
     const clash = existing !== undefined ? symbolClash(existing, result.channels.map((ch, i) => ({ channel: gen.inputs[i]!.channelName, identifier: ch.identifier }))) : undefined;
-    if (clash) {
-      io.err(`thermoscribe gen: ${rel(io, file)}: ${clash} (nothing was written)\n`);
-      return EXIT.errors;
-    }
+    if (clash) return { ...spec, failed: `${rel(io, file)}: ${clash} (nothing was written)` };
   }
-  const prune = args.options.get('prune') === true;
+  const prune = args.flag('prune');
   const names = specChannelNames(a);
   const plans: Planned[] = [];
   const orphans: string[] = [];
   for (const [file, result, header] of [[cPath, gen.source, false], [hPath, gen.header, true]] as const) {
     const p = plan(file, result, header, gen.inputs.map((i) => i.channelName), gen.inputs.map((i) => i.specHash), names, prune, orphans);
-    if (typeof p === 'string') {
-      io.err(`thermoscribe gen: ${p} (nothing was written)\n`);
-      return EXIT.unusable;
-    }
+    // Damaged markers in an existing file: an input gen cannot use (2); a file it cannot read: 1.
+    if (typeof p === 'string') return { unusable: `${p} (nothing was written)` };
+    if ('unreadable' in p) return { ...spec, failed: `${p.unreadable} (nothing was written)` };
     plans.push(p);
   }
   // Both files or neither (cli/write-files.ts): the old pair stays on any failure.
   const failed = writeFilesTogether(plans.filter((p) => p.changed));
-  if (failed) {
-    io.err(`thermoscribe gen: ${failed} (nothing was changed)\n`);
-    return EXIT.unusable;
-  }
+  if (failed) return { ...spec, failed: `${failed} (nothing was changed)` };
   for (const [i, ch] of gen.source.channels.entries()) {
     const input = gen.inputs[i]!;
     io.out(`${input.channelName}: ${ch.method}, ${ch.entries} ${ch.method === 'table' ? 'points' : 'segments'}, max error ${ch.maxErrorC.toFixed(4)} °C over codes ${input.codeLow}..${input.codeHigh} (target ${input.errorTarget} °C), about ${ch.bytesEstimate} bytes on an 8-bit AVR\n`);
@@ -108,16 +97,16 @@ export function runGen(argv: string[], io: CliIO): number {
   for (const o of orphans) io.out(prune ? `removed ${o}\n` : `orphan ${o}: no channel of this name in the spec; remove it with --prune\n`);
   if (leftOut.length > 0) io.out(`left out ${leftOut.length} channel${leftOut.length === 1 ? '' : 's'}: ${leftOut.map((l) => l.channel).join(', ')} (reasons above)\n`);
   io.out('Caution: generated from a design model; verify the channel against a calibrated reference before relying on it (see the file header).\n');
-  return leftOut.length > 0 ? EXIT.errors : EXIT.clean;
-}
+  return leftOut.length > 0 ? { ...spec, failed: `left out ${leftOut.length} channel${leftOut.length === 1 ? '' : 's'}` } : spec;
+});
 
 /** The new text of one file, or why it cannot be written. */
-function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[], specNames: ReadonlySet<string>, prune: boolean, orphans: string[]): Planned | string {
+function plan(file: string, result: GenerateResult, header: boolean, names: string[], hashes: string[], specNames: ReadonlySet<string>, prune: boolean, orphans: string[]): Planned | { unreadable: string } | string {
   let existing: string | undefined;
   try {
     existing = fs.existsSync(file) ? fs.readFileSync(file, 'utf8') : undefined;
   } catch (err) {
-    return `cannot read ${file}: ${err instanceof Error ? err.message : String(err)}`;
+    return { unreadable: `cannot read ${file}: ${err instanceof Error ? err.message : String(err)}` };
   }
   if (existing === undefined) return { file, text: result.text, changed: true, created: true };
   const blocks: SpliceBlock[] = result.channels.map((ch, i) => ({ channel: names[i]!, hash: hashes[i]!, text: ch.code }));
@@ -149,9 +138,4 @@ function lineOf(text: string, offset: number): number {
 
 function rel(io: CliIO, file: string): string {
   return path.relative(io.cwd, file) || file;
-}
-
-function usage(io: CliIO, problem: string): number {
-  io.err(`thermoscribe gen: ${problem}\nusage: ${GEN_USAGE}\n`);
-  return EXIT.unusable;
 }

@@ -1,50 +1,51 @@
 // thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error] [--runs N] [--seed S] [--root DIR]
 // Writes one channel's charts as an SVG file (atomically): the transfer curve and the error against
-// temperature per calibration mode. Exit 0 written, 1 the budget or the drawing failed, 2 unusable input.
-import * as fs from 'node:fs';
+// temperature per calibration mode. Exit status: the one rule of cli/verb.ts (a failed drawing or write is 1).
 import * as path from 'node:path';
-import { parseArgs, wholeNumberOption } from '../args';
-import { DiskHost, EXIT, type CliIO } from '../io';
+import { DiskHost } from '../io';
 import { writeFilesTogether } from '../write-files';
+import { defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
-import { plotData } from '../../plot/data';
+import { plotData, plotProblem } from '../../plot/data';
 import { plotSpec, type ChartKind } from '../../plot/spec';
 import { renderSvg } from '../../plot/render';
 
-export const PLOT_USAGE = 'thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error] [--runs N] [--seed S] [--root DIR]';
+const CHARTS: readonly ChartKind[] = ['both', 'transfer', 'error'];
 
-const CHARTS: ChartKind[] = ['both', 'transfer', 'error'];
+export const PLOT: VerbSpec = {
+  name: 'plot',
+  files: 'one',
+  options: {
+    channel: { kind: 'name', meta: 'NAME', required: true },
+    out: { kind: 'output', meta: 'FILE.svg', required: true },
+    chart: { kind: 'choice', values: CHARTS },
+    runs: RUNS_OPTION,
+    seed: SEED_OPTION,
+    root: ROOT_OPTION,
+  },
+};
+export const PLOT_USAGE = usageLine(PLOT);
 
-export async function runPlot(argv: string[], io: CliIO): Promise<number> {
-  const args = parseArgs(argv, ['channel', 'out', 'chart', 'runs', 'seed', 'root']);
-  const fail = (m: string) => (io.err(`thermoscribe plot: ${m}\nusage: ${PLOT_USAGE}\n`), EXIT.unusable);
-  if (typeof args === 'string') return fail(args);
-  if (args.positional.length !== 1) return fail('name exactly one .tsense file');
-  const channel = args.options.get('channel');
-  if (typeof channel !== 'string' || channel === '') return fail('--channel NAME is required');
-  const out = args.options.get('out');
-  if (typeof out !== 'string' || out === '') return fail('--out FILE.svg is required');
-  const chart = String(args.options.get('chart') ?? 'both') as ChartKind;
-  if (!CHARTS.includes(chart)) return fail(`--chart takes ${CHARTS.join(', ')} (got '${chart}')`);
-  const runs = wholeNumberOption(args, 'runs', 0, 1_000_000);
-  const seed = wholeNumberOption(args, 'seed', 0, 4294967295);
-  if (typeof runs === 'string') return fail(runs);
-  if (typeof seed === 'string') return fail(seed);
+export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
+  const channel = args.text('channel')!;
+  const out = args.text('out')!;
+  const chart = args.text('chart') as ChartKind;
+  const runs = args.whole('runs');
+  const seed = args.whole('seed');
   const outAbs = path.resolve(io.cwd, out);
-  if (!fs.existsSync(path.dirname(outAbs))) return fail(`the folder of --out does not exist: ${path.dirname(outAbs)}`);
 
   const host = new DiskHost();
   const a = analyseOne(args, io, host);
-  if (typeof a === 'number') return a;
+  if (typeof a === 'string') return { unusable: a };
+  const spec = { diagnostics: a.diagnostics, unprinted: { index: (f: string) => host.index(f) } };
+  // As with gen: nothing is drawn from a spec with errors (a figure people act on). First, as an
+  // error can be what hides the channel.
+  const errors = a.diagnostics.filter((d) => d.severity === 'error').length;
+  if (errors > 0) return { ...spec, failed: `the spec has ${errors} error${errors === 1 ? '' : 's'}; fix them first (nothing was written)` };
+  if (!a.model.channels.some((c) => c.name === channel)) return { unusable: `no channel named ${shown(channel)}; channels: ${a.model.channels.map((c) => c.name).join(', ') || '(none)'}` };
   const result = a.channels.find((r) => r.channel.name === channel);
-  if (!result) {
-    const defined = a.model.channels.find((c) => c.name === channel);
-    const names = a.channels.map((r) => r.channel.name);
-    return fail(defined
-      ? `channel '${channel}' cannot be analysed (run \`thermoscribe check\` for the reason); channels that can: ${names.join(', ') || '(none)'}`
-      : `no channel named '${channel}'; channels: ${a.model.channels.map((c) => c.name).join(', ') || '(none)'}`);
-  }
+  if (!result) return { ...spec, failed: `channel ${shown(channel)} cannot be analysed; run \`thermoscribe check\` for the reason (nothing was written)` };
 
   let budget = null;
   if (chart !== 'transfer') {
@@ -55,24 +56,25 @@ export async function runPlot(argv: string[], io: CliIO): Promise<number> {
       budget = await channelBudgetAsync(result.channel, { ...(runs !== undefined ? { runs } : {}), ...(seed !== undefined ? { seed } : {}) }, token, (done, total) => {
         if (total >= 5000) io.err(`\r${channel}: ${done} of ${total} boards`);
       });
-      if (budget === null) return (io.err('\nthermoscribe plot: cancelled\n'), 130);
+      if (budget === null) return { cancelled: true };
     } catch (err) {
-      io.err(`thermoscribe plot: cannot compute the error budget of '${channel}': ${err instanceof Error ? err.message : String(err)}\n`);
-      return EXIT.errors;
+      return { ...spec, failed: `cannot compute the error budget of ${shown(channel)}: ${err instanceof Error ? err.message : String(err)} (nothing was written)` };
     } finally {
       process.removeListener('SIGINT', onSigint);
     }
   }
 
+  const data = plotData(result, budget);
+  const problem = plotProblem(data, chart);
+  if (problem) return { ...spec, failed: `${problem} (nothing was written)` };
   let svg: string;
   try {
-    svg = await renderSvg(plotSpec(plotData(result, budget), { chart }));
+    svg = await renderSvg(plotSpec(data, { chart }));
   } catch (err) {
-    io.err(`thermoscribe plot: drawing failed: ${err instanceof Error ? err.message : String(err)}\n`);
-    return EXIT.errors;
+    return { ...spec, failed: `drawing failed: ${err instanceof Error ? err.message : String(err)} (nothing was written)` };
   }
   const failed = writeFilesTogether([{ file: outAbs, text: svg.endsWith('\n') ? svg : svg + '\n' }]);
-  if (failed) return (io.err(`thermoscribe plot: cannot write ${out}: ${failed}\n`), EXIT.errors);
+  if (failed) return { ...spec, failed: `cannot write ${out}: ${failed}` };
   io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${chart === 'both' ? 'transfer curve and error budget' : chart === 'transfer' ? 'transfer curve' : 'error budget'} of channel ${channel})\n`);
-  return EXIT.clean;
-}
+  return spec;
+});

@@ -1,30 +1,25 @@
 // thermoscribe report FILE [--channel NAME] [--root DIR]: each channel's sweep as a table.
 import { describeFaults, sensorFaults } from '../../sensors/faults';
-import { parseArgs } from '../args';
-import { DiskHost, EXIT, type CliIO } from '../io';
+import { DiskHost } from '../io';
+import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type VerbSpec } from '../verb';
 import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
 import type { ChannelResult } from '../../analysis/types';
-import { formatSI, trimNumber } from '../../model/read-value';
+import { fixedNumber, formatSI, trimNumber } from '../../model/read-value';
 import { CAUTION } from '../../report/caution';
 import { describeBias, describeSensor } from '../../report/describe';
 
-export const REPORT_USAGE = 'thermoscribe report FILE [--channel NAME] [--root DIR]';
+export const REPORT: VerbSpec = { name: 'report', files: 'one', options: { channel: CHANNEL_OPTION, root: ROOT_OPTION } };
+export const REPORT_USAGE = usageLine(REPORT);
 
-export function runReport(argv: string[], io: CliIO): number {
-  const args = parseArgs(argv, ['channel', 'root']);
-  if (typeof args === 'string' || args.positional.length !== 1) {
-    io.err(`thermoscribe report: ${typeof args === 'string' ? args : 'name exactly one .tsense file'}\nusage: ${REPORT_USAGE}\n`);
-    return EXIT.unusable;
-  }
+export const runReport = defineVerb(REPORT, (args, io) => {
   const host = new DiskHost();
   const a = analyseOne(args, io, host);
-  if (typeof a === 'number') return a;
-  const only = args.options.get('channel');
-  const channels = typeof only === 'string' ? a.channels.filter((c) => c.channel.name === only) : a.channels;
-  if (typeof only === 'string' && channels.length === 0) {
-    io.err(`thermoscribe report: no analysed channel named '${only}'; channels: ${a.channels.map((c) => c.channel.name).join(', ') || '(none)'}\n`);
-    return EXIT.unusable;
+  if (typeof a === 'string') return { unusable: a };
+  const only = args.text('channel');
+  const channels = only !== undefined ? a.channels.filter((c) => c.channel.name === only) : a.channels;
+  if (only !== undefined && channels.length === 0) {
+    return { unusable: `no analysed channel named ${shown(only)}; channels: ${a.channels.map((c) => c.channel.name).join(', ') || '(none)'}` };
   }
   for (const r of channels) io.out(channelReport(r) + '\n\n');
   const diags = a.diagnostics;
@@ -34,8 +29,8 @@ export function runReport(argv: string[], io: CliIO): number {
     io.out('\n');
   }
   io.out(CAUTION + '\n');
-  return diags.some((d) => d.severity === 'error') ? EXIT.errors : EXIT.clean;
-}
+  return { diagnostics: diags };
+});
 
 export function channelReport(r: ChannelResult): string {
   const c = r.channel;
@@ -50,14 +45,14 @@ export function channelReport(r: ChannelResult): string {
     '',
   ];
   const rows = r.sweep.map((p) => [
-    p.celsius.toFixed(2),
-    (p.volts * 1000).toFixed(3),
-    (p.amps * 1e6).toFixed(3),
+    fixedNumber(p.celsius, 2),
+    fixedNumber(p.volts * 1000, 3),
+    fixedNumber(p.amps * 1e6, 3),
     String(p.code),
-    (p.slope * 1000).toFixed(4),
-    p.countsPerKelvin.toFixed(3),
-    p.celsiusPerCount.toFixed(4),
-    (p.selfHeatingK * 1000).toFixed(3),
+    fixedNumber(p.slope * 1000, 4),
+    fixedNumber(p.countsPerKelvin, 3),
+    fixedNumber(p.celsiusPerCount, 4),
+    fixedNumber(p.selfHeatingK * 1000, 3),
   ]);
   return head.join('\n') + table(['°C', 'mV', 'µA', 'code', 'mV/K', 'counts/K', '°C/count', 'heat mK'], rows);
 }
