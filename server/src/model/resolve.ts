@@ -12,7 +12,7 @@ import { noExtra, readPart, trimNumber, readQuantityField, readQuantityValue, re
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readRtd, readSensorRef, readThermistor } from './read-sensors';
-import { isTwoCurrentBias, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
+import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
 import { shown } from '../checks/shown';
 
 export interface BlockRef {
@@ -492,6 +492,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   };
   const calibration = range ? phrase('calibration', (t) => readCalibration(t, r.ctx('calibration'), range.low, range.high)) : undefined;
   const measured = adc ? phrase('measured', (t) => readMeasured(t, r.ctx('measured'), adc.bits)) : undefined;
+  const calReference = phrase('cal_reference', (t) => readCalReference(t, r.ctx('cal_reference')));
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
   // Resistive-sensor fields (read-sensors.ts).
@@ -507,6 +508,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
     ...(calibration ? { calibration } : {}),
     ...(measured ? { measured } : {}),
     ...(monteCarlo ? { monteCarlo } : {}),
+    ...(calReference !== undefined ? { calReferenceK: calReference } : {}),
     ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),
     ...(codegen ? { codegen } : {}),
     kind: 'channel',

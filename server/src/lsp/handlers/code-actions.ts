@@ -104,8 +104,8 @@ export function onResolveCodeAction(ctx: ServerContext, action: CodeAction): Cod
   const g = generateForChannel(a, data.channel, existing);
   if (!g.ok) {
     ctx.connection.console.warn(`thermoscribe: ${g.message}`);
-    // A client that cannot show the message (or refuses it) must not take the server down.
-    ctx.connection.window.showWarningMessage(g.message).then(undefined, (err: unknown) => ctx.connection.console.log(`thermoscribe: could not show a message: ${err instanceof Error ? err.message : String(err)}`));
+    // A client that refuses the request does not take the server down (lsp/start.ts logs the rejection).
+    void ctx.connection.window.showWarningMessage(g.message);
     return { ...action, disabled: { reason: g.message } };
   }
   const uri = open?.uri ?? pathToUri(target);
