@@ -1,11 +1,30 @@
 import { defineConfig } from 'vitest/config';
 
+// Two parts, both run by `npm test`: `fast` (unit, fixtures, protocol: `npm run test:fast`) and
+// `toolchains` (tests that compile generated C with gcc, avr-gcc or arm-none-eabi-gcc and run it on
+// the host or in simavr: `npm run test:slow`, which then runs the editor suite). `npx vitest run`
+// runs both projects.
+const TOOLCHAIN_TESTS = [
+  'tests/unit/codegen/faults-edges.test.ts',
+  'tests/unit/codegen/host-compile.test.ts',
+  'tests/unit/codegen/hostile-text.test.ts',
+  'tests/unit/codegen/measured-oversampling.test.ts',
+  'tests/unit/codegen/targets.test.ts',
+  'tests/unit/sensors/codegen.test.ts',
+  'tests/unit/sensors/codegen-targets.test.ts',
+];
+
 export default defineConfig({
   test: {
-    include: ['tests/unit/**/*.test.ts', 'tests/protocol/**/*.test.ts'],
-    testTimeout: 60_000,
-    // Hooks compile C and analyse whole samples on a shared machine: no tight limit.
-    hookTimeout: 180_000,
+    // No test depends on the machine's speed: the limits are generous, for a busy 2-core CI machine
+    // (a beforeAll compiling with gcc once hit vitest's default 10 s hook limit there).
+    testTimeout: 120_000,
+    hookTimeout: 300_000,
+    teardownTimeout: 60_000,
     pool: 'forks',
+    projects: [
+      { extends: true, test: { name: 'fast', include: ['tests/unit/**/*.test.ts', 'tests/protocol/**/*.test.ts'], exclude: TOOLCHAIN_TESTS } },
+      { extends: true, test: { name: 'toolchains', include: TOOLCHAIN_TESTS } },
+    ],
   },
 });

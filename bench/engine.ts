@@ -4,7 +4,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { SERVER_NODE_FLAGS } from '../client/src/server-flags';
-import { analyse, ParseCache, SweepCache } from '../server/src/engine';
+import { analyse, DocumentState } from '../server/src/engine';
 import { parse } from '../server/src/syntax/parse';
 import { DiskHost } from '../server/src/cli/io';
 import { junctionAtTemperature, operatingPointAt, solveResistorBiasAmps } from '../server/src/physics/junction';
@@ -37,15 +37,14 @@ export async function benchEngine(): Promise<void> {
   console.log(`    parse + analyse (every check but accuracy-unmet)        ${ms(analyseMs)}  (a node process with default options)`);
   console.log(`      the same as the language server runs (${SERVER_NODE_FLAGS.join(' ')}): ${ms(asServer)}${typeof asServer === 'number' ? `  (target <= 20 ms: ${verdict(asServer <= 20)})` : ''}`);
   console.log(`    parse + analyse with the worst-case error budget        ${ms(budgetMs)}  (all checks; as the server runs)`);
-  // The language server keeps a ParseCache and SweepCache per document: after an edit only the
-  // blocks it touched are read again. Retype the first channel's upper range end, each version new
+  // The language server keeps a DocumentState per document: after an edit only the blocks it
+  // touched are read again. Retype the first channel's upper range end, each version new
   // (124, 123, ... 85 °C: from 99 on the edit also moves every block below it).
-  const cache = new SweepCache();
-  const parseCache = new ParseCache();
+  const state = new DocumentState();
   const endAt = big.indexOf('.. 125 °C') + 3;
-  analyse({ path: '/bench/big.tsense', text: big, cache, parseCache });
+  analyse({ path: '/bench/big.tsense', text: big, state });
   let end = 125;
-  const tw = median(timeRunsOn(() => big.slice(0, endAt) + String(--end) + big.slice(endAt + 3), (t) => analyse({ path: '/bench/big.tsense', text: t, cache, parseCache }), 37));
+  const tw = median(timeRunsOn(() => big.slice(0, endAt) + String(--end) + big.slice(endAt + 3), (t) => analyse({ path: '/bench/big.tsense', text: t, state }), 37));
   console.log(`    parse + analyse after a one-channel edit (editor path)  ${tw.toFixed(2)} ms  (all checks; per-document caches)`);
 
   console.log('== engine: operating-point solves per second (resistor bias, Lambert W)');

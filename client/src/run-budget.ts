@@ -76,7 +76,7 @@ function show(context: vscode.ExtensionContext, b: NonNullable<BudgetAnswer['bud
     `Error budget of ${b.channel}` + (mc ? ` (Monte Carlo: ${mc.runs} boards, seed ${mc.seed}, ${mc.distribution})` : ' (no Monte Carlo)') + (b.accuracyK !== null ? `; target ± ${k(b.accuracyK)}` : ''),
     ...b.modes.map((m, i) => {
       const at = m.calibrationCelsius.length ? ` at ${m.calibrationCelsius.map((c) => `${c} °C`).join(' and ')}` : '';
-      return `  ${m.mode}${at}${i === 0 ? ' (the spec)' : ''}: worst case ± ${k(m.worstAbsK)} at ${m.worstAtCelsius.toFixed(1)} °C, Monte Carlo p99 ${m.mcP99AbsK === null ? 'n/a' : `± ${k(m.mcP99AbsK)}`}${m.dominant ? `, largest share ${m.dominant}` : ''}`;
+      return `  ${m.mode}${at}${i === 0 ? ' (the spec)' : ''}: worst case ± ${k(m.worstAbsK)} at ${m.worstAtCelsius.toFixed(1)} °C, Monte Carlo p99 ${m.mcP99AbsK === null ? 'n/a' : `± ${k(m.mcP99AbsK)}`}${m.dominant ? `, largest swing ${m.dominant}` : ''}`;
     }),
     ...b.notes.map((n) => `  note: ${n}`),
     '  Caution: a design estimate; verify against a calibrated reference and follow local codes and the applicable safety standards.',

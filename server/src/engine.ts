@@ -4,24 +4,23 @@ import * as path from 'node:path';
 import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
 import { channelChecks } from './checks/index';
 import { analyseChannel, channelResult } from './analysis/sweep';
-import { cachedLiveBudget, cachedWorstCaseBudget } from './budget/cache';
-import { SweepCache } from './analysis/cache';
-import type { ParseCache } from './syntax/parse';
+import { channelBudget, liveBudget } from './budget/budget';
+import { channelKey } from './analysis/cache';
 import type { ChannelResult } from './analysis/types';
 import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel, type Resolution } from './model/resolve';
-import { contentToken } from './model/moved';
+import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './checks/shown';
 
 export type { Diagnostic } from './checks/diagnostic';
 export type { SourceHost, LoadedFile } from './model/workspace';
+export type { SyntaxFile } from './syntax/ast';
 export type { ChannelResult, SweepPoint, ChannelSummary } from './analysis/types';
 export type { ChannelDef, SensorDef, AdcDef } from './model/types';
 export { CATALOGUE, type DiagnosticCode, type Severity } from './checks/catalogue';
 export { LineIndex } from './syntax/line-index';
-export { SweepCache } from './analysis/cache';
-export { ParseCache } from './syntax/parse';
+export { DocumentState } from './document-state';
 
 export interface AnalyseInput {
   /** Absolute path of the spec (for an unsaved buffer, any absolute path in its folder). */
@@ -31,10 +30,13 @@ export interface AnalyseInput {
   root?: string;
   /** Reads files brought in with `use`. Defaults to a host that reads nothing. */
   host?: SourceHost;
-  /** Sweeps kept from earlier analyses of the same document (optional). */
-  cache?: SweepCache;
-  /** Parsed pieces kept from earlier versions of the same document (optional). */
-  parseCache?: ParseCache;
+  /**
+   * What earlier analyses of the same document kept (optional; see document-state.ts for what it
+   * holds and when it drops it). Without it every block is read and every channel swept afresh.
+   */
+  state?: DocumentState;
+  /** Read `state` but change nothing in it (a quick fix tried out on other text). */
+  trial?: boolean;
   /**
    * Compute each channel's worst-case error budget, which the accuracy check needs (default true).
    * Without it every other check runs and `accuracy-unmet` is not reported.
@@ -58,17 +60,21 @@ export function analyse(input: AnalyseInput): Analysis {
   const entry = path.resolve(input.path);
   const root = path.resolve(input.root ?? path.dirname(entry));
   const sink = new DiagnosticSink();
-  const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink, input.parseCache);
-  const model = resolveModel(files, sink, input.parseCache !== undefined);
+  // A trial reads kept channel results but neither parses into the state nor resolves from it.
+  const own = input.trial ? undefined : input.state;
+  own?.begin();
+  const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink, own?.pieces);
+  const model = resolveModel(files, sink, own?.definitions);
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {
-      channels.push(analyseOne(c, sink, input.cache, input.errorBudget !== false));
+      channels.push(analyseOne(c, sink, input.state, !input.trial, input.errorBudget !== false));
     } catch (err) {
       // The resolver checks domains first; a physics guard firing here is still reported, not thrown.
       sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}' cannot be analysed: ${err instanceof Error ? err.message : String(err)}`);
     }
   }
+  own?.end(files.slice(1).map((f) => f.path));
   reportUsedFileProblems(files, sink);
   const diagnostics = capPerFile(sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1)));
   return { path: entry, files, model, channels, diagnostics };
@@ -113,34 +119,31 @@ function capPerFile(sorted: Diagnostic[]): Diagnostic[] {
 }
 
 /**
- * What was derived from a channel's content before: sweep and worst-case budget by content token
- * (model/moved.ts: the same for a channel that only moved), and the checks' diagnostics of the very
- * same definition object (a moved channel's diagnostics have other offsets, so its checks run again).
+ * One channel: its sweep, worst-case budget and checks. With a document state, what was derived
+ * from the same content before is taken from it (the same for a channel that only moved), and the
+ * checks' diagnostics too when the definition is the very same object (a moved channel's have other
+ * offsets, so its checks run again).
  */
-interface Derived {
-  table: ChannelResult['table'];
-  summary: ChannelResult['summary'];
-  worstCaseBudget: NonNullable<ChannelResult['worstCaseBudget']>;
-  checked?: { channel: ChannelDef; diagnostics: Diagnostic[] };
-}
-
-const DERIVED = new WeakMap<object, Derived>();
-
-function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | undefined, withBudget: boolean): ChannelResult {
-  const token = contentToken(c);
-  // Without the budget nothing is kept (what is kept always carries one).
-  let kept = withBudget ? DERIVED.get(token) : undefined;
-  const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : cache ? cache.get(c, () => analyseChannel(c)) : analyseChannel(c);
+function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | undefined, record: boolean, withBudget: boolean): ChannelResult {
+  let kept = state?.find(c, record);
+  const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : analyseChannel(c);
+  if (!kept) {
+    // The key is only needed to find the entry again (and a miss in `find` has already made it).
+    kept = { key: state && record ? channelKey(c) : '', table: result.table, summary: result.summary };
+    if (record) state?.keep(c, kept);
+    HOLDER.set(kept.table, kept);
+  }
   if (withBudget) try {
-    result.worstCaseBudget = kept?.worstCaseBudget ?? cachedWorstCaseBudget(c);
-    if (!kept) DERIVED.set(token, (kept = { table: result.table, summary: result.summary, worstCaseBudget: result.worstCaseBudget }));
+    // A Monte Carlo budget already made holds the worst case too.
+    kept.worstCaseBudget ??= kept.budget?.value ?? channelBudget(c, { runs: 0 });
+    result.worstCaseBudget = kept.worstCaseBudget;
     // The Monte Carlo budget is computed on first use (hover, JSON, plots), not per keystroke.
     Object.defineProperty(result, 'budget', BUDGET);
   } catch (err) {
     // A tolerance corner outside the physics' domain: say so; the other checks still run.
     sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}': the error budget cannot be computed: ${err instanceof Error ? err.message : String(err)}`);
   }
-  if (kept?.checked?.channel === c) {
+  if (kept.checked?.channel === c && kept.checked.withBudget === withBudget) {
     sink.items.push(...kept.checked.diagnostics);
     return result;
   }
@@ -148,12 +151,17 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, cache: SweepCache | und
   const reported = new Set<string>();
   for (const check of channelChecks(c)) check({ channel: c, result, sink: local, reported });
   sink.items.push(...local.items);
-  if (kept) kept.checked = { channel: c, diagnostics: local.items };
+  if (record) kept.checked = { channel: c, withBudget, diagnostics: local.items };
   return result;
 }
 
-/** Monte Carlo budgets made so far, by result (see BUDGET). */
-const FULL_BUDGETS = new WeakMap<ChannelResult, ChannelResult['budget']>();
+/**
+ * What each sweep table was derived with (its document state's entry, or one of its own), where
+ * `budget` keeps the Monte Carlo budget once made. A fact attached to the table, gone with it; one
+ * entry per new table (every result of the same content shares the table), not one per result,
+ * which would give the collector a weak entry to trace per channel and keystroke.
+ */
+const HOLDER = new WeakMap<ChannelResult['table'], ChannelDerived>();
 
 /**
  * `budget` of every channel result: one getter for all (a closure per result gives each its own
@@ -163,14 +171,15 @@ const BUDGET = {
   enumerable: true,
   configurable: true,
   get(this: ChannelResult): ChannelResult['budget'] {
-    if (!FULL_BUDGETS.has(this)) FULL_BUDGETS.set(this, tryBudget(this.channel));
-    return FULL_BUDGETS.get(this);
+    const h = HOLDER.get(this.table)!;
+    h.budget ??= { value: tryBudget(this.channel) };
+    return h.budget.value;
   },
 };
 
 function tryBudget(c: ChannelDef): ChannelResult['budget'] {
   try {
-    return cachedLiveBudget(c);
+    return liveBudget(c);
   } catch {
     return undefined;
   }

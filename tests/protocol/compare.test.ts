@@ -14,7 +14,7 @@ interface Answer {
   ok: boolean;
   groupNames: string[];
   headers?: string[];
-  groups?: { name: string; rows: Record<string, unknown>[]; cells: string[][] }[];
+  groups?: { name: string; rows: Record<string, unknown>[]; differences: unknown[]; cells: string[][] }[];
   errors?: number;
   explain?: string;
   caution?: string;
@@ -54,7 +54,7 @@ describe('thermoscribe/compareData', () => {
     expect(r.groupNames).toEqual(['bath']);
     expect(r.errors).toBe(0);
     const json = JSON.parse(cli(file, '--format', 'json')) as { groups: { name: string; rows: Record<string, unknown>[] }[]; caution: string };
-    expect(r.groups!.map((g) => ({ name: g.name, rows: g.rows }))).toEqual(json.groups);
+    expect(r.groups!.map((g) => ({ name: g.name, rows: g.rows, differences: g.differences }))).toEqual(json.groups);
     expect(r.caution).toBe(json.caution);
     const g = r.groups![0]!;
     expect(g.rows.map((x) => x['channel'])).toEqual(['bath_ntc', 'bath_rtd']);

@@ -273,13 +273,22 @@ describe('code actions', () => {
     expect((await actions('small_npx')).map((a) => a.title)).toContain("Change 'small_npx' to 'small_npn'");
   });
 
+  it('keeps serving when a generation fails and the client refuses the warning it is shown', async () => {
+    // 'cold' clips on tight_adc: the action is disabled with the reason; this test client answers
+    // window/showMessageRequest with an error, which must not take the server down.
+    const gen = (await actions('channel cold')).find((a) => a.title === 'Generate conversion code for cold') as { disabled?: { reason: string } } | undefined;
+    if (gen) expect(gen.disabled?.reason).toMatch(/end code/);
+    expect((await actions('small_npx')).map((a) => a.title)).toContain("Change 'small_npx' to 'small_npn'");
+  });
+
   it('generates conversion code for a channel into <stem>_conversion.c', async () => {
-    const gen = (await actions('channel cold')).find((a) => a.title === 'Generate conversion code for cold');
+    // 'cold' clips on tight_adc (every code an end code), so it is 'probe' that generates.
+    const gen = (await actions('channel probe')).find((a) => a.title === 'Generate conversion code for probe');
     expect(gen).toBeDefined();
     const resolved = gen!.edit ? gen! : await client.request<typeof gen>('codeAction/resolve', gen);
     const text = JSON.stringify(resolved!.edit);
     expect(text).toContain('main_conversion.c');
-    expect(text).toContain('thermoscribe:begin channel=cold');
+    expect(text).toContain('thermoscribe:begin channel=probe');
   });
 });
 

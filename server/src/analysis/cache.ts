@@ -1,32 +1,16 @@
-// Reuse of channel sweeps between analyses of the same document: a keystroke usually changes one
-// channel, so the others' sweeps are taken from the cache. The key is every input of the channel
-// except where it was written (spans, file), so a moved or reformatted channel is still a hit.
+// A channel's inputs as one string, except where they were written (spans, file), so a moved or
+// reformatted channel has the same key. The document state (document-state.ts) keeps what was
+// derived from a channel by this key; the code generator hashes it.
 import type { ChannelDef } from '../model/types';
-import type { ChannelResult } from './types';
-import { channelResult } from './sweep';
 
 const POSITIONAL = new Set(['span', 'nameSpan', 'fieldSpans', 'file', 'given', 'closeSpan']);
 
+/** Computed once per ChannelDef object (a memo attached to the object: it goes with it). */
 const keys = new WeakMap<ChannelDef, string>();
 
-/** The channel's inputs as a string; computed once per ChannelDef object. */
+/** The channel's inputs as a string. */
 export function channelKey(c: ChannelDef): string {
   let k = keys.get(c);
   if (k === undefined) keys.set(c, (k = JSON.stringify(c, (key, v) => (POSITIONAL.has(key) ? undefined : v))));
   return k;
-}
-
-/** A bounded cache of sweeps by channel key; keep one per open document. */
-export class SweepCache {
-  private map = new Map<string, Pick<ChannelResult, 'table' | 'summary'>>();
-  constructor(private readonly limit = 2000) {}
-  get(c: ChannelDef, compute: () => ChannelResult): ChannelResult {
-    const key = channelKey(c);
-    const hit = this.map.get(key);
-    if (hit) return channelResult(c, hit.table, hit.summary);
-    const r = compute();
-    if (this.map.size >= this.limit) this.map.clear();
-    this.map.set(key, { table: r.table, summary: r.summary });
-    return r;
-  }
 }

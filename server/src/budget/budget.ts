@@ -4,10 +4,11 @@
 import type { ChannelDef } from '../model/types';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { makeFrame, type BudgetFrame } from './frame';
-import { worstCase, type WorstCase } from './worst-case';
+import { REFINE, worstCase, type WorstCase } from './worst-case';
 import { monteCarlo, monteCarloAsync, percentileSorted, type McSamples } from './monte-carlo';
 import type { BudgetOptions, BudgetResult, CancellationToken, ContributorShare, ModeBudget, Progress } from './types';
 import { effectiveOversamplingBits, noiseSuffices } from './oversampling';
+import { trimNumber } from '../model/read-value';
 
 export const DEFAULT_RUNS = 1000;
 export const DEFAULT_SEED = 1;
@@ -39,7 +40,7 @@ function plan(c: ChannelDef, o: BudgetOptions): Plan {
 export function channelBudget(c: ChannelDef, o: BudgetOptions = {}): BudgetResult {
   const p = plan(c, o);
   const wc = worstCase(p.frame, p.maxCorners);
-  const mc = p.runs > 0 ? monteCarlo(p.frame, p.runs, p.seed, p.distribution) : null;
+  const mc = p.runs > 0 ? monteCarlo(p.frame, p.runs, p.seed, p.distribution, worstGridIndex(wc)) : null;
   return summarise(c, p, wc, mc);
 }
 
@@ -59,25 +60,34 @@ export async function channelBudgetAsync(c: ChannelDef, o: BudgetOptions = {}, t
   const p = plan(c, o);
   const wc = worstCase(p.frame, p.maxCorners);
   if (token?.isCancellationRequested) return null;
-  const mc = p.runs > 0 ? await monteCarloAsync(p.frame, p.runs, p.seed, p.distribution, token, progress) : null;
+  const mc = p.runs > 0 ? await monteCarloAsync(p.frame, p.runs, p.seed, p.distribution, token, progress, undefined, worstGridIndex(wc)) : null;
   if (p.runs > 0 && mc === null) return null;
   return summarise(c, p, wc, mc);
+}
+
+/** Per mode, the grid index of the largest worst-case |error| (where the shares are taken). */
+function worstGridIndex(wc: WorstCase): number[] {
+  return wc.low.map((lo, m) => {
+    let best = -1;
+    let at = 0;
+    for (let t = 0; t < lo.length; t++) {
+      const a = Math.max(Math.abs(lo[t]!), Math.abs(wc.high[m]![t]!));
+      if (a > best) (best = a), (at = t);
+    }
+    return at;
+  });
 }
 
 function summarise(c: ChannelDef, p: Plan, wc: WorstCase, mc: McSamples | null): BudgetResult {
   const f = p.frame;
   const G = f.gridK.length;
-  const contributors = [...f.board, ...f.reading];
+  const contributors = [...f.board, ...f.reading, ...f.calibration];
+  const worstAt = worstGridIndex(wc);
   let outside = 0;
   const modes: ModeBudget[] = f.modes.map((setting, m) => {
     const low = [...wc.low[m]!];
     const high = [...wc.high[m]!];
-    let worstAbsK = 0;
-    let worstT = 0;
-    for (let t = 0; t < G; t++) {
-      const a = Math.max(Math.abs(low[t]!), Math.abs(high[t]!));
-      if (a > worstAbsK) (worstAbsK = a), (worstT = t);
-    }
+    const worstT = worstAt[m]!;
     const swings = wc.swings[m]!;
     const total = swings.reduce((s, sw) => s + sw[worstT]!, 0);
     const shares: ContributorShare[] = contributors.map((k, i) => ({
@@ -86,6 +96,7 @@ function summarise(c: ChannelDef, p: Plan, wc: WorstCase, mc: McSamples | null):
       maxSwingK: Math.max(0, ...swings[i]!),
       swingAtWorstK: swings[i]![worstT]!,
       share: total > 0 ? swings[i]![worstT]! / total : 0,
+      varianceShare: mc?.varianceShares?.[m]?.[i] ?? null,
     }));
     const dominant = shares.length ? shares.reduce((a, b) => (b.swingAtWorstK > a.swingAtWorstK ? b : a)) : null;
     let band: ModeBudget['mc'] = null;
@@ -107,13 +118,32 @@ function summarise(c: ChannelDef, p: Plan, wc: WorstCase, mc: McSamples | null):
         for (const x of s) if (x > high[t]! + slack || x < low[t]! - slack) outside++;
       }
     }
-    return { setting, worstLow: low, worstHigh: high, mc: band, worstAbsK, worstAtCelsius: f.gridK[worstT]! - ZERO_CELSIUS_K, mcP99AbsK, shares, dominant: dominant && dominant.swingAtWorstK > 0 ? dominant : null };
+    const r = wc.refined[m]!;
+    return {
+      setting,
+      worstLow: low,
+      worstHigh: high,
+      mc: band,
+      worstAbsK: r.absK,
+      worstAtCelsius: r.atK - ZERO_CELSIUS_K,
+      sharesAtCelsius: f.gridK[worstT]! - ZERO_CELSIUS_K,
+      mcP99AbsK,
+      shares,
+      dominant: dominant && dominant.swingAtWorstK > 0 ? dominant : null,
+    };
   });
   const notes: string[] = [];
   if ((c.oversamplingBits ?? 0) > 0 && effectiveOversamplingBits(c) === 0) {
     notes.push(noiseSuffices(c) === null ? 'Oversampling is not credited: the adc states no noise.' : 'Oversampling is not credited: the stated noise is below 0.5 LSB rms.');
   }
-  notes.push('Input noise is not in the budget; ADC offset, gain and INL are taken as the bounds stated for the converter.');
+  const rail = Math.max(c.adc.reference.tolerance, c.bias.kind === 'current' ? 0 : c.bias.supply.tolerance);
+  if (c.ratiometric && rail > 0) notes.push(`Ratiometric reading: the rail's tolerance (± ${trimNumber(rail * 100, 3)} %) feeds the divider and the converter's reference alike and cancels in the code, so it is not counted.`);
+  notes.push('Input noise is not in the budget; ADC offset, gain and INL are taken as the bounds stated for the converter (the Monte Carlo draws one smooth INL curve per board within that bound).');
+  if (f.modes.some((m) => m.kelvins.length > 0)) {
+    notes.push(c.calReferenceK ? 'The calibration readings count their quantisation, the converter\'s INL and the reference thermometer (`cal_reference`).' : 'The calibration readings count their quantisation and the converter\'s INL; the reference thermometer is taken as exact (state `cal_reference`).');
+  }
+  if (G > 1) notes.push(`Worst case on ${G} temperatures ${trimNumber(f.gridK[1]! - f.gridK[0]!, 3)} K apart, refined between the neighbours of each worst point (${REFINE} more temperatures there).`);
+  notes.push('Shares: each input\'s one-at-a-time swing over the sum of all swings at the grid\'s worst temperature (linear shares of the worst case); variance shares: the Monte Carlo\'s squared correlation of the error with each input there.');
   if (wc.method === 'corners' && outside > 0) notes.push(`${outside} Monte Carlo samples fall outside the corner band: the error is not monotonic in some input there.`);
   return {
     channel: c.name,

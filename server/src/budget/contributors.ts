@@ -20,8 +20,12 @@ export function contributorsOf(c: ChannelDef, effectiveOversamplingBits: number)
   const biasWord = (b: BiasDef) => (b.kind === 'current' ? 'bias current' : 'bias resistor');
   add('bias', `${biasWord(c.bias)}${two ? ' 1' : ''} ${pct(biasTol(c.bias))}`, 'board', biasTol(c.bias), 'relative');
   if (c.secondBias) add('bias2', `${biasWord(c.secondBias)} 2 ${pct(biasTol(c.secondBias))}`, 'board', biasTol(c.secondBias), 'relative');
-  if (c.bias.kind !== 'current') add('supply', `supply ${pct(c.bias.supply.tolerance)}`, 'board', c.bias.supply.tolerance, 'relative');
-  add('reference', `ADC reference ${pct(c.adc.reference.tolerance)}`, 'board', c.adc.reference.tolerance, 'relative');
+  // Ratiometric: the divider's supply is the converter's reference, so the code is the divider ratio
+  // and the rail's value (and tolerance) cancels; neither is an input of the board's error.
+  if (!c.ratiometric) {
+    if (c.bias.kind !== 'current') add('supply', `supply ${pct(c.bias.supply.tolerance)}`, 'board', c.bias.supply.tolerance, 'relative');
+    add('reference', `ADC reference ${pct(c.adc.reference.tolerance)}`, 'board', c.adc.reference.tolerance, 'relative');
+  }
   // Two-current: the firmware subtracts two readings of the same converter, so its offset cancels.
   if (!two) add('offset', `ADC offset ± ${trimNumber(c.adc.offsetLsb ?? 0, 3)} LSB`, 'board', c.adc.offsetLsb ?? 0, 'LSB');
   add('gain', `ADC gain error ${pct(c.adc.gainError ?? 0)}`, 'board', c.adc.gainError ?? 0, 'relative');

@@ -9,3 +9,7 @@ export function describeSetting(s: CalSetting): string {
   if (s.mode === 'two-point') return `two-point calibration at ${c(s.kelvins[0]!)} and ${c(s.kelvins[1]!)}`;
   return 'no calibration';
 }
+
+/** What the two share columns are, said wherever they are shown. */
+export const SHARES_EXPLAINED =
+  'Swing: the error moved by that input alone at either end of its tolerance; share of swings: that swing over the sum of every input\'s swing at this temperature (a linear share of the worst case, not of the variance); variance share: the Monte Carlo\'s squared correlation of the boards\' error with that input (- where not separable: the calibration readings\' INL is under the INL).';

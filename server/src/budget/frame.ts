@@ -5,8 +5,9 @@
 //   code = V_board(T) / (Vref (1 + dRef)) * 2^bits * (1 + dGain) + offset      (continuous code)
 //   reported = nominal model inverse of code * Vref / 2^bits                    (what the code computes)
 // then the calibration trim (calibration/trim.ts) fitted on the same board's readings at the
-// calibration temperatures, then the reading terms (quantisation, INL), which are new at every
-// reading and which calibration does not remove, converted to K with the nominal slope.
+// calibration temperatures, each with its own reading errors and the reference thermometer's
+// (calibration-readings.ts), then the reading terms (quantisation, INL), converted to K with the
+// nominal slope (kelvins per LSB at T).
 import type { ChannelDef } from '../model/types';
 import { sense } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
@@ -16,6 +17,7 @@ import { NominalInverse } from './nominal-inverse';
 import { contributorsOf, perturb } from './contributors';
 import type { CalSetting, Contributor } from './types';
 import { effectiveOversamplingBits } from './oversampling';
+import { calibrationContributors, type CalShift } from './calibration-readings';
 
 export interface BudgetFrame {
   channel: ChannelDef;
@@ -29,8 +31,12 @@ export interface BudgetFrame {
   calIndex: number[][];
   board: Contributor[];
   reading: Contributor[];
+  /** Errors of the calibration readings (calibration-readings.ts). */
+  calibration: Contributor[];
   /** Per reading contributor, per grid temperature: its bound in K. */
   readingK: number[][];
+  /** Per temperature of evalK: kelvins reported per LSB of code there (signed: the nominal slope's sign). */
+  kPerLsb: Float64Array;
   full: number;
 }
 
@@ -56,11 +62,17 @@ export function makeFrame(measuredOrNominal: ChannelDef, points = 49): BudgetFra
   // With measured points, the firmware converts with the model fitted to them (outliers left out,
   // calibration/fit.ts), so the budget's boards and reported values start from that model too.
   const c = fittedChannel(measuredOrNominal);
-  const inverse = new NominalInverse(c);
-  const gridK = budgetGrid(c, points);
-  const modes = calSettings(c);
+  const all = contributorsOf(c, effectiveOversamplingBits(c));
+  const board = all.filter((k) => k.scope === 'board');
+  const reading = all.filter((k) => k.scope === 'reading');
+  return frameAt({ channel: c, inverse: new NominalInverse(c), modes: calSettings(c), board, reading, calibration: calibrationContributors(c, reading) }, budgetGrid(c, points));
+}
+
+/** A frame with the same channel, contributors, modes and inverse at other temperatures (K). */
+export function frameAt(base: Pick<BudgetFrame, 'channel' | 'inverse' | 'modes' | 'board' | 'reading' | 'calibration'>, gridK: number[]): BudgetFrame {
+  const c = base.channel;
   const evalK = [...gridK];
-  const calIndex = modes.map((m) =>
+  const calIndex = base.modes.map((m) =>
     m.kelvins.map((k) => {
       const at = evalK.findIndex((x) => Math.abs(x - k) < 1e-9);
       if (at >= 0) return at;
@@ -68,16 +80,17 @@ export function makeFrame(measuredOrNominal: ChannelDef, points = 49): BudgetFra
       return evalK.length - 1;
     }),
   );
-  const all = contributorsOf(c, effectiveOversamplingBits(c));
-  const board = all.filter((k) => k.scope === 'board');
-  const reading = all.filter((k) => k.scope === 'reading');
   const lsbVolts = c.adc.reference.value / 2 ** c.adc.bits;
-  const readingK = reading.map((k) => gridK.map((t) => (k.amount * lsbVolts) / Math.abs(sense(c, t).slope)));
-  return { channel: c, inverse, gridK, evalK, modes, calIndex, board, reading, readingK, full: 2 ** c.adc.bits };
+  const kPerLsb = Float64Array.from(evalK, (t) => lsbVolts / sense(c, t).slope);
+  const readingK = base.reading.map((k) => gridK.map((_, t) => k.amount * Math.abs(kPerLsb[t]!)));
+  return { ...base, gridK, evalK, calIndex, readingK, kPerLsb, full: 2 ** c.adc.bits };
 }
 
-/** Error (reported - true, K) of the board with draws u at every temperature of evalK, before calibration. */
-export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length)): Float64Array {
+/**
+ * Error (reported - true, K) of the board with draws u at every temperature of evalK, before
+ * calibration; `codes` (optional) receives the board's continuous code there.
+ */
+export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length), codes?: Float64Array): Float64Array {
   const { channel, adc } = perturb(f.channel, f.board, u);
   const vref = f.channel.adc.reference.value;
   const scale = (f.full * adc.gain) / (vref * adc.referenceScale);
@@ -85,22 +98,32 @@ export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Ar
     const k = f.evalK[i]!;
     const v = sense(channel, k).volts;
     const code = Math.min(f.full, Math.max(0, v * scale + adc.offsetLsb));
+    if (codes) codes[i] = code;
     out[i] = f.inverse.kelvinAt((code * vref) / f.full) - k;
   }
   return out;
 }
 
-/** The trim a board gets in calibration mode m (from its own errors at the calibration temperatures). */
-export function boardTrim(f: BudgetFrame, m: number, errors: ArrayLike<number>): Trim {
-  return trimFrom(f.calIndex[m]!.map((i) => ({ trueK: f.evalK[i]!, reportedK: f.evalK[i]! + errors[i]! })));
+/**
+ * The trim a board gets in calibration mode m, from its own errors at the calibration temperatures;
+ * `shift` adds each calibration reading's error (rep, K on the reported value) and the reference
+ * thermometer's (ref, K on the value the trim aims at).
+ */
+export function boardTrim(f: BudgetFrame, m: number, errors: ArrayLike<number>, shift?: CalShift): Trim {
+  return trimFrom(f.calIndex[m]!.map((i, j) => ({ trueK: f.evalK[i]! + (shift ? shift.ref[j]! : 0), reportedK: f.evalK[i]! + errors[i]! + (shift ? shift.rep[j]! : 0) })));
 }
 
 /** Calibrated error at each grid temperature (before reading terms); returns the trim's gain. */
-export function calibrated(f: BudgetFrame, m: number, errors: ArrayLike<number>, out: Float64Array): number {
-  const t = boardTrim(f, m, errors);
+export function calibrated(f: BudgetFrame, m: number, errors: ArrayLike<number>, out: Float64Array, shift?: CalShift): number {
+  const t = boardTrim(f, m, errors, shift);
   for (let i = 0; i < f.gridK.length; i++) {
     const k = f.gridK[i]!;
     out[i] = applyTrimK(t, k + errors[i]!) - k;
   }
   return t.gain;
+}
+
+/** kPerLsb at the calibration temperatures of mode m. */
+export function kPerLsbAtCal(f: BudgetFrame, m: number): number[] {
+  return f.calIndex[m]!.map((i) => f.kPerLsb[i]!);
 }

@@ -196,6 +196,17 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
   return out;
 }
 
+/** `± 0.05 °C` (or K): the reference thermometer's uncertainty, a temperature difference from 0 to 10 K. */
+export function readCalReference(terms: Term[], ctx: ReadContext): number | null {
+  const q = boundTerm(terms);
+  if (!q || !noExtra(terms, 1, ctx)) return bad(ctx, spanOf(terms), 'takes the reference thermometer\'s uncertainty such as `± 0.05 °C`');
+  const k = readQuantityValue(q, 'temperature', ctx, true);
+  if (k === null) return null;
+  const abs = Math.abs(k);
+  if (!(abs <= 10)) return outOfDomain(ctx, q.span, `must be from 0 to 10 K (found ${q.number.text}${q.unit ? ' ' + q.unit.text : ''})`);
+  return abs;
+}
+
 /** `2000 runs`, `2000 runs seed 7`, optionally followed by `normal` or `uniform`. */
 export function readMonteCarlo(terms: Term[], ctx: ReadContext): MonteCarloSpec | null {
   const hint = 'takes `1000 runs`, `2000 runs seed 7` or `2000 runs seed 7 normal`';

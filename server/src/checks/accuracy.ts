@@ -28,7 +28,7 @@ export function checkAccuracy({ channel: c, result, sink, reported }: CheckConte
     : noneMeets(b.modes.find((m) => m.setting.mode === 'two-point') ?? s);
   sink.report('accuracy-unmet', c.file, fieldSpan(c, 'accuracy'),
     `worst-case error ±${trimNumber(s.worstAbsK, 3)} K at ${trimNumber(s.worstAtCelsius, 4)} °C with ${describeSetting(s.setting)}${mc} exceeds the ±${trimNumber(c.accuracyK, 3)} K target; ` +
-      (dom ? `dominant: ${dom.label} (${trimNumber(dom.share * 100, 2)} %); ` : '') + fix,
+      (dom ? `dominant: ${dom.label} (${trimNumber(dom.share * 100, 2)} % of the summed one-at-a-time swings); ` : '') + fix,
     { worstK: s.worstAbsK, dominant: dom?.id ?? null, ...(better ? { calibration: calibrationText(better) } : {}) });
 }
 
@@ -36,7 +36,13 @@ export function checkAccuracy({ channel: c, result, sink, reported }: CheckConte
 function noneMeets(best: ModeBudget): string {
   const d = best.dominant;
   return `no calibration mode meets it (${describeSetting(best.setting)} leaves ±${trimNumber(best.worstAbsK, 3)} K${d ? `, mostly ${d.label}` : ''})` +
-    (d ? (d.id === 'quantisation' ? ': more counts per kelvin are needed (resolution)' : `: tighten the ${d.label.replace(/ ±.*$/, '')}`) : '');
+    (d ? `: ${advice(d.id, d.label)}` : '');
+}
+
+function advice(id: string, label: string): string {
+  if (id === 'quantisation' || id === 'cal-quantisation') return 'more counts per kelvin are needed (resolution)';
+  if (id === 'cal-reference') return 'calibrate against a better reference thermometer (cal_reference)';
+  return `tighten the ${label.replace(/^calibration readings: /, '').replace(/ ±.*$/, '')}`;
 }
 
 /** Spec text of a calibration setting, for a quick fix. */

@@ -9,7 +9,9 @@ export const COMPARE_HEADERS = ['channel', 'sensor', 'worst resolution', 'error'
 export const COMPARE_EXPLAIN = [
   'Error: worst case over the range from the error budget (circuit, reference, ADC and the element\'s own',
   'spread: thermistor R25/beta, RTD R0 and IEC 60751 class). "after cal" is after a one-point (offset)',
-  'calibration. Parts and code bytes are estimates (code: 8-bit AVR, -Os).',
+  'calibration. Parts and code bytes are estimates (code: 8-bit AVR, -Os). A "minus" note gives the spread',
+  'of the difference of two channels on one converter, whose reference, offset, gain and INL curve are',
+  'drawn once per board, so that what they cause alike cancels.',
 ];
 
 const k = (v: number | null) => (v === null ? 'n/a' : `±${trimNumber(v, 3)} K`);

@@ -10,6 +10,8 @@ import type { ModeBudget } from '../budget/types';
 import { conversionInput, generatableResults } from '../codegen/channel-input';
 import { generateC } from '../codegen';
 import { kindOf } from '../sensors/registry';
+import { pairedDifference, type PairedDifference } from '../budget/paired';
+import { trimNumber } from '../model/read-value';
 
 export interface CompareRow {
   channel: string;
@@ -35,6 +37,8 @@ export interface CompareRow {
 export interface CompareGroup {
   name: string;
   rows: CompareRow[];
+  /** Pairs of channels on one converter: the spread of their difference, converter drawn once per board. */
+  differences: PairedDifference[];
 }
 
 /** Groups of the analysis: by compare_group, or one group of every channel when none is named. */
@@ -47,7 +51,31 @@ export function compareGroups(a: Analysis): CompareGroup[] {
     groups.set(g, [...(groups.get(g) ?? []), r]);
   }
   const codeOk = new Set(generatableResults(a.channels, a.diagnostics));
-  return [...groups].map(([name, rs]) => ({ name, rows: rs.map((r) => compareRow(r, codeOk.has(r), a.path)) }));
+  return [...groups].map(([name, rs]) => {
+    const rows = rs.map((r) => compareRow(r, codeOk.has(r), a.path));
+    const differences: PairedDifference[] = [];
+    for (let i = 0; i < rs.length; i++) {
+      for (let j = i + 1; j < rs.length; j++) {
+        let d: PairedDifference | null = null;
+        try {
+          d = pairedDifference(rs[i]!.channel, rs[j]!.channel);
+        } catch {
+          d = null; // a channel the budget cannot model has its own note already
+        }
+        if (!d) continue;
+        differences.push(d);
+        rows[i]!.notes.push(differenceNote(d));
+      }
+    }
+    return { name, rows, differences };
+  });
+}
+
+/** The note of a pair on one converter: the difference's spread with the converter shared, and drawn apart. */
+export function differenceNote(d: PairedDifference): string {
+  const k = (x: number) => `±${trimNumber(x, 3)} K`;
+  return `minus ${d.b} (same converter: ${[...d.shared, ...(d.sharedInl ? ['INL curve'] : [])].join(', ')} drawn once per board): the difference spreads ${k(d.sharedK)} ` +
+    `(Monte Carlo 1-99 %, uncalibrated, ${trimNumber(d.lowC, 4)} .. ${trimNumber(d.highC, 4)} °C); with the converter drawn apart for each channel it would be ${k(d.independentK)}`;
 }
 
 function modeOf(r: ChannelResult, mode: 'none' | 'one-point'): ModeBudget | null {

@@ -3,6 +3,7 @@
 import type { BudgetResult } from '../budget/types';
 import { describeSetting } from '../budget/describe';
 import * as f from './figures';
+import { SHARES_EXPLAINED } from '../budget/describe';
 
 const TOP = 5;
 
@@ -15,14 +16,15 @@ export function budgetHoverSection(b: BudgetResult): string {
   const rows = modes.map((m) => `| ${describeSetting(m.setting)}${m === b.stated ? ' (stated)' : ''} | ±${f.kelvinDelta(m.worstAbsK)}${verdict(m.worstAbsK)} at ${f.celsius(m.worstAtCelsius)} | ${m.mcP99AbsK !== null ? `±${f.kelvinDelta(m.mcP99AbsK)}` : '-'} |`);
   const s = b.stated;
   const top = [...s.shares].filter((x) => x.swingAtWorstK > 0).sort((x, y) => y.swingAtWorstK - x.swingAtWorstK).slice(0, TOP);
-  const shares = top.map((x) => `| ${x.label} | ${f.kelvinDelta(x.swingAtWorstK)} | ${f.percent(x.share)} |`);
+  const shares = top.map((x) => `| ${x.label} | ${f.kelvinDelta(x.swingAtWorstK)} | ${f.percent(x.share)} | ${x.varianceShare === null ? '-' : f.percent(x.varianceShare)} |`);
   return [
     `**Error budget** (${b.method === 'corners' ? `worst case over ${b.corners} corner${b.corners === 1 ? '' : 's'}` : 'worst case by summed sensitivities'}; ` +
       `${mc ? `Monte Carlo ${mc.runs} boards, seed ${mc.seed}` : 'no Monte Carlo'}${target !== null ? `; target ±${f.kelvinDelta(target)}` : ''})`,
     `| calibration | worst case | Monte Carlo 1–99 % |\n|---|---:|---:|\n${rows.join('\n')}`,
     top.length
-      ? `Largest contributors (${describeSetting(s.setting)}, at ${f.celsius(s.worstAtCelsius)}):\n\n| input | swing | share |\n|---|---:|---:|\n${shares.join('\n')}`
+      ? `Largest contributors (${describeSetting(s.setting)}, at ${f.celsius(s.sharesAtCelsius)}):\n\n| input | swing | share of swings | variance share |\n|---|---:|---:|---:|\n${shares.join('\n')}\n\n` +
+        `${SHARES_EXPLAINED}`
       : 'No contributor moves the reading.',
-    s.dominant ? `Dominant: **${s.dominant.label}** (${f.percent(s.dominant.share)} of the worst case)` : '',
+    s.dominant ? `Dominant: **${s.dominant.label}** (${f.percent(s.dominant.share)} of the summed swings)` : '',
   ].filter(Boolean).join('\n\n');
 }

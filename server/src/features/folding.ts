@@ -1,6 +1,5 @@
 // Folding ranges: every block (header to closing brace) and every run of two or more comment-only lines.
-import type { Analysis } from '../engine';
-import type { Span } from '../syntax/ast';
+import type { Span, SyntaxFile } from '../syntax/ast';
 import { commentSpans } from './comments';
 
 export interface Fold {
@@ -8,9 +7,7 @@ export interface Fold {
   kind: 'region' | 'comment';
 }
 
-export function foldingRanges(a: Analysis): Fold[] {
-  const file = a.files[0];
-  if (!file) return [];
+export function foldingRanges(file: SyntaxFile): Fold[] {
   const text = file.text;
   const out: Fold[] = [];
   for (const item of file.parse.tree.items) {

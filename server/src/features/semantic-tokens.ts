@@ -1,8 +1,7 @@
 // Semantic tokens: keyword, type name, field (property), number, unit, string, comment, operator,
 // option (enumMember) and other words (variable), with a `declaration` modifier on block names.
 // `unit` is our own token type; editors that do not know it fall back to the TextMate colours.
-import type { Analysis } from '../engine';
-import type { QuantityTerm, Span, Term } from '../syntax/ast';
+import type { QuantityTerm, Span, SyntaxFile, Term } from '../syntax/ast';
 import { blockSpec, fieldSpec } from '../model/schema';
 import { commentSpans } from './comments';
 
@@ -19,9 +18,7 @@ export interface SemanticToken {
 
 const VALUE_KEYWORDS = new Set(['resistor', 'current', 'from', 'per']);
 
-export function semanticTokens(a: Analysis): SemanticToken[] {
-  const file = a.files[0];
-  if (!file) return [];
+export function semanticTokens(file: SyntaxFile): SemanticToken[] {
   const text = file.text;
   const out: SemanticToken[] = [];
   const add = (span: Span, type: TokenType, declaration = false) => {

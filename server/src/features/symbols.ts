@@ -1,6 +1,5 @@
 // Document outline: each block (with its keyword as detail) and its fields as children.
-import type { Analysis } from '../engine';
-import type { Span } from '../syntax/ast';
+import type { Span, SyntaxFile } from '../syntax/ast';
 import { spanOf } from '../model/read-value';
 import { sensorKind } from '../sensors/registry';
 
@@ -18,9 +17,7 @@ export interface OutlineSymbol {
   children: OutlineSymbol[];
 }
 
-export function documentSymbols(a: Analysis): OutlineSymbol[] {
-  const file = a.files[0];
-  if (!file) return [];
+export function documentSymbols(file: SyntaxFile): OutlineSymbol[] {
   const out: OutlineSymbol[] = [];
   for (const item of file.parse.tree.items) {
     if (item.kind === 'use') {

@@ -1,16 +1,25 @@
-// One analysis per open document version, reused by every request on that version (hover,
-// completion, inlay hints...) so that only a change re-runs the engine. An entry is also stale
-// when a file it uses has changed (an open document's version, or a disk change notice).
+// Per open document: its engine state (document-state.ts: what analyses keep between versions, and
+// when they drop it), its analysis at the current version (reused by every request on that version:
+// hover, completion, inlay hints...) and its parse at the current version (for the syntax-only
+// features: folding, outline, semantic tokens, which never wait for an analysis). An analysis is also
+// stale when a file it uses has changed (an open document's version, or a disk change notice).
+// Closing the document drops all of it.
 import type { TextDocument } from 'vscode-languageserver-textdocument';
-import { analyse, ParseCache, SweepCache, type Analysis } from '../engine';
+import { analyse, DocumentState, type Analysis, type SyntaxFile } from '../engine';
 import { uriToPath, type OpenDocuments } from './documents';
 
-interface Entry {
+interface Analysed {
   version: number;
   /** Version of every used file when analysed: an open document's version, or -1 for the disk. */
   deps: Map<string, number>;
   diskGeneration: number;
   analysis: Analysis;
+}
+
+interface Entry {
+  state: DocumentState;
+  analysed?: Analysed;
+  parsed?: { version: number; file: SyntaxFile };
 }
 
 export class AnalysisCache {
@@ -22,43 +31,52 @@ export class AnalysisCache {
 
   /** The analysis of a document at its current version (computed when missing or stale). */
   get(doc: TextDocument): Analysis {
-    const hit = this.entries.get(doc.uri);
+    const entry = this.entryFor(doc.uri);
+    const hit = entry.analysed;
     if (hit && hit.version === doc.version && this.fresh(hit)) return hit.analysis;
-    const analysis = this.run(doc);
+    const p = uriToPath(doc.uri, this.docs.roots);
+    const analysis = analyse({ path: p, text: doc.getText(), root: this.docs.rootFor(p), host: this.docs.host(), state: entry.state });
     const deps = new Map<string, number>();
     for (const f of analysis.files.slice(1)) deps.set(f.path, this.docs.byPath(f.path)?.version ?? -1);
-    this.entries.set(doc.uri, { version: doc.version, deps, diskGeneration: this.diskGeneration, analysis });
+    entry.analysed = { version: doc.version, deps, diskGeneration: this.diskGeneration, analysis };
     return analysis;
   }
 
-  /** Analyses `doc` with some files replaced (to try out a fix); not cached. */
+  /** The document's text and parse at its current version: the analysis' when there is one, else a parse alone. */
+  syntax(doc: TextDocument): SyntaxFile {
+    const entry = this.entryFor(doc.uri);
+    if (entry.analysed?.version === doc.version) return entry.analysed.analysis.files[0]!;
+    if (entry.parsed?.version !== doc.version) {
+      const text = doc.getText();
+      // The same parse cache as the analysis: its parse of this text then finds every piece.
+      entry.parsed = { version: doc.version, file: { text, parse: entry.state.pieces.parse(text) } };
+    }
+    return entry.parsed.file;
+  }
+
+  /** Analyses `doc` with some files replaced (to try out a fix): reads the document's state, changes nothing. */
   run(doc: TextDocument, overrides?: Map<string, string>): Analysis {
     const p = uriToPath(doc.uri, this.docs.roots);
     const text = overrides?.get(p) ?? doc.getText();
-    // Per-document caches: an edit re-parses and re-sweeps only the blocks it touched.
-    const caches = overrides ? undefined : this.cachesFor(doc.uri);
-    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), cache: caches?.sweeps, parseCache: caches?.pieces });
-  }
-
-  private readonly incremental = new Map<string, { sweeps: SweepCache; pieces: ParseCache }>();
-
-  private cachesFor(uri: string): { sweeps: SweepCache; pieces: ParseCache } {
-    let c = this.incremental.get(uri);
-    if (!c) this.incremental.set(uri, (c = { sweeps: new SweepCache(), pieces: new ParseCache() }));
-    return c;
+    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), state: this.entries.get(doc.uri)?.state, trial: true });
   }
 
   /** The last analysis of a document, whatever its version (for finding dependants). */
   peek(uri: string): Analysis | undefined {
-    return this.entries.get(uri)?.analysis;
+    return this.entries.get(uri)?.analysed?.analysis;
   }
 
   drop(uri: string): void {
     this.entries.delete(uri);
-    this.incremental.delete(uri);
   }
 
-  private fresh(e: Entry): boolean {
+  private entryFor(uri: string): Entry {
+    let e = this.entries.get(uri);
+    if (!e) this.entries.set(uri, (e = { state: new DocumentState() }));
+    return e;
+  }
+
+  private fresh(e: Analysed): boolean {
     if (e.diskGeneration !== this.diskGeneration && [...e.deps.values()].some((v) => v === -1)) return false;
     for (const [p, v] of e.deps) if ((this.docs.byPath(p)?.version ?? -1) !== v) return false;
     return true;

@@ -1,5 +1,7 @@
 // Open documents and file access for the engine: a SourceHost that reads open documents first
-// (so a `use`d file being edited is seen as typed), then the disk. Also maps URIs to paths.
+// (so a `use`d file being edited is seen as typed), then the disk. Also maps URIs to paths and
+// lists the workspace's specs (navigation reaches files that are not open).
+import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { TextDocuments } from 'vscode-languageserver/node';
@@ -9,6 +11,11 @@ import { isInside } from '../model/workspace';
 import { readDisk, realPathOnDisk } from '../disk';
 
 export { readDisk };
+
+/** Bounds of the workspace walk: folder depth, entries looked at, spec files kept. */
+const SCAN_DEPTH = 12;
+const SCAN_ENTRIES = 50_000;
+const SCAN_FILES = 2_000;
 
 export class OpenDocuments {
   readonly docs = new TextDocuments(TextDocument);
@@ -32,6 +39,34 @@ export class OpenDocuments {
       if (isInside(r, absPath) && (!best || r.length > best.length)) best = r;
     }
     return best ?? path.dirname(absPath);
+  }
+
+  /**
+   * Every spec of the workspace: the `.tsense` files under the workspace folders (a bounded walk
+   * that skips node_modules, .git and other dot-folders and does not follow links), and every open
+   * spec. Paths, each once; the text is read through `host()`.
+   */
+  workspaceSpecs(): string[] {
+    const out = new Set<string>();
+    let budget = SCAN_ENTRIES;
+    const walk = (dir: string, depth: number): void => {
+      if (depth > SCAN_DEPTH || budget <= 0 || out.size >= SCAN_FILES) return;
+      let entries: fs.Dirent[];
+      try {
+        entries = fs.readdirSync(dir, { withFileTypes: true });
+      } catch {
+        return;
+      }
+      for (const e of entries) {
+        if (--budget <= 0 || out.size >= SCAN_FILES) return;
+        if (e.isDirectory()) {
+          if (!e.name.startsWith('.') && e.name !== 'node_modules') walk(path.join(dir, e.name), depth + 1);
+        } else if (e.isFile() && e.name.endsWith('.tsense')) out.add(path.join(dir, e.name));
+      }
+    };
+    for (const r of this.roots) walk(r, 0);
+    for (const d of this.docs.all()) if (d.languageId === 'tsense' || d.uri.endsWith('.tsense')) out.add(uriToPath(d.uri, this.roots));
+    return [...out];
   }
 
   /** Reads open documents first, then the disk. */

@@ -7,6 +7,8 @@ export function startServer(): number {
   const connection = createConnection(ProposedFeatures.all, process.stdin, process.stdout);
   // Anything written to stdout would corrupt the protocol stream: route console output to stderr.
   console.log = (...args: unknown[]) => process.stderr.write(args.map(String).join(' ') + '\n');
+  // Never die on a stray promise (a client refusing a request we sent, say): log it and keep serving.
+  process.on('unhandledRejection', (err) => connection.console.error(`thermoscribe: unhandled rejection: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`));
   createServer(connection);
   connection.listen();
   return 0;

@@ -13,7 +13,7 @@ import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
-import { isTwoCurrentBias, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
+import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
 import { shown } from '../checks/shown';
 
 export interface BlockRef {
@@ -33,15 +33,42 @@ export interface Resolution {
 const ZERO_C = 273.15;
 
 /**
- * `keep`: remember each block's definition for the next resolve of the same document (the language
- * server's parse cache gives unchanged blocks the same nodes). Without a parse cache nothing could
- * be found again, so nothing is kept.
+ * `kept`: the document's definitions by piece (document-state.ts), read and added to, so the next
+ * resolve of the same document re-reads only the blocks whose text changed (its parse cache gives
+ * unchanged blocks the same nodes). Without it nothing is kept.
  */
-export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = true): Resolution {
+export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, kept?: KeptDefinitions): Resolution {
   const entry = files[0]!;
-  const blocks = new Map<string, BlockRef>();
+  const blocks = declaredBlocks(files, sink);
   const res: Resolution = { blocks, sensors: new Map(), adcs: new Map(), channels: [] };
-  // Entry file first so that a duplicate is reported where the user is typing.
+  for (const ref of blocks.values()) {
+    const kind = sensorKind(ref.kind);
+    if (kind) {
+      const d = remembered(ref, sink, kept, (into) => {
+        const r = new BlockReader(ref, kind.block, into);
+        return kind.read(r, base(ref, r));
+      });
+      if (d) res.sensors.set(d.name, d);
+    } else if (ref.kind === 'adc') {
+      const a = remembered(ref, sink, kept, (into) => readAdc(ref, into));
+      if (a) res.adcs.set(a.name, a);
+    }
+  }
+  for (const ref of blocks.values()) {
+    if (ref.kind !== 'channel' || ref.file !== entry.path) continue;
+    const c = kept ? rememberedChannel(ref, res, sink, kept) : readChannel(ref, res, sink);
+    if (c) res.channels.push(c);
+  }
+  return res;
+}
+
+/**
+ * Every named block of the files by name, of every kind in the schema; the first definition of a
+ * name wins (the entry file comes first, so a duplicate is reported where the user is typing).
+ * Also what navigation reads (features/navigation.ts), so both agree on what a name means.
+ */
+export function declaredBlocks(files: readonly LoadedFile[], sink: DiagnosticSink = new DiagnosticSink()): Map<string, BlockRef> {
+  const blocks = new Map<string, BlockRef>();
   for (const file of files) {
     for (const item of file.parse.tree.items) {
       if (item.kind !== 'block') continue;
@@ -59,25 +86,7 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = t
       blocks.set(item.name.text, { kind: spec.kind, file: file.path, node: item });
     }
   }
-  for (const ref of blocks.values()) {
-    const kind = sensorKind(ref.kind);
-    if (kind) {
-      const d = remembered(ref, sink, keep, (into) => {
-        const r = new BlockReader(ref, kind.block, into);
-        return kind.read(r, base(ref, r));
-      });
-      if (d) res.sensors.set(d.name, d);
-    } else if (ref.kind === 'adc') {
-      const a = remembered(ref, sink, keep, (into) => readAdc(ref, into));
-      if (a) res.adcs.set(a.name, a);
-    }
-  }
-  for (const ref of blocks.values()) {
-    if (ref.kind !== 'channel' || ref.file !== entry.path) continue;
-    const c = keep ? rememberedChannel(ref, res, sink) : readChannel(ref, res, sink);
-    if (c) res.channels.push(c);
-  }
-  return res;
+  return blocks;
 }
 
 /**
@@ -86,7 +95,7 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, keep = t
  * only the blocks it changed; a block that only moved gets a moved copy of what it gave before.
  * A sensor or ADC depends on its own block alone; a channel also on the sensor and ADC it names.
  */
-interface Remembered {
+export interface Remembered {
   file: string;
   /** Offset of the block's piece when `def` and `diagnostics` were made. */
   by: number;
@@ -94,11 +103,12 @@ interface Remembered {
   diagnostics: DiagnosticSink['items'];
 }
 
-const REMEMBERED = new WeakMap<TopItem, Remembered>();
+/** Definitions by the first parse of their piece of text; a document's own (document-state.ts). */
+export type KeptDefinitions = WeakMap<TopItem, Remembered>;
 
-function recall(ref: BlockRef, sink: DiagnosticSink, accept: (hit: Remembered) => boolean, move: (hit: Remembered, by: number) => unknown): unknown | undefined {
+function recall(ref: BlockRef, sink: DiagnosticSink, kept: KeptDefinitions, accept: (hit: Remembered) => boolean, move: (hit: Remembered, by: number) => unknown): unknown | undefined {
   const { base, by } = pieceOrigin(ref.node);
-  const hit = REMEMBERED.get(base);
+  const hit = kept.get(base);
   if (!hit || hit.file !== ref.file || !accept(hit)) return undefined;
   if (hit.by !== by) {
     hit.def = move(hit, by - hit.by);
@@ -109,29 +119,30 @@ function recall(ref: BlockRef, sink: DiagnosticSink, accept: (hit: Remembered) =
   return hit.def;
 }
 
-function remember<T>(ref: BlockRef, sink: DiagnosticSink, read: (into: DiagnosticSink) => T | null): T | null {
+function remember<T>(ref: BlockRef, sink: DiagnosticSink, kept: KeptDefinitions, read: (into: DiagnosticSink) => T | null): T | null {
   const local = new DiagnosticSink();
   const def = read(local);
   sink.items.push(...local.items);
   const { base, by } = pieceOrigin(ref.node);
-  REMEMBERED.set(base, { file: ref.file, by, def, diagnostics: [...local.items] });
+  kept.set(base, { file: ref.file, by, def, diagnostics: [...local.items] });
   return def;
 }
 
-function remembered<T>(ref: BlockRef, sink: DiagnosticSink, keep: boolean, read: (into: DiagnosticSink) => T | null): T | null {
-  if (!keep) return read(sink);
-  const hit = recall(ref, sink, () => true, (h, delta) => (h.def === null ? null : movedCopy(h.def as object, delta)));
-  return hit === undefined ? remember(ref, sink, read) : (hit as T | null);
+function remembered<T>(ref: BlockRef, sink: DiagnosticSink, kept: KeptDefinitions | undefined, read: (into: DiagnosticSink) => T | null): T | null {
+  if (!kept) return read(sink);
+  const hit = recall(ref, sink, kept, () => true, (h, delta) => (h.def === null ? null : movedCopy(h.def as object, delta)));
+  return hit === undefined ? remember(ref, sink, kept, read) : (hit as T | null);
 }
 
 /** A channel is kept while its block is the same text and the sensor and ADC it names have the same content. */
-function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
+function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, kept: KeptDefinitions): ChannelDef | null {
   const sensorOf = (c: ChannelDef) => res.sensors.get(c.sensor.name);
   const adcOf = (c: ChannelDef) => res.adcs.get(c.adc.name);
   const same = (a: object | undefined, b: object) => a !== undefined && contentToken(a) === contentToken(b);
   const hit = recall(
     ref,
     sink,
+    kept,
     (h) => h.def !== null && same(sensorOf(h.def as ChannelDef), (h.def as ChannelDef).sensor) && same(adcOf(h.def as ChannelDef), (h.def as ChannelDef).adc),
     (h, delta) => {
       // Its own spans move; the sensor and ADC are set to their current definitions below.
@@ -141,14 +152,14 @@ function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink)
       return moved;
     },
   ) as ChannelDef | undefined;
-  if (hit === undefined) return remember(ref, sink, (into) => readChannel(ref, res, into));
+  if (hit === undefined) return remember(ref, sink, kept, (into) => readChannel(ref, res, into));
   const sensor = sensorOf(hit)!;
   const adc = adcOf(hit)!;
   if (hit.sensor === sensor && hit.adc === adc) return hit;
   // The sensor or ADC moved: the same channel, pointing at their current definitions.
   const current: ChannelDef = { ...hit, sensor, adc };
   sameContent(current, hit);
-  REMEMBERED.get(pieceOrigin(ref.node).base)!.def = current;
+  kept.get(pieceOrigin(ref.node).base)!.def = current;
   return current;
 }
 
@@ -453,6 +464,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   };
   const calibration = range ? phrase('calibration', (t) => readCalibration(t, r.ctx('calibration'), range.low, range.high)) : undefined;
   const measured = adc ? phrase('measured', (t) => readMeasured(t, r.ctx('measured'), adc.bits)) : undefined;
+  const calReference = phrase('cal_reference', (t) => readCalReference(t, r.ctx('cal_reference')));
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
   // Resistive-sensor fields (read-sensors.ts).
@@ -468,6 +480,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
     ...(calibration ? { calibration } : {}),
     ...(measured ? { measured } : {}),
     ...(monteCarlo ? { monteCarlo } : {}),
+    ...(calReference !== undefined ? { calReferenceK: calReference } : {}),
     ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),
     ...(codegen ? { codegen } : {}),
     kind: 'channel',

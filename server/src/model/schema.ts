@@ -50,6 +50,8 @@ export interface BlockSpec {
   /** The fields a new block is written with (completion and snippets), each filled with its example. */
   template: string[];
   fields: FieldSpec[];
+  /** Why rename refuses a block of this kind, when its name is used outside the specs. */
+  notRenamed?: string;
 }
 
 const adc: BlockSpec = {
@@ -63,7 +65,7 @@ const adc: BlockSpec = {
     { name: 'sample_cap', form: { form: 'quantity', dimension: 'capacitance', min: 1e-15, minInclusive: true, max: 1e-3 }, doc: 'Sampling capacitance, used to size an input capacitor when the source impedance is too high.', example: 'sample_cap = 14 pF', optional: true },
     { name: 'offset_error', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Offset error of the converter in LSB (from its datasheet), for the error budget.', example: 'offset_error = ± 2 LSB' },
     { name: 'gain_error', form: { form: 'phrase', syntax: '± x %' }, defaultText: '± 0 %', doc: 'Gain (full-scale) error of the converter, relative, for the error budget.', example: 'gain_error = ± 0.2 %' },
-    { name: 'inl', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Integral nonlinearity in LSB, for the error budget (taken as a bound on every reading; calibration does not remove it).', example: 'inl = ± 1 LSB' },
+    { name: 'inl', form: { form: 'phrase', syntax: '± n LSB' }, defaultText: '± 0 LSB', doc: 'Integral nonlinearity in LSB, for the error budget: a bound on every reading, calibration readings included. The worst case takes any value within it at each reading; the Monte Carlo draws one smooth curve of the code per board within it, so a calibration removes it at the calibration code.', example: 'inl = ± 1 LSB' },
     { name: 'noise', form: { form: 'phrase', syntax: 'n LSB rms | v mV rms' }, doc: 'Noise at the converter input, rms, in LSB or volts. Oversampling gains resolution only when it is at least 0.5 LSB rms. Unknown when absent.', example: 'noise = 0.8 LSB rms', optional: true, words: ['rms'] },
   ],
 };
@@ -81,6 +83,7 @@ const channel = (): BlockSpec => ({
   kind: 'channel',
   doc: 'A temperature channel: a sensor, its bias, the ADC that reads it, and the targets it must meet.',
   template: ['sensor', 'adc', 'bias', 'range', 'accuracy'],
+  notRenamed: 'Channel names are not renamed here: generated code and logs refer to them. Edit the name directly.',
   fields: [
     sensorField(),
     { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
@@ -93,6 +96,7 @@ const channel = (): BlockSpec => ({
     { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table', optionDocs: { table: 'Firmware converts codes through a generated table (model-exact).', line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } },
     { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: 'Sound window for the bias current (see bias-current-low/high).', example: 'current_window = 5 uA .. 500 uA' },
     { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C', words: ['none', 'one', 'two', 'point', 'points', 'at', 'and'] },
+    { name: 'cal_reference', form: { form: 'phrase', syntax: '± t' }, defaultText: '± 0 °C (exact)', doc: 'Uncertainty of the reference thermometer each board is calibrated against (half-width, 0 to 10 K). The error budget passes it, with the quantisation and INL of the calibration readings, through the trim to every temperature.', example: 'cal_reference = ± 0.05 °C' },
     { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. On a junction channel the model is fitted to them (IS with one point; IS and N with two or more) and the error budget and generated code use the fitted model; a point that disagrees with the others is flagged and left out of that fit. Codes are whole numbers inside the converter scale (not 0 or full scale); thermistor and RTD channels do not use the points (a warning says so).', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C', optional: true, words: ['at', 'and'] },
     { name: 'monte_carlo', form: { form: 'phrase', syntax: 'N runs [seed S] [normal]' }, defaultText: '1000 runs seed 1', doc: 'Monte Carlo error budget: number of simulated boards, seed of the generator, and `normal` to read every tolerance as 3 sigma of a normal law (truncated there) instead of uniform.', example: 'monte_carlo = 2000 runs seed 7', words: ['runs', 'seed', 'normal', 'uniform'] },
     { name: 'output', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-4, minInclusive: true, max: 1 }, defaultText: '0.01 °C', doc: 'Unit of the integer the generated conversion code returns: `0.01 °C` returns signed hundredths of a degree. 1 divided by it must be a whole number from 1 to 10000.', example: 'output = 0.1 °C' },

@@ -87,6 +87,8 @@ export interface ChannelDef extends DefBase {
   calibration?: CalibrationSpec;
   /** ADC codes measured on a real board at known temperatures. */
   measured?: MeasuredPoint[];
+  /** Uncertainty (half-width) of the reference thermometer a calibration compares with, K (absent: taken as exact). */
+  calReferenceK?: number;
   /** Monte Carlo settings of the error budget (absent = defaults). */
   monteCarlo?: MonteCarloSpec;
   /** Options of the generated conversion code (absent: codegen/channel-input.ts CODE_DEFAULTS). */

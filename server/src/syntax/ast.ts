@@ -107,3 +107,9 @@ export interface ParseResult {
   tree: DocumentNode;
   problems: SyntaxProblem[];
 }
+
+/** One file's text and parse: all that the syntax-only features (folding, outline, semantic tokens) read. */
+export interface SyntaxFile {
+  text: string;
+  parse: ParseResult;
+}

@@ -37,6 +37,11 @@ export class ParseCache {
     return c;
   }
 
+  /** Drops the caches of files this document no longer uses. */
+  retainUsedFiles(paths: readonly string[]): void {
+    for (const p of [...this.used.keys()]) if (!paths.includes(p)) this.used.delete(p);
+  }
+
   parse(text: string): ParseResult {
     const next = new Map<string, PieceEntry>();
     const items: TopItem[] = [];

@@ -1,4 +1,5 @@
 // Error budget, calibration, two-current method and oversampling. Each check names its source.
+import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { analyse } from '../../../server/src/engine';
@@ -240,5 +241,39 @@ describe('diagnostic fixtures', () => {
     const d = analyseFile(path.join(dir, 'accuracy-unmet.tsense')).diagnostics[0]!;
     expect(d.message).toMatch(/dominant: IS spread/);
     expect(d.message).toMatch(/two-point calibration at 0 °C and 50 °C would meet it/);
+  });
+});
+
+describe('ratiometric reading', () => {
+  const SAMPLE = path.join(__dirname, '../../../samples/sous-vide.tsense');
+  const channelsOf = (withTolerance: boolean) => {
+    let text = fs.readFileSync(SAMPLE, 'utf8');
+    if (withTolerance) text = text.replace('reference  = 3.3 V ', 'reference  = 3.3 V ± 1 %');
+    const a = analyse({ path: SAMPLE, text });
+    expect(a.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    return a.model.channels;
+  };
+
+  it('does not count the rail\'s tolerance: the divider ratio does not depend on the rail', () => {
+    // An unloaded divider read by a converter whose reference is the divider's own supply gives
+    // code = 2^n Rt / (Rf + Rt) whatever the rail's value (Ohm's law; common practice, no source),
+    // so a tolerance on that rail cannot move the reading. Before the fix the divider was fed the
+    // nominal rail while the code divided by the drawn one, and a 'reference' input of 0.53 K
+    // appeared (worst case 1.86 K uncalibrated, 0.307 K after two points).
+    const plain = channelsOf(false);
+    const toleranced = channelsOf(true);
+    for (let i = 0; i < plain.length; i++) {
+      const a = channelBudget(plain[i]!, { runs: 0 });
+      const b = channelBudget(toleranced[i]!, { runs: 0 });
+      expect(b.contributors.map((k) => k.id)).not.toContain('reference');
+      expect(b.modes.map((m) => m.worstAbsK)).toEqual(a.modes.map((m) => m.worstAbsK));
+      expect(b.notes.join(' ')).toMatch(/Ratiometric reading: the rail's tolerance \(± 1 %\)/);
+    }
+    const ntc = channelBudget(toleranced.find((c) => c.name === 'bath_ntc')!, { runs: 0 });
+    const worst = Object.fromEntries(ntc.modes.map((m) => [m.setting.mode, m.worstAbsK]));
+    // Issue 18's recomputation without the reference tolerance: 1.33 K uncalibrated (1.04 / 0.067 K
+    // after one / two points before the calibration readings' own errors were counted).
+    expect(worst['none']!).toBeCloseTo(1.33, 2);
+    expect(worst['two-point']!).toBeLessThan(0.1);
   });
 });

@@ -4,7 +4,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyse, ParseCache, SweepCache } from '../../../server/src/engine';
+import { analyse, DocumentState } from '../../../server/src/engine';
 import { DiskHost } from '../../../server/src/cli/io';
 import { contentToken } from '../../../server/src/model/moved';
 
@@ -17,7 +17,7 @@ describe('incremental analysis', () => {
   it('matches a fresh analysis after each of a series of edits', () => {
     const host = new DiskHost();
     const base = fs.readFileSync(FILE, 'utf8');
-    const caches = { cache: new SweepCache(), parseCache: new ParseCache() };
+    const caches = { state: new DocumentState() };
     const edits = [
       (t: string) => t.replace('bits       = 10', 'bits       = 11'),
       (t: string) => t.replace('reference = 0.6 V', 'reference = 0.7 V'),
@@ -71,7 +71,7 @@ describe('incremental analysis', () => {
   it('matches a fresh analysis across 150 random edits (property-based, fast-check)', () => {
     const host = new DiskHost();
     const base = fs.readFileSync(FILE, 'utf8');
-    const caches = { cache: new SweepCache(), parseCache: new ParseCache() };
+    const caches = { state: new DocumentState() };
     const edit = fc.record({
       at: fc.nat({ max: base.length }),
       del: fc.nat({ max: 12 }),

@@ -15,7 +15,7 @@ import { quickFixes, iecCode } from '../../../server/src/features/quickfix';
 import { documentSymbols } from '../../../server/src/features/symbols';
 import { foldingRanges } from '../../../server/src/features/folding';
 import { semanticTokens } from '../../../server/src/features/semantic-tokens';
-import { prepareRename, rename, references } from '../../../server/src/features/navigation';
+import { definition, prepareRename, rename, references } from '../../../server/src/features/navigation';
 
 const FIXTURES = path.resolve(__dirname, '..', '..', 'fixtures', 'features');
 const UPDATE = process.env['UPDATE_EXPECT'] === '1';
@@ -65,9 +65,9 @@ describe('data-driven features', () => {
     return out;
   });
   check('outline', 'txt', (a, _o, text) => {
-    const lines = documentSymbols(a).map((s) => `${s.label} ${s.name}${s.detail ? ` (${s.detail})` : ''}\n${s.children.map((c) => `  ${c.label} ${c.name} = ${c.detail}`).join('\n')}`);
-    const folds = foldingRanges(a).map((f) => `fold ${f.kind} ${JSON.stringify(text.slice(f.span.start, f.span.start + 12))}..${JSON.stringify(text.slice(f.span.end - 1, f.span.end))}`);
-    const tokens = semanticTokens(a).map((t) => `${t.type}${t.declaration ? '+decl' : ''} ${JSON.stringify(text.slice(t.start, t.start + t.length))}`);
+    const lines = documentSymbols(a.files[0]!).map((s) => `${s.label} ${s.name}${s.detail ? ` (${s.detail})` : ''}\n${s.children.map((c) => `  ${c.label} ${c.name} = ${c.detail}`).join('\n')}`);
+    const folds = foldingRanges(a.files[0]!).map((f) => `fold ${f.kind} ${JSON.stringify(text.slice(f.span.start, f.span.start + 12))}..${JSON.stringify(text.slice(f.span.end - 1, f.span.end))}`);
+    const tokens = semanticTokens(a.files[0]!).map((t) => `${t.type}${t.declaration ? '+decl' : ''} ${JSON.stringify(text.slice(t.start, t.start + t.length))}`);
     return [...lines, ...folds, ...tokens].join('\n') + '\n';
   });
   check('quickfix', 'txt', (a, _o, text, file) => {
@@ -124,6 +124,27 @@ describe('independent checks', () => {
     expect(rename(a, at, 'bad name')).toMatchObject({ ok: false, message: expect.stringMatching(/not a valid name/) });
     expect(rename(a, at, 'board_adc')).toMatchObject({ ok: false, message: expect.stringMatching(/already defined/) });
   });
+});
+
+describe('navigation for every named block kind (samples)', () => {
+  // The defect: F2 on `thermistor bath_bead` renamed only the definition, F2 on `sensor = bath_bead`
+  // was refused naming the wrong kind, and F12 on the usage found nothing (the rtd likewise).
+  const SAMPLES = path.resolve(__dirname, '..', '..', '..', 'samples');
+  for (const [file, name] of [['sous-vide.tsense', 'bath_bead'], ['kiln.tsense', 'chamber_pt']] as const) {
+    it(`${file}: ${name} from its definition and from its usage`, () => {
+      const p = path.join(SAMPLES, file);
+      const text = fs.readFileSync(p, 'utf8');
+      const a = analyse({ path: p, text, root: SAMPLES, host: host() });
+      const def = text.indexOf(` ${name} {`) + 1;
+      const use = text.indexOf(`= ${name}`) + 2;
+      expect(definition(a, use)).toEqual({ file: p, span: { start: def, end: def + name.length } });
+      expect(references(a, use, true).map((r) => r.span.start).sort((x, y) => x - y)).toEqual([def, use]);
+      for (const at of [def, use]) {
+        const r = rename(a, at, 'probe_2');
+        expect(r.ok && r.edits.map((e) => e.span.start).sort((x, y) => x - y)).toEqual([def, use]);
+      }
+    });
+  }
 });
 
 describe('independent checks: resistive sensor hovers', () => {

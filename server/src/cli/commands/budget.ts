@@ -7,7 +7,7 @@ import { table } from '../text';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../budget/budget';
 import { budgetJson } from '../../budget/json';
-import { describeSetting } from '../../budget/describe';
+import { describeSetting, SHARES_EXPLAINED } from '../../budget/describe';
 import type { BudgetResult } from '../../budget/types';
 import { trimNumber } from '../../model/read-value';
 import { fitMeasured } from '../../calibration/fit';
@@ -85,8 +85,10 @@ export function budgetText(b: BudgetResult, c: ChannelDef): string {
     m.dominant ? m.dominant.label : '-',
   ])));
   out.push('');
-  out.push(`Contributors (${describeSetting(b.stated.setting)}; swing at ${trimNumber(b.stated.worstAtCelsius, 4)} °C and its share):`);
-  out.push(table(['input', 'swing K', 'share', 'max swing K'], b.stated.shares.map((s) => [s.label, k3(s.swingAtWorstK), `${trimNumber(s.share * 100, 3)} %`, k3(s.maxSwingK)])));
+  out.push(`Contributors (${describeSetting(b.stated.setting)}; swing at ${trimNumber(b.stated.sharesAtCelsius, 4)} °C and its shares):`);
+  const pc = (x: number | null) => (x === null ? '-' : `${trimNumber(x * 100, 3)} %`);
+  out.push(table(['input', 'swing K', 'share of swings', 'variance share', 'max swing K'], b.stated.shares.map((s) => [s.label, k3(s.swingAtWorstK), pc(s.share), pc(s.varianceShare), k3(s.maxSwingK)])));
+  out.push(SHARES_EXPLAINED);
   out.push('');
   const s = b.stated;
   const rows = b.celsius.map((t, i) => [trimNumber(t, 4), k3(s.worstLow[i]!), k3(s.worstHigh[i]!), ...(s.mc ? [k3(s.mc.p1[i]!), k3(s.mc.p50[i]!), k3(s.mc.p99[i]!)] : [])]);

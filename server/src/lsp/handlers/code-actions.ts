@@ -104,6 +104,7 @@ export function onResolveCodeAction(ctx: ServerContext, action: CodeAction): Cod
   const g = generateForChannel(a, data.channel, existing);
   if (!g.ok) {
     ctx.connection.console.warn(`thermoscribe: ${g.message}`);
+    // A client that refuses the request does not take the server down (lsp/start.ts logs the rejection).
     void ctx.connection.window.showWarningMessage(g.message);
     return { ...action, disabled: { reason: g.message } };
   }

@@ -5,6 +5,7 @@
 // the panel formats nothing itself. A missing group or an unreadable file is an answer, not an error.
 import { ErrorCodes, ResponseError } from 'vscode-languageserver/node';
 import { compareGroups, type CompareRow } from '../../compare/compare';
+import type { PairedDifference } from '../../budget/paired';
 import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../compare/cells';
 import { CAUTION } from '../../report/caution';
 import type { ServerContext } from '../context';
@@ -20,6 +21,8 @@ export interface CompareDataParams {
 export interface CompareDataGroup {
   name: string;
   rows: CompareRow[];
+  /** Pairs on one converter (their notes are in the rows' notes too). */
+  differences: PairedDifference[];
   /** The rows' cells as the CLI prints them, in the order of `headers`. */
   cells: string[][];
 }
@@ -54,7 +57,7 @@ export function onCompareData(ctx: ServerContext, params: CompareDataParams): Co
     ok: true,
     groupNames,
     headers: [...COMPARE_HEADERS],
-    groups: groups.map((g) => ({ name: g.name, rows: g.rows, cells: g.rows.map(compareCells) })),
+    groups: groups.map((g) => ({ name: g.name, rows: g.rows, differences: g.differences, cells: g.rows.map(compareCells) })),
     errors: a.diagnostics.filter((d) => d.severity === 'error').length,
     explain: COMPARE_EXPLAIN.join(' '),
     caution: CAUTION,

@@ -17,7 +17,7 @@ const KIND: Record<FeatureKind, SymbolKind> = {
 export function onDocumentSymbols(ctx: ServerContext, params: DocumentSymbolParams): DocumentSymbol[] {
   const doc = ctx.documents.get(params.textDocument.uri);
   if (!doc) return [];
-  return documentSymbols(ctx.analyses.get(doc)).map((s) => convert(doc, s));
+  return documentSymbols(ctx.analyses.syntax(doc)).map((s) => convert(doc, s));
 }
 
 function convert(doc: TextDocument, s: OutlineSymbol): DocumentSymbol {

@@ -1,5 +1,6 @@
-// Go to definition, find references, prepare rename and rename. References and renames gather
-// the occurrences from every open spec that sees the definition's file, deduplicated.
+// Go to definition, find references, prepare rename and rename. References and renames reach every
+// spec of the workspace that sees the definition's file, open or not (read through the documents'
+// SourceHost, so an open file is seen as typed); each place once.
 import {
   ResponseError,
   ErrorCodes,
@@ -12,18 +13,27 @@ import {
   type TextEdit,
   type WorkspaceEdit,
 } from 'vscode-languageserver/node';
-import type { TextDocument } from 'vscode-languageserver-textdocument';
-import { definition, occurrences, prepareRename, rename, symbolAt, type FileSpan } from '../../features/navigation';
-import type { Analysis } from '../../engine';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { definition, loadNames, prepareRename, rename, workspaceOccurrences, type FileSpan, type NamedSpec } from '../../features/navigation';
 import type { ServerContext } from '../context';
 import { docForFile, toRange } from '../convert';
-import { pathToUri } from '../documents';
+import { pathToUri, uriToPath } from '../documents';
 
-/** URI and range of an engine span in one of an analysis' files. */
-function location(ctx: ServerContext, a: Analysis, fs: FileSpan): Location | null {
-  const open = ctx.documents.byPath(fs.file);
-  const doc = docForFile(a, fs.file, open);
-  return doc ? { uri: open?.uri ?? pathToUri(fs.file), range: toRange(doc, fs.span) } : null;
+/** URI and range of a span in a file whose text is given (the open document's, when it is open). */
+function location(ctx: ServerContext, at: FileSpan & { text: string }): Location {
+  const open = ctx.documents.byPath(at.file);
+  const doc = open ?? TextDocument.create(pathToUri(at.file), 'tsense', 0, at.text);
+  return { uri: open?.uri ?? pathToUri(at.file), range: toRange(doc, at.span) };
+}
+
+/** The workspace's other specs, names only, loaded one at a time as they are asked for. */
+function* otherSpecs(ctx: ServerContext, except: string): Generator<NamedSpec> {
+  const host = ctx.documents.host();
+  for (const p of ctx.documents.workspaceSpecs()) {
+    if (p === except) continue;
+    const text = host.read(p);
+    if (text !== undefined) yield loadNames(p, text, ctx.documents.rootFor(p), host);
+  }
 }
 
 export function onDefinition(ctx: ServerContext, params: DefinitionParams): Location | null {
@@ -31,35 +41,16 @@ export function onDefinition(ctx: ServerContext, params: DefinitionParams): Loca
   if (!doc) return null;
   const a = ctx.analyses.get(doc);
   const d = definition(a, doc.offsetAt(params.position));
-  return d ? location(ctx, a, d) : null;
-}
-
-/** Occurrences of the symbol under the cursor in every open spec that sees its definition. */
-function allOccurrences(ctx: ServerContext, doc: TextDocument, offset: number, includeDefinition: boolean): { a: Analysis; at: FileSpan }[] | null {
-  const a = ctx.analyses.get(doc);
-  const s = symbolAt(a, offset);
-  if (!s) return null;
-  const out: { a: Analysis; at: FileSpan }[] = [];
-  const seen = new Set<string>();
-  const analyses = [a, ...ctx.documents.docs.all().filter((d) => d.uri !== doc.uri).map((d) => ctx.analyses.get(d))];
-  for (const other of analyses) {
-    if (s.definition && !other.files.some((f) => f.path === s.definition!.file)) continue;
-    if (!s.definition && other !== a) continue;
-    for (const o of occurrences(other, s.name, s.kind, includeDefinition)) {
-      const key = `${o.file}:${o.span.start}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
-      out.push({ a: other, at: o });
-    }
-  }
-  return out;
+  const target = d ? docForFile(a, d.file, ctx.documents.byPath(d.file)) : undefined;
+  return d && target ? { uri: ctx.documents.byPath(d.file)?.uri ?? pathToUri(d.file), range: toRange(target, d.span) } : null;
 }
 
 export function onReferences(ctx: ServerContext, params: ReferenceParams): Location[] {
   const doc = ctx.documents.get(params.textDocument.uri);
   if (!doc) return [];
-  const occ = allOccurrences(ctx, doc, doc.offsetAt(params.position), params.context.includeDeclaration) ?? [];
-  return occ.map((o) => location(ctx, o.a, o.at)).filter((l): l is Location => l !== null);
+  const self = uriToPath(doc.uri, ctx.documents.roots);
+  const occ = workspaceOccurrences(ctx.analyses.get(doc), doc.offsetAt(params.position), otherSpecs(ctx, self), params.context.includeDeclaration) ?? [];
+  return occ.map((o) => location(ctx, o));
 }
 
 export function onPrepareRename(ctx: ServerContext, params: PrepareRenameParams): { range: Range; placeholder: string } {
@@ -73,13 +64,13 @@ export function onPrepareRename(ctx: ServerContext, params: PrepareRenameParams)
 export function onRename(ctx: ServerContext, params: RenameParams): WorkspaceEdit {
   const doc = ctx.documents.get(params.textDocument.uri);
   if (!doc) throw new ResponseError(ErrorCodes.InvalidRequest, 'The document is not open.');
-  const offset = doc.offsetAt(params.position);
-  const checked = rename(ctx.analyses.get(doc), offset, params.newName);
+  const self = uriToPath(doc.uri, ctx.documents.roots);
+  const checked = rename(ctx.analyses.get(doc), doc.offsetAt(params.position), params.newName, otherSpecs(ctx, self));
   if (!checked.ok) throw new ResponseError(ErrorCodes.InvalidRequest, checked.message);
   const changes: Record<string, TextEdit[]> = {};
-  for (const o of allOccurrences(ctx, doc, offset, true) ?? []) {
-    const loc = location(ctx, o.a, o.at);
-    if (loc) (changes[loc.uri] ??= []).push({ range: loc.range, newText: params.newName });
+  for (const o of checked.edits) {
+    const loc = location(ctx, o);
+    (changes[loc.uri] ??= []).push({ range: loc.range, newText: o.newText });
   }
   return { changes };
 }

@@ -11,7 +11,7 @@ export function onSemanticTokens(ctx: ServerContext, params: SemanticTokensParam
   const data: number[] = [];
   let prevLine = 0;
   let prevChar = 0;
-  for (const t of semanticTokens(ctx.analyses.get(doc))) {
+  for (const t of semanticTokens(ctx.analyses.syntax(doc))) {
     const p = doc.positionAt(t.start);
     data.push(p.line - prevLine, p.line === prevLine ? p.character - prevChar : p.character, t.length, TOKEN_TYPES.indexOf(t.type), t.declaration ? 1 : 0);
     prevLine = p.line;

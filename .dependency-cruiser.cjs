@@ -1,0 +1,66 @@
+// Import-boundary rules (dependency-cruiser): imports flow one way, from the editor and CLI down to
+// the syntax tree. A module may import its own layer or any layer below it, never one above.
+// The layer order is written down in DEVELOPERS.md ("Layers"); change both together.
+const LAYERS = [
+  ['syntax', ['server/src/syntax/']],
+  ['physics', ['server/src/physics/']],
+  ['diagnostics', ['server/src/diagnostics/']],
+  ['model', ['server/src/model/']],
+  ['sensor kinds', ['server/src/sensors/']],
+  ['analysis', ['server/src/analysis/']],
+  ['calibration', ['server/src/calibration/']],
+  ['budget', ['server/src/budget/']],
+  ['checks', ['server/src/checks/']],
+  ['products', ['server/src/codegen/', 'server/src/plot/', 'server/src/compare/', 'server/src/report/']],
+  ['language features', ['server/src/features/']],
+  ['engine façade', ['server/src/engine\\.ts$', 'server/src/engine/']],
+  ['front ends', ['server/src/lsp/', 'server/src/cli/']],
+];
+
+const escape = (p) => '^' + p;
+const forbidden = [];
+LAYERS.forEach(([name, paths], i) => {
+  const above = LAYERS.slice(i + 1).flatMap(([, ps]) => ps);
+  if (above.length === 0) return;
+  forbidden.push({
+    name: `upward-from-${name.replace(/[^a-z]+/g, '-')}`,
+    severity: 'error',
+    comment: `${name} may import only its own layer and the layers below it (DEVELOPERS.md, "Layers").`,
+    from: { path: paths.map(escape) },
+    to: { path: above.map(escape) },
+  });
+});
+
+forbidden.push({
+  name: 'front-ends-through-facade',
+  severity: 'error',
+  comment: 'The CLI and the language server reach the engine only through its façade (server/src/engine.ts).',
+  from: { path: ['^server/src/lsp/', '^server/src/cli/'] },
+  to: { path: '^server/src/', pathNot: ['^server/src/lsp/', '^server/src/cli/', '^server/src/engine\\.ts$', '^server/src/engine/'] },
+});
+
+forbidden.push({
+  name: 'no-file-cycles',
+  severity: 'error',
+  comment: 'Files that import each other in a circle.',
+  from: { path: '^server/src/' },
+  to: { circular: true },
+});
+
+forbidden.push({
+  name: 'engine-has-no-editor-types',
+  severity: 'error',
+  comment: 'The engine imports nothing from the editor or the protocol library; only server/src/lsp/ and client/ do.',
+  from: { path: '^server/src/', pathNot: '^server/src/lsp/' },
+  to: { path: ['node_modules/vscode-languageserver', 'node_modules/vscode-languageclient', '^vscode$'] },
+});
+
+module.exports = {
+  forbidden,
+  options: {
+    doNotFollow: { path: 'node_modules' },
+    tsPreCompilationDeps: true,
+    tsConfig: { fileName: 'tsconfig.json' },
+    exclude: { path: ['parser\\.generated'] },
+  },
+};
