@@ -1,17 +1,18 @@
 // Writes every file generated from the engine's own tables (schema.ts, units.ts, catalogue.ts):
-// docs/reference.md, the editor snippets and the TextMate grammar, so they cannot drift from the
-// code. Run by `npm run docs` and by the build; a unit test fails when one is stale.
+// docs/reference.md, the editor snippets, the TextMate grammar and the parser's list of top-level words,
+// so they cannot drift from the code. Run by `npm run docs` and by the build; a unit test fails when one is stale.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { CATALOGUE } from '../server/src/checks/catalogue';
-import { BLOCK_KINDS, needOf, snippets, textMateGrammar } from '../server/src/model/language';
+import { blockKinds } from '../server/src/model/schema';
+import { blockSpecs, needOf, snippets, textMateGrammar } from '../server/src/model/language';
 import { DIMENSION_WORDS, UNIT_TEXTS } from '../server/src/model/units';
 
 const ROOT = path.join(__dirname, '..');
 
 function fieldReference(): string {
   const out: string[] = [];
-  for (const b of BLOCK_KINDS) {
+  for (const b of blockSpecs()) {
     out.push(`### \`${b.kind}\``, '', b.doc, '');
     const ways = [...new Set(b.fields.flatMap((f) => (f.alternative === undefined ? [] : [f.alternative])))];
     if (ways.length > 0) out.push(`Give exactly one of these ways: ${ways.map((w) => `*${w}*`).join('; ')}.`, '');
@@ -42,6 +43,17 @@ function diagnosticReference(): string {
   const out = ['| code | severity | meaning |', '| --- | --- | --- |'];
   for (const [code, info] of Object.entries(CATALOGUE)) out.push(`| \`${code}\` | ${info.severity} | **${esc(info.title)}.** ${esc(info.doc)} |`);
   return out.join('\n');
+}
+
+/** The words the parser's messages know may start a top-level line (the syntax layer reads no schema). */
+function syntaxKeywords(): string {
+  return [
+    '// Generated from server/src/model/schema.ts by `npm run docs` (scripts/gen-docs.ts). Do not edit.',
+    '',
+    '/** Words that may start a top-level line: `use` and every block keyword. */',
+    `export const TOP_WORDS: readonly string[] = [${['use', ...blockKinds()].map((w) => `'${w}'`).join(', ')}];`,
+    '',
+  ].join('\n');
 }
 
 function esc(s: string): string {
@@ -77,6 +89,7 @@ export function generatedFiles(): { file: string; text: string }[] {
     { file: 'docs/reference.md', text: reference },
     { file: 'snippets/tsense.json', text: JSON.stringify(snippets(), null, 2) + '\n' },
     { file: 'syntaxes/tsense.tmLanguage.json', text: JSON.stringify(textMateGrammar(), null, 2) + '\n' },
+    { file: 'server/src/syntax/keywords.generated.ts', text: syntaxKeywords() },
   ];
 }
 
@@ -86,5 +99,5 @@ if (require.main === module) {
     fs.mkdirSync(path.dirname(p), { recursive: true });
     if (!fs.existsSync(p) || fs.readFileSync(p, 'utf8') !== text) fs.writeFileSync(p, text);
   }
-  console.log('docs: docs/reference.md, snippets/tsense.json and syntaxes/tsense.tmLanguage.json regenerated');
+  console.log('docs: docs/reference.md, snippets/tsense.json, syntaxes/tsense.tmLanguage.json and server/src/syntax/keywords.generated.ts regenerated');
 }

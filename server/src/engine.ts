@@ -2,7 +2,7 @@
 // Text in, syntax tree + model + per-channel results + diagnostics out. No IO, no editor types.
 import * as path from 'node:path';
 import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
-import { CHANNEL_CHECKS } from './checks/index';
+import { channelChecks } from './checks/index';
 import { analyseChannel, channelResult } from './analysis/sweep';
 import { channelBudget, liveBudget } from './budget/budget';
 import { channelKey } from './analysis/cache';
@@ -17,7 +17,7 @@ export type { Diagnostic } from './checks/diagnostic';
 export type { SourceHost, LoadedFile } from './model/workspace';
 export type { SyntaxFile } from './syntax/ast';
 export type { ChannelResult, SweepPoint, ChannelSummary } from './analysis/types';
-export type { ChannelDef, JunctionDef, AdcDef } from './model/types';
+export type { ChannelDef, SensorDef, AdcDef } from './model/types';
 export { CATALOGUE, type DiagnosticCode, type Severity } from './checks/catalogue';
 export { LineIndex } from './syntax/line-index';
 export { DocumentState } from './document-state';
@@ -149,7 +149,7 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | 
   }
   const local = new DiagnosticSink();
   const reported = new Set<string>();
-  for (const check of CHANNEL_CHECKS) check({ channel: c, result, sink: local, reported });
+  for (const check of channelChecks(c)) check({ channel: c, result, sink: local, reported });
   sink.items.push(...local.items);
   if (record) kept.checked = { channel: c, withBudget, diagnostics: local.items };
   return result;

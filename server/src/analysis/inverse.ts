@@ -1,19 +1,19 @@
 // Exact model inverse: the temperature at which the channel's sensed voltage equals a value.
 // Used by code generation and calibration as the reference every conversion is checked against.
 import type { ChannelDef } from '../model/types';
-import { sense, resistiveChain } from './sense';
-import { chainOhmsAt } from '../physics/resistive-chain';
-import { shKelvinAt } from '../physics/steinhart-hart';
-import { cvdCelsiusAt } from '../physics/callendar-van-dusen';
+import { sense } from './sense';
+import { kindOf } from '../sensors/registry';
 
 /**
  * Kelvin at which the sensed voltage is `volts`, searched in [lowK, highK] (the sensed voltage is
- * monotonic in T for every sensor kind). Bisection to bracket, then secant refinement; returns NaN only when
+ * monotonic in T for every sensor kind). A kind with a closed-form inverse (sensors/kind.ts) answers
+ * directly; otherwise bisection to bracket, then secant refinement; returns NaN only when
  * the voltage lies outside the bracket (callers clamp codes to the range first).
  */
 export function kelvinAtVolts(c: ChannelDef, volts: number, lowK = c.lowK, highK = c.highK): number {
-  if (c.sensor.kind !== 'junction') {
-    const k = resistiveKelvinAtVolts(c, volts);
+  const closed = kindOf(c.sensor).kelvinAtVolts;
+  if (closed) {
+    const k = closed(c, volts);
     // Same contract as the search below: NaN outside the bracket (a hair of slack for rounding).
     const slack = 1e-9 * (highK - lowK);
     return k >= lowK - slack && k <= highK + slack ? Math.min(highK, Math.max(lowK, k)) : NaN;
@@ -48,15 +48,10 @@ export function kelvinAtVolts(c: ChannelDef, volts: number, lowK = c.lowK, highK
 }
 
 /**
- * Thermistor and RTD channels in closed form: voltage -> sensor resistance (the excitation and the
- * amplifier undone, resistive-chain.ts), then resistance -> temperature: the Steinhart-Hart equation
- * itself for a thermistor, the Callendar-Van Dusen inverse for an RTD (quadratic root at and above
- * 0 °C, Newton on the full equation below; callendar-van-dusen.ts). NaN when no resistance fits.
+ * The sensor kind's closed-form inverse (thermistor and RTD channels: voltage -> resistance ->
+ * temperature, sensors/resistive/model.ts), without the bracket; NaN when the kind has none or no
+ * resistance fits.
  */
 export function resistiveKelvinAtVolts(c: ChannelDef, volts: number): number {
-  const s = c.sensor;
-  if (s.kind === 'junction') return NaN;
-  const ohms = chainOhmsAt(resistiveChain(c), volts);
-  if (!(ohms > 0)) return NaN;
-  return s.kind === 'thermistor' ? shKelvinAt(s.params, ohms / (s.params.scale ?? 1)) : cvdCelsiusAt(s.params.R0, s.params, ohms) + 273.15;
+  return kindOf(c.sensor).kelvinAtVolts?.(c, volts) ?? NaN;
 }

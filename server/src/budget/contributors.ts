@@ -3,7 +3,7 @@
 import type { BiasDef, ChannelDef } from '../model/types';
 import { trimNumber } from '../model/read-value';
 import type { Contributor } from './types';
-import { elementContributors, perturbElement } from '../compare/element-spread';
+import { kindOf } from '../sensors/registry';
 
 const pct = (r: number) => `± ${trimNumber(r * 100, 3)} %`;
 
@@ -13,14 +13,9 @@ export function contributorsOf(c: ChannelDef, effectiveOversamplingBits: number)
   const add = (id: string, label: string, scope: Contributor['scope'], amount: number, unit: Contributor['unit']) => {
     if (amount > 0) out.push({ id, label, scope, amount, unit });
   };
-  const j = c.sensor;
   const two = c.secondBias !== undefined;
-  // Sensor spreads: the junction's here; resistive sensors' own spreads belong to their model.
-  if (j.kind === 'junction') {
-    add('IS', `IS spread ${pct(j.isTolerance)}`, 'board', j.isTolerance, 'relative');
-    add('N', `N spread ${pct(j.nTolerance ?? 0)}`, 'board', j.nTolerance ?? 0, 'relative');
-    if (j.params.kind !== 'diode') add('BF', `BF spread ${pct(j.bfTolerance ?? 0)}`, 'board', j.bfTolerance ?? 0, 'relative');
-  } else for (const e of elementContributors(j)) add(e.id, e.label, 'board', e.amount, 'relative');
+  // The sensor's own spreads, as its kind states them (sensors/<kind>/).
+  for (const e of kindOf(c.sensor).contributors(c.sensor)) add(e.id, e.label, 'board', e.amount, 'relative');
   const biasTol = (b: BiasDef) => (b.kind === 'current' ? b.amps.tolerance : b.ohms.tolerance);
   const biasWord = (b: BiasDef) => (b.kind === 'current' ? 'bias current' : 'bias resistor');
   add('bias', `${biasWord(c.bias)}${two ? ' 1' : ''} ${pct(biasTol(c.bias))}`, 'board', biasTol(c.bias), 'relative');
@@ -56,34 +51,29 @@ function scaleBias(b: BiasDef, x: number, supplyScale: number): BiasDef {
 
 /** The channel and converter of a board whose board contributors take draws u (each in [-1, 1]). */
 export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number>): { channel: ChannelDef; adc: BoardAdc } {
-  let IS = 1;
-  let N = 1;
-  let BF = 1;
   let b1 = 1;
   let b2 = 1;
   let supply = 1;
   const adc: BoardAdc = { referenceScale: 1, gain: 1, offsetLsb: 0 };
+  /** Draws of the sensor's own contributors, by id (its kind perturbs the sensor with them). */
   const element = new Map<string, number>();
   for (let i = 0; i < board.length; i++) {
     const k = board[i]!;
     const d = u[i]! * k.amount;
     switch (k.id) {
-      case 'IS': IS = 1 + d; break;
-      case 'N': N = 1 + d; break;
-      case 'BF': BF = 1 + d; break;
       case 'bias': b1 = 1 + d; break;
       case 'bias2': b2 = 1 + d; break;
       case 'supply': supply = 1 + d; break;
       case 'reference': adc.referenceScale = 1 + d; break;
       case 'gain': adc.gain = 1 + d; break;
       case 'offset': adc.offsetLsb = d; break;
-      default: if (k.id.startsWith('element-')) element.set(k.id, d);
+      default: element.set(k.id, d);
     }
   }
   const s = c.sensor;
   const channel: ChannelDef = {
     ...c,
-    sensor: s.kind === 'junction' ? { ...s, params: { ...s.params, IS: s.params.IS * IS, N: s.params.N * N, BF: s.params.BF * BF } } : perturbElement(s, element),
+    sensor: kindOf(s).perturb(s, element),
     bias: scaleBias(c.bias, b1, supply),
     ...(c.secondBias ? { secondBias: scaleBias(c.secondBias, b2, supply) } : {}),
   };

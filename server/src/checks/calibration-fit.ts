@@ -8,13 +8,15 @@ import { fieldSpan } from './context';
 import { sense } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { fitMeasured } from '../calibration/fit';
+import { kindOf } from '../sensors/registry';
 
 export function checkCalibrationFit({ channel: c, sink }: CheckContext): void {
   if (!c.measured || c.measured.length === 0) return;
   const s = c.sensor;
-  if (s.kind !== 'junction') {
+  const kind = kindOf(s);
+  if (!kind.fit) {
     sink.report('measured-unused', c.file, fieldSpan(c, 'measured'),
-      `the measured points are not used on a ${s.kind} channel: the model is not fitted to them, and neither the error budget nor generated code reflects them; state the part's own values (${s.kind === 'thermistor' ? 'r25 and beta, or point_1..point_3' : 'r0 and the class'}) instead`);
+      `the measured points are not used on a ${s.kind} channel: the model is not fitted to them, and neither the error budget nor generated code reflects them; state the part's own values (${kind.ownValues ?? 'from its datasheet'}) instead`);
     return;
   }
   let unusable = false;

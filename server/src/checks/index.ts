@@ -1,27 +1,24 @@
-// The channel checks, run in this order (supply before bias window, which defers to it).
+// The channel checks, in the order they run: the sensor kind's first checks (bias rules: supply
+// before bias window, which defers to it), the common ones below, then the kind's own
+// (sensors/<kind>/, `checks`).
 import type { CheckContext } from './context';
-import { checkSupply } from './supply';
-import { checkBiasWindow } from './bias-window';
 import { checkClip } from './clip';
 import { checkResolution } from './resolution';
 import { checkSelfHeating } from './self-heating';
 import { checkNonlinearity } from './nonlinearity';
 import { checkRated } from './rated';
 import { checkSourceImpedance } from './source-impedance';
-import { checkTwoCurrent } from './two-current';
 import { checkOversampling } from './oversampling';
 import { checkAccuracy } from './accuracy';
 import { checkCalibrationFit } from './calibration-fit';
-import { checkDividerOptimum } from './divider-optimum';
-import { checkLeadResistance } from './lead-resistance';
-import { checkBetaExtrapolated } from './beta-extrapolated';
-import { checkClassValidity } from './class-validity';
 import { checkSaturation } from './saturation';
 import { checkSensorFault } from './sensor-fault';
+import type { ChannelDef } from '../model/types';
+import { kindOf } from '../sensors/registry';
 
-export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
-  checkSupply,
-  checkBiasWindow,
+type Check = (ctx: CheckContext) => void;
+
+const COMMON: readonly Check[] = [
   checkClip,
   checkSaturation,
   checkSensorFault,
@@ -30,12 +27,17 @@ export const CHANNEL_CHECKS: ((ctx: CheckContext) => void)[] = [
   checkNonlinearity,
   checkRated,
   checkSourceImpedance,
-  checkTwoCurrent,
   checkOversampling,
   checkAccuracy,
   checkCalibrationFit,
-  checkDividerOptimum,
-  checkLeadResistance,
-  checkBetaExtrapolated,
-  checkClassValidity,
 ];
+
+const byKind = new Map<string, readonly Check[]>();
+
+/** The checks of a channel, in order. */
+export function channelChecks(c: ChannelDef): readonly Check[] {
+  const kind = kindOf(c.sensor);
+  let list = byKind.get(kind.name);
+  if (!list) byKind.set(kind.name, (list = [...kind.checks.first, ...COMMON, ...kind.checks.last]));
+  return list;
+}

@@ -1,16 +1,15 @@
 // Side-by-side comparison of alternative channel designs for one measurement. Channels with the same
 // `compare_group` are compared; a file that names no group compares all its channels.
 // Figures: worst resolution, error before and after a one-point calibration (the error budget, whose
-// contributors include the element's own spread, budget/contributors.ts + element-spread.ts; the
+// contributors include the element's own spread, budget/contributors.ts + the sensor kind's; the
 // element spread alone when the budget cannot be computed), self-heating, an estimated parts count
 // and the generated conversion code's size.
 import type { Analysis } from '../engine';
 import type { ChannelResult } from '../analysis/types';
 import type { ModeBudget } from '../budget/types';
-import { sensorSpread } from './sensor-spread';
 import { conversionInput, generatableResults } from '../codegen/channel-input';
 import { generateC } from '../codegen';
-import { classToleranceC } from '../physics/callendar-van-dusen';
+import { kindOf } from '../sensors/registry';
 import { pairedDifference, type PairedDifference } from '../budget/paired';
 import { trimNumber } from '../model/read-value';
 
@@ -93,18 +92,15 @@ export function compareRow(r: ChannelResult, generatable: boolean, specPath: str
   const c = r.channel;
   const s = r.summary;
   const notes: string[] = [];
-  const spread = sensorSpread(c);
+  const kind = kindOf(c.sensor);
+  const spread = kind.sensorSpread?.(c) ?? null;
   const none = modeOf(r, 'none');
   const one = modeOf(r, 'one-point');
   if (!none || !one) notes.push(spread ? `error budget not available: sensor spread only (${spread.basis})` : 'error budget not available');
   else if (spread) notes.push(`error budget, sensor spread included (${spread.basis})`);
   const before = none ? none.worstAbsK : spread?.beforeK ?? null;
   const after = one ? one.worstAbsK : spread?.afterOnePointK ?? null;
-  let classTol: number | null = null;
-  if (c.sensor.kind === 'rtd' && c.sensor.toleranceClass) {
-    const cls = c.sensor.toleranceClass;
-    classTol = Math.max(classToleranceC(cls, c.lowK - 273.15), classToleranceC(cls, c.highK - 273.15));
-  }
+  const classTol = kind.classToleranceK?.(c) ?? null;
   let codeBytes: number | null = null;
   let codeMethod: string | null = null;
   if (generatable) {

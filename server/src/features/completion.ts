@@ -3,11 +3,12 @@
 // the names, options or forms the field takes; after a number the units of its dimension.
 import type { Analysis } from '../engine';
 import type { BlockNode, Span } from '../syntax/ast';
-import { BLOCKS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
+import { blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
+import { sensorKind } from '../sensors/registry';
 import { SUGGESTED_UNITS, type Dimension } from '../model/units';
-import { BLOCK_KINDS, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
+import { blockSpecs, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
 import { blockAt } from './locate';
-import { formatSI, trimNumber } from './figures';
+import { formatSI } from './figures';
 
 export type CompletionKind = 'keyword' | 'field' | 'unit' | 'reference' | 'option' | 'form';
 
@@ -53,13 +54,13 @@ export function completion(a: Analysis, offset: number): CompletionItem[] {
 
 function topLevel(replace: Span): CompletionItem[] {
   return [
-    ...BLOCK_KINDS.map((b) => ({ label: b.kind, kind: 'keyword' as const, detail: `${b.kind} block`, documentation: b.doc, insertText: blockSnippet(b).join('\n'), snippet: true, replace })),
+    ...blockSpecs().map((b) => ({ label: b.kind, kind: 'keyword' as const, detail: `${b.kind} block`, documentation: b.doc, insertText: blockSnippet(b).join('\n'), snippet: true, replace })),
     { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: USE_DOC, insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
   ];
 }
 
 function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replace: Span): CompletionItem[] {
-  const spec = BLOCKS[kind];
+  const spec = blockSpec(kind)!;
   const given = new Set<string>();
   for (const fl of block.fields) {
     if (fl.kind !== 'field' || (fl.span.start >= lineStart && fl.span.start <= replace.end)) continue;
@@ -161,15 +162,10 @@ function numberDimension(fs: FieldSpec, before: string): Dimension | null {
 }
 
 function referenceDoc(a: Analysis, kind: BlockKind, name: string): string {
-  if (kind === 'junction') {
-    const j = a.model.junctions.get(name);
-    return j ? `${j.params.kind}, IS ${formatSI(j.params.IS, 'A')}, N ${trimNumber(j.params.N, 4)}` : 'junction (has errors)';
-  }
-  if (kind === 'thermistor' || kind === 'rtd') {
-    const s = a.model.resistiveSensors.get(name);
-    if (s?.kind === 'thermistor') return `NTC, R at 25 °C ${formatSI(s.r25.value, 'Ω')}${s.beta ? `, beta ${trimNumber(s.beta.value, 5)} K` : ''}`;
-    if (s?.kind === 'rtd') return `platinum, R0 ${formatSI(s.params.R0, 'Ω')}${s.toleranceClass ? `, class ${s.toleranceClass}` : ''}`;
-    return `${kind} (has errors)`;
+  const sensor = sensorKind(kind);
+  if (sensor) {
+    const s = a.model.sensors.get(name);
+    return s ? sensor.summary(s) : `${kind} (has errors)`;
   }
   const adc = a.model.adcs.get(name);
   return adc ? `${adc.bits} bits, reference ${formatSI(adc.reference.value, 'V')}` : 'adc (has errors)';

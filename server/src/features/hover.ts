@@ -3,20 +3,20 @@
 import { describeFaults, sensorFaults } from '../sensors/faults';
 import type { Analysis } from '../engine';
 import type { ChannelResult, SweepPoint } from '../analysis/types';
-import type { AdcDef, JunctionDef } from '../model/types';
+import type { AdcDef } from '../model/types';
 import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
-import { BLOCKS, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
+import { blockSpec, fieldSpec, type BlockKind } from '../model/schema';
+import { needOf } from '../model/language';
 import { DiagnosticSink } from '../checks/diagnostic';
 import { readQuantityValue } from '../model/read-value';
 import { readUnit, type Dimension } from '../model/units';
 import { pointAt } from '../analysis/sweep';
-import { operatingPoint } from '../physics/junction';
 import { describeBias } from '../report/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from './figures';
 import { budgetHoverSection } from './budget-hover';
-import { resistiveChannelLines, rtdHover, thermistorHover } from './sensor-hover';
+import { kindOf, sensorKind } from '../sensors/registry';
 
 export interface HoverResult {
   markdown: string;
@@ -65,15 +65,10 @@ function blockHover(a: Analysis, block: BlockNode): string | null {
     const r = f.channelResult(a, name);
     return r ? channelHover(r) : `**channel ${name}**\n\n${spec.doc}\n\nNo figures: the channel has errors (see the problems list).`;
   }
-  if (spec.kind === 'thermistor' || spec.kind === 'rtd') {
-    const s = a.model.resistiveSensors.get(name);
-    if (s?.kind === 'thermistor') return thermistorHover(a, s);
-    if (s?.kind === 'rtd') return rtdHover(a, s);
-    return `**${spec.kind} ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
-  }
-  if (spec.kind === 'junction') {
-    const j = a.model.junctions.get(name);
-    return j ? junctionHover(a, j) : `**junction ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
+  const kind = sensorKind(spec.kind);
+  if (kind) {
+    const s = a.model.sensors.get(name);
+    return s ? kind.hover(a, s) : `**${spec.kind} ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
   }
   const adc = a.model.adcs.get(name);
   return adc ? adcHover(a, adc) : `**adc ${name}**\n\n${spec.doc}\n\nNo figures: the definition has errors.`;
@@ -124,7 +119,7 @@ export function channelHover(r: ChannelResult): string {
   const nl = s.nonlinearity;
   return [
     `**channel ${c.name}**: ${c.sensor.kind} \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.volts(vref)})`,
-    ...resistiveChannelLines(r),
+    ...(kindOf(c.sensor).channelHoverLines?.(r) ?? []),
     pointTable(r, ['amps', 'volts', 'slope', 'counts', 'perCount']) + roomNote(r),
     `Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** (${f.countsPerK(s.worst.countsPerKelvin)}) at ${f.celsius(s.worst.celsius)}` +
       (c.resolutionKPerCount !== null ? `; required ${f.perCount(c.resolutionKPerCount)}` : ''),
@@ -153,22 +148,6 @@ export function biasHover(r: ChannelResult): string {
   ].join('\n\n');
 }
 
-function junctionHover(a: Analysis, j: JunctionDef): string {
-  const p = j.params;
-  // A reference operating point, 10 µA at 25 °C, so parts can be compared at a glance.
-  const op = operatingPoint(p, { kind: 'current', amps: 10e-6 }, ROOM_K);
-  const users = f.channelsUsing(a, j.name, 'sensor').map((r) => `\`${r.channel.name}\``);
-  return [
-    `**junction ${j.name}** (${p.kind})`,
-    `IS ${f.amps(p.IS)}${j.isTolerance ? ` ± ${f.percent(j.isTolerance)}` : ''}, N ${f.trimNumber(p.N, 4)}, EG ${f.trimNumber(p.EG, 4)} eV, XTI ${f.trimNumber(p.XTI, 4)}` +
-      (p.kind === 'diode' ? '' : `, BF ${f.trimNumber(p.BF, 4)}, XTB ${f.trimNumber(p.XTB, 4)}`) +
-      `, TNOM ${f.kelvinToCelsius(p.TNOM)}, RS ${f.ohms(p.RS)}`,
-    `At 10 µA and 25 °C: ${f.volts(op.volts)}, slope ${f.slopeMv(op.slope)}`,
-    `Rated ${f.kelvinToCelsius(j.ratedLowK)} .. ${f.kelvinToCelsius(j.ratedHighK)}; θJA ${f.trimNumber(j.thetaJA, 4)} K/W`,
-    users.length ? `Used by ${users.join(', ')}` : 'Used by no channel in this file',
-  ].join('\n\n');
-}
-
 function adcHover(a: Analysis, adc: AdcDef): string {
   const vref = adc.reference.value;
   const lsb = vref / 2 ** adc.bits;
@@ -192,17 +171,14 @@ function fieldDocHover(block: BlockNode, field: FieldNode): string | null {
   return fieldDoc(spec.kind, fs.name);
 }
 
-/** Fields the resolver reports missing when absent (server/src/model/resolve.ts). */
-const REQUIRED = new Set(['junction.IS', 'adc.bits', 'adc.reference', 'channel.sensor', 'channel.adc', 'channel.bias', 'channel.range']);
-
 /** Documentation of a field from the schema: doc, default and an example. */
 export function fieldDoc(kind: BlockKind, name: string): string {
-  const fs = BLOCKS[kind].fields.find((x) => x.name === name)!;
+  const fs = blockSpec(kind)!.fields.find((x) => x.name === name)!;
   const alias = fs.aliases?.length ? ` (also ${fs.aliases.join(', ')})` : '';
   return [
     `**${fs.name}**${alias}, in ${kind}`,
     fs.doc,
-    fs.defaultText !== undefined ? `Default: \`${fs.defaultText}\`` : REQUIRED.has(`${kind}.${fs.name}`) ? 'Required.' : 'Optional: unchecked when absent.',
+    fs.defaultText !== undefined ? `Default: \`${fs.defaultText}\`` : needOf(fs).need === 'required' ? 'Required.' : 'Optional: unchecked when absent.',
     `Example: \`${fs.example}\``,
   ].join('\n\n');
 }
@@ -210,15 +186,13 @@ export function fieldDoc(kind: BlockKind, name: string): string {
 function termHover(a: Analysis, at: Extract<Located, { kind: 'term' }>): HoverResult | null {
   const { block, field, term, quantity } = at;
   const kind = blockSpec(block.keyword.text)?.kind;
-  const key = kind ? fieldSpec(BLOCKS[kind], field.key.text)?.name : undefined;
+  const key = kind ? fieldSpec(blockSpec(kind)!, field.key.text)?.name : undefined;
   const r = kind === 'channel' ? f.channelResult(a, block.name.text) : undefined;
-  // A reference to a junction or an ADC: that definition's figures.
+  // A reference to a sensor or an ADC: that definition's figures.
   if (term.kind === 'word' && kind === 'channel' && (key === 'sensor' || key === 'adc')) {
-    const j = key === 'sensor' ? a.model.junctions.get(term.text) : undefined;
+    const s = key === 'sensor' ? a.model.sensors.get(term.text) : undefined;
     const adc = key === 'adc' ? a.model.adcs.get(term.text) : undefined;
-    if (j) return { markdown: junctionHover(a, j), span: term.span };
-    const s = key === 'sensor' ? a.model.resistiveSensors.get(term.text) : undefined;
-    if (s) return { markdown: s.kind === 'thermistor' ? thermistorHover(a, s) : rtdHover(a, s), span: term.span };
+    if (s) return { markdown: kindOf(s).hover(a, s), span: term.span };
     if (adc) return { markdown: adcHover(a, adc), span: term.span };
     return null;
   }
@@ -242,7 +216,7 @@ function quantityMeaning(kind: BlockKind, key: string, field: FieldNode, index: 
   const u = q.unit ? readUnit(q.unit.text) : null;
   if (u && typeof u !== 'string' && u.dimension === 'ratio') return { dimension: 'ratio', difference: false };
   const isTolerance = field.value.some((t) => (t.kind === 'quantity' && t.tolerance === q) || (t.kind === 'tolerance' && t.amount === q));
-  const fs = BLOCKS[kind].fields.find((x) => x.name === key);
+  const fs = blockSpec(kind)?.fields.find((x) => x.name === key);
   if (!fs) return null;
   const form = fs.form;
   switch (form.form) {

@@ -5,7 +5,7 @@
 import * as path from 'node:path';
 import type { Span } from '../syntax/ast';
 import type { ParseCache } from '../syntax/parse';
-import { BLOCKS, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
+import { blockKinds, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
 import { declaredBlocks, type BlockRef } from '../model/resolve';
 import { loadWorkspace, type LoadedFile, type SourceHost } from '../model/workspace';
 import { DiagnosticSink } from '../checks/diagnostic';
@@ -142,7 +142,8 @@ export type RenameCheck = { ok: true; span: Span; placeholder: string } | { ok: 
 
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
 /** Words that start a block or a bias; a definition named so would read ambiguously. */
-const RESERVED = new Set(['use', ...Object.keys(BLOCKS), 'resistor', 'current', 'from', 'per']);
+let reserved: Set<string> | undefined;
+const RESERVED = () => (reserved ??= new Set(['use', ...blockKinds(), 'resistor', 'current', 'from', 'per']));
 
 /** `a or b`, `a, b or c`. */
 function either(kinds: readonly string[]): string {
@@ -151,8 +152,8 @@ function either(kinds: readonly string[]): string {
 
 export function prepareRename(a: NamedSpec, offset: number): RenameCheck {
   const s = symbolAt(a, offset);
-  if (!s) return { ok: false, message: `Only the name of a ${either(Object.keys(BLOCKS))} can be renamed.` };
-  const refusal = s.definition ? BLOCKS[s.definition.kind].notRenamed : undefined;
+  if (!s) return { ok: false, message: `Only the name of a ${either(blockKinds())} can be renamed.` };
+  const refusal = s.definition ? blockSpec(s.definition.kind)?.notRenamed : undefined;
   if (refusal) return { ok: false, message: refusal };
   if (!s.definition) return { ok: false, message: `No ${either(s.kinds)} named '${s.name}' is defined, so there is nothing to rename.` };
   return { ok: true, span: s.span, placeholder: s.name };
@@ -172,7 +173,7 @@ export function rename(a: NamedSpec, offset: number, newName: string, others: It
   if (!IDENTIFIER.test(newName)) {
     return { ok: false, message: `'${newName}' is not a valid name: use letters, digits and _, starting with a letter or _ (e.g. small_npn).` };
   }
-  if (RESERVED.has(newName)) return { ok: false, message: `'${newName}' is a word of the spec language; choose another name.` };
+  if (RESERVED().has(newName)) return { ok: false, message: `'${newName}' is a word of the spec language; choose another name.` };
   const affected = [a, ...[...others].filter((o) => o.path !== a.path && seesDefinition(o, s))];
   if (newName !== s.name) {
     for (const spec of affected) {

@@ -5,7 +5,7 @@ import type { Analysis, Diagnostic } from '../engine';
 import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
 import type { ChannelResult } from '../analysis/types';
 import type { AdcDef } from '../model/types';
-import { BLOCKS, blockSpec, fieldSpec } from '../model/schema';
+import { blockKinds, blockSpec, fieldSpec } from '../model/schema';
 import { closest } from '../model/suggest';
 import { locate, fieldOf } from './locate';
 import * as f from './figures';
@@ -202,7 +202,7 @@ function didYouMean(a: Analysis, d: Diagnostic): QuickFix | null {
   if (d.code === 'unknown-block' && at.kind === 'block-keyword') {
     word = at.block.keyword.text;
     span = at.block.keyword.span;
-    pool = Object.keys(BLOCKS);
+    pool = blockKinds();
   } else if (d.code === 'unknown-field' && at.kind === 'field-key') {
     const spec = blockSpec(at.block.keyword.text);
     if (!spec) return null;

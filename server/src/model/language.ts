@@ -2,11 +2,13 @@
 // and unit table (units.ts): whether a field is needed, a new block's template, and the word lists
 // of the TextMate grammar. Completion reads this; scripts/gen-docs.ts writes the snippets, the
 // grammar and docs/reference.md from it.
-import { BLOCKS, type BlockSpec, type FieldSpec } from './schema';
+import { allBlocks, type BlockSpec, type FieldSpec } from './schema';
 import { UNIT_TEXTS } from './units';
 
-/** Every block kind, in the schema's order. */
-export const BLOCK_KINDS: readonly BlockSpec[] = Object.values(BLOCKS);
+/** Every block kind, in the schema's order (sensor kinds in the registry's, then adc, channel). */
+export function blockSpecs(): BlockSpec[] {
+  return [...allBlocks().values()];
+}
 
 /** Whether a field must be given: `required`, `default` (has one), `optional`, or one of alternative ways. */
 export type Need = { need: 'required' } | { need: 'default'; text: string } | { need: 'optional' } | { need: 'alternative'; way: string };
@@ -63,9 +65,9 @@ const alternation = (xs: string[]) => `(?:${longestFirst(xs).map(reEscape).join(
 
 /** The word lists of the language, each from the schema or the unit table. */
 export function languageWords(): { blocks: string[]; fields: string[]; options: string[]; words: string[] } {
-  const fields = BLOCK_KINDS.flatMap((b) => b.fields);
+  const fields = blockSpecs().flatMap((b) => b.fields);
   return {
-    blocks: BLOCK_KINDS.map((b) => b.kind),
+    blocks: blockSpecs().map((b) => b.kind),
     fields: unique(fields.flatMap((f) => [f.name, ...(f.aliases ?? [])])),
     options: unique(fields.flatMap((f) => (f.form.form === 'choice' ? f.form.options : []))),
     words: unique(fields.flatMap((f) => f.words ?? [])),
@@ -153,7 +155,7 @@ export function textMateGrammar(): object {
 /** The editor snippets (snippets/tsense.json): one per block kind, and `use`. */
 export function snippets(): object {
   const out: Record<string, object> = {};
-  for (const b of BLOCK_KINDS) out[`${b.kind} block`] = { prefix: b.kind, description: b.doc, body: [...blockSnippet(b), '$0'] };
+  for (const b of blockSpecs()) out[`${b.kind} block`] = { prefix: b.kind, description: b.doc, body: [...blockSnippet(b), '$0'] };
   out['use a file of definitions'] = { prefix: 'use', description: USE_DOC, body: ['use "${1:parts.tsense}"', '$0'] };
   return out;
 }

@@ -5,13 +5,14 @@ import { pieceOrigin } from '../syntax/parse';
 import { contentToken, movedCopy, sameContent } from './moved';
 import { shiftOffsets } from '../syntax/shift';
 import { DiagnosticSink } from '../checks/diagnostic';
-import { BLOCKS, blockSpec, fieldSpec, kindWithArticle, PART_DOMAINS, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
+import { blockKinds, blockSpec, fieldSpec, kindWithArticle, PART_DOMAINS, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
-import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, JunctionDef, RtdDef, ThermistorDef, Toleranced } from './types';
+import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase, SensorDef, Toleranced } from './types';
 import { noExtra, readPart, trimNumber, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
-import { readChannelExtras, readDividerBias, readRtd, readSensorRef, readThermistor } from './read-sensors';
+import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
+import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
 import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
 import { shown } from '../checks/shown';
 
@@ -23,11 +24,10 @@ export interface BlockRef {
 
 export interface Resolution {
   blocks: Map<string, BlockRef>;
-  junctions: Map<string, JunctionDef>;
+  /** Sensor definitions of every kind, by name (each read by its kind, sensors/<kind>/). */
+  sensors: Map<string, SensorDef>;
   adcs: Map<string, AdcDef>;
   channels: ChannelDef[];
-  /** Thermistor and rtd definitions (read in read-sensors.ts). */
-  resistiveSensors: Map<string, ThermistorDef | RtdDef>;
 }
 
 const ZERO_C = 273.15;
@@ -40,18 +40,15 @@ const ZERO_C = 273.15;
 export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, kept?: KeptDefinitions): Resolution {
   const entry = files[0]!;
   const blocks = declaredBlocks(files, sink);
-  const res: Resolution = { blocks, junctions: new Map(), adcs: new Map(), channels: [], resistiveSensors: new Map() };
+  const res: Resolution = { blocks, sensors: new Map(), adcs: new Map(), channels: [] };
   for (const ref of blocks.values()) {
-    if (ref.kind === 'junction') {
-      const j = remembered(ref, sink, kept, (into) => readJunction(ref, into));
-      if (j) res.junctions.set(j.name, j);
-    } else if (ref.kind === 'thermistor' || ref.kind === 'rtd') {
-      const kind = ref.kind;
+    const kind = sensorKind(ref.kind);
+    if (kind) {
       const d = remembered(ref, sink, kept, (into) => {
-        const r = new BlockReader(ref, BLOCKS[kind], into);
-        return kind === 'thermistor' ? readThermistor(r, base(ref, r)) : readRtd(r, base(ref, r));
+        const r = new BlockReader(ref, kind.block, into);
+        return kind.read(r, base(ref, r));
       });
-      if (d) res.resistiveSensors.set(d.name, d);
+      if (d) res.sensors.set(d.name, d);
     } else if (ref.kind === 'adc') {
       const a = remembered(ref, sink, kept, (into) => readAdc(ref, into));
       if (a) res.adcs.set(a.name, a);
@@ -77,8 +74,8 @@ export function declaredBlocks(files: readonly LoadedFile[], sink: DiagnosticSin
       if (item.kind !== 'block') continue;
       const spec = blockSpec(item.keyword.text);
       if (!spec) {
-        const near = closest(item.keyword.text, Object.keys(BLOCKS));
-        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${shown(item.keyword.text)}'; expected ${Object.keys(BLOCKS).join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
+        const near = closest(item.keyword.text, blockKinds());
+        sink.report('unknown-block', file.path, item.keyword.span, `unknown block kind '${shown(item.keyword.text)}'; expected ${blockKinds().join(', ')}${near ? ` (did you mean '${near}'?)` : ''}`);
         continue;
       }
       const prior = blocks.get(item.name.text);
@@ -139,7 +136,7 @@ function remembered<T>(ref: BlockRef, sink: DiagnosticSink, kept: KeptDefinition
 
 /** A channel is kept while its block is the same text and the sensor and ADC it names have the same content. */
 function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, kept: KeptDefinitions): ChannelDef | null {
-  const sensorOf = (c: ChannelDef) => res.junctions.get(c.sensor.name) ?? res.resistiveSensors.get(c.sensor.name);
+  const sensorOf = (c: ChannelDef) => res.sensors.get(c.sensor.name);
   const adcOf = (c: ChannelDef) => res.adcs.get(c.adc.name);
   const same = (a: object | undefined, b: object) => a !== undefined && contentToken(a) === contentToken(b);
   const hit = recall(
@@ -252,7 +249,7 @@ export class BlockReader {
   }
 }
 
-function base(ref: BlockRef, r: BlockReader) {
+function base(ref: BlockRef, r: BlockReader): DefBase {
   return {
     name: ref.node.name.text,
     file: ref.file,
@@ -263,35 +260,8 @@ function base(ref: BlockRef, r: BlockReader) {
   };
 }
 
-function readJunction(ref: BlockRef, sink: DiagnosticSink): JunctionDef | null {
-  const r = new BlockReader(ref, BLOCKS.junction, sink);
-  const kind = r.choice('kind', 'npn') as JunctionDef['params']['kind'];
-  const IS = r.quantity('IS');
-  const N = r.quantity('N', 1);
-  const BF = r.quantity('BF', 100);
-  const EG = r.quantity('EG', 1.11);
-  const XTI = r.quantity('XTI', 3);
-  const XTB = r.quantity('XTB', 0);
-  const TNOM = r.quantity('TNOM', 27 + ZERO_C);
-  const RS = r.quantity('RS', 0);
-  const rated = r.range('rated', [-55 + ZERO_C, 150 + ZERO_C]);
-  const theta = r.quantity('theta_ja', 500);
-  if (!r.ok || !IS || !N || !BF || !EG || !XTI || !XTB || !TNOM || !RS || !rated || !theta) return null;
-  return {
-    kind: 'junction',
-    ...base(ref, r),
-    params: { kind, IS: IS.value, N: N.value, BF: BF.value, EG: EG.value, XTI: XTI.value, XTB: XTB.value, TNOM: TNOM.value, RS: RS.value },
-    isTolerance: IS.tolerance,
-    nTolerance: N.tolerance,
-    bfTolerance: BF.tolerance,
-    ratedLowK: rated.low,
-    ratedHighK: rated.high,
-    thetaJA: theta.value,
-  };
-}
-
 function readAdc(ref: BlockRef, sink: DiagnosticSink): AdcDef | null {
-  const r = new BlockReader(ref, BLOCKS.adc, sink);
+  const r = new BlockReader(ref, blockSpec('adc')!, sink);
   const bits = r.quantity('bits');
   const reference = r.quantity('reference');
   const maxSource = r.terms('max_source') ? r.quantity('max_source') : null;
@@ -316,7 +286,9 @@ function readAdc(ref: BlockRef, sink: DiagnosticSink): AdcDef | null {
   };
 }
 
-function readRef<K extends 'junction' | 'adc'>(r: BlockReader, name: string, target: K, res: Resolution): (K extends 'junction' ? JunctionDef : AdcDef) | null {
+/** A field naming an adc definition. */
+function readAdcRef(r: BlockReader, name: string, res: Resolution): AdcDef | null {
+  const target = 'adc';
   const terms = r.terms(name);
   if (!terms) {
     r.missing(name);
@@ -324,7 +296,7 @@ function readRef<K extends 'junction' | 'adc'>(r: BlockReader, name: string, tar
   }
   const t = terms[0]!;
   if (t.kind !== 'word') {
-    r.sink.report('bad-value', r.ref.file, spanOf(terms), `${name} takes the name of ${target === 'junction' ? 'a junction' : 'an adc'} definition`);
+    r.sink.report('bad-value', r.ref.file, spanOf(terms), `${name} takes the name of an adc definition`);
     r.ok = false;
     return null;
   }
@@ -342,10 +314,10 @@ function readRef<K extends 'junction' | 'adc'>(r: BlockReader, name: string, tar
     r.ok = false;
     return null;
   }
-  const def = target === 'junction' ? res.junctions.get(t.text) : res.adcs.get(t.text);
+  const def = res.adcs.get(t.text);
   // The definition exists but has its own errors (reported there): skip the channel quietly.
   if (!def) r.ok = false;
-  return (def ?? null) as (K extends 'junction' ? JunctionDef : AdcDef) | null;
+  return def ?? null;
 }
 
 function readBias(r: BlockReader): BiasDef | null {
@@ -462,9 +434,9 @@ function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
 }
 
 function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
-  const r = new BlockReader(ref, BLOCKS.channel, sink);
+  const r = new BlockReader(ref, blockSpec('channel')!, sink);
   const sensor = readSensorRef(r, res);
-  const adc = readRef(r, 'adc', 'adc', res);
+  const adc = readAdcRef(r, 'adc', res);
   const biasTerms = r.terms('bias');
   const twin = isTwoCurrentBias(biasTerms) ? readTwoCurrentBias(biasTerms!, r.ctx('bias')) : undefined;
   if (twin === null) r.ok = false;
@@ -497,8 +469,8 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
   // Resistive-sensor fields (read-sensors.ts).
   const extras = readChannelExtras(r, sensor, bias, adc, range);
-  if (twin && sensor && sensor.kind !== 'junction') {
-    sink.report('bad-value', ref.file, r.fieldSpans['bias'] ?? ref.node.name.span, `the two-current bias is for a junction; '${sensor.name}' is a ${sensor.kind}`);
+  if (twin && sensor && !kindOf(sensor).twoCurrent) {
+    sink.report('bad-value', ref.file, r.fieldSpans['bias'] ?? ref.node.name.span, `the two-current bias is for ${kindsInWords(sensorKinds().filter((k) => k.twoCurrent))}; '${sensor.name}' is a ${sensor.kind}`);
     r.ok = false;
   }
   if (!r.ok || !sensor || !adc || !bias || !range || !step || !window) return null;

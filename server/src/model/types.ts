@@ -1,6 +1,5 @@
 // The resolved model: definitions with every value in base SI units and the spans they came from.
 import type { Span } from '../syntax/ast';
-import type { JunctionParams } from '../physics/types';
 
 /** A value with its relative tolerance (0 when none given) and where it was written. */
 export interface Toleranced {
@@ -21,72 +20,22 @@ export interface DefBase {
   given: string[];
 }
 
-export interface JunctionDef extends DefBase {
-  kind: 'junction';
-  params: JunctionParams;
-  /** Relative spread of IS when given (IS = 10 fA ± 50 %). */
-  isTolerance: number;
-  /** Relative spreads of N and BF when given (error budget); absent or 0 when none. */
-  nTolerance?: number;
-  bfTolerance?: number;
+/**
+ * What every sensor definition has; each kind's own definition (server/src/sensors/<kind>/types.ts)
+ * extends it, and only that kind's modules read its other fields.
+ */
+export interface SensorDefBase extends DefBase {
+  /** The kind's name (sensors/registry.ts). */
+  kind: string;
+  /** The model's parameters; `kind` names the model family (npn, ntc, platinum...). */
+  params: { kind: string };
   ratedLowK: number;
   ratedHighK: number;
+  /** Thermal resistance to ambient (1 / dissipation constant), K/W. */
   thetaJA: number;
 }
 
-/** An NTC thermistor, always held in Steinhart-Hart form (the beta model is its C = 0 case). */
-export interface ThermistorDef extends DefBase {
-  kind: 'thermistor';
-  params: ThermistorParams;
-  /** How the curve was given: beta and R25, three coefficients, or three measured points. */
-  form: 'beta' | 'coefficients' | 'points';
-  /** R25 with its tolerance (beta form), else the curve's own R at 25 °C with r_tolerance. */
-  r25: Toleranced;
-  /** Beta with its tolerance and the two temperatures it is defined between (beta form only). */
-  beta: (Toleranced & { lowK: number; highK: number }) | null;
-  ratedLowK: number;
-  ratedHighK: number;
-  /** 1 / dissipation constant, K/W. */
-  thetaJA: number;
-}
-
-export interface ThermistorParams {
-  kind: 'ntc';
-  /** Steinhart-Hart coefficients: 1/T = A + B ln R + C (ln R)^3. */
-  A: number;
-  B: number;
-  C: number;
-  /** Resistance multiplier of a tolerance corner (absent: 1); the curve's own R is scaled by it. */
-  scale?: number;
-}
-
-/** A platinum resistance thermometer (Callendar-Van Dusen). */
-export interface RtdDef extends DefBase {
-  kind: 'rtd';
-  params: RtdParams;
-  /** R0 with its tolerance. */
-  r0: Toleranced;
-  /** IEC 60751 tolerance class, or null when not stated. */
-  toleranceClass: 'AA' | 'A' | 'B' | 'C' | null;
-  /** How the element is built, when stated (`element = film|wire`); null: assume film. */
-  element: 'film' | 'wire' | null;
-  ratedLowK: number;
-  ratedHighK: number;
-  /** 1 / self-heating (dissipation) constant, K/W. */
-  thetaJA: number;
-}
-
-export interface RtdParams {
-  kind: 'platinum';
-  /** Resistance at 0 °C, ohm. */
-  R0: number;
-  /** Callendar-Van Dusen coefficients (IEC 60751 by default). */
-  A: number;
-  B: number;
-  C: number;
-}
-
-export type SensorDef = JunctionDef | ThermistorDef | RtdDef;
+export type SensorDef = SensorDefBase;
 
 /** How the sensor's leads are wired (resistive sensors). */
 export interface WiringDef {
@@ -189,4 +138,4 @@ export interface MonteCarloSpec {
   distribution: 'uniform' | 'normal';
 }
 
-export type Definition = JunctionDef | ThermistorDef | RtdDef | AdcDef | ChannelDef;
+export type Definition = SensorDef | AdcDef | ChannelDef;

@@ -6,7 +6,7 @@ import type { Analysis } from '../engine';
 import type { Diagnostic } from '../checks/diagnostic';
 import type { ChannelResult } from '../analysis/types';
 import { LineIndex } from '../syntax/line-index';
-import { resistiveInputsJson } from '../compare/json-inputs';
+import { kindOf } from '../sensors/registry';
 import { budgetSummaryJson } from '../budget/json';
 
 export const REPORT_VERSION = 1;
@@ -40,7 +40,7 @@ export function channelJson(r: ChannelResult) {
       accuracyK: c.accuracyK,
       thetaJA: c.thetaJA,
       conversion: c.conversion,
-      ...resistiveInputsJson(c),
+      ...(kindOf(c.sensor).reportInputs?.(c) ?? {}),
       currentWindow: { lowA: c.windowLowA, highA: c.windowHighA },
     },
     sweep: r.sweep.map((p) => ({

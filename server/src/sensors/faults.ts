@@ -1,12 +1,10 @@
 // Sensor faults: the ADC code an open or a shorted sensor gives in its channel's circuit, and
 // whether that code can be told from a code of the designed range. The voltages come from each
-// kind's own module (sensors/<kind>/faults.ts); this file only dispatches to them and turns
-// voltages into codes. Temporary dispatcher: the sensor-kind registry replaces the switch below.
+// kind's own module (sensors/<kind>/faults.ts, the kind's `faults`); this file turns voltages into
+// codes.
 import { adcCode } from '../analysis/sweep';
 import type { ChannelDef } from '../model/types';
-import { junctionFaultVolts } from './junction/faults';
-import { rtdFaultVolts } from './rtd/faults';
-import { thermistorFaultVolts } from './thermistor/faults';
+import { kindOf } from './registry';
 
 /** One fault as a kind module describes it. */
 export interface FaultVolts {
@@ -33,14 +31,7 @@ export interface SensorFault extends FaultVolts {
 }
 
 function faultVolts(c: ChannelDef): FaultVolts[] {
-  switch (c.sensor.kind) {
-    case 'junction':
-      return junctionFaultVolts(c);
-    case 'thermistor':
-      return thermistorFaultVolts(c);
-    case 'rtd':
-      return rtdFaultVolts(c);
-  }
+  return kindOf(c.sensor).faults(c);
 }
 
 /**

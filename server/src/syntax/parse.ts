@@ -8,6 +8,7 @@ import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 import { shiftOffsets } from './shift';
 import { shown } from '../checks/shown';
+import { TOP_WORDS } from './keywords.generated';
 
 /**
  * Parses `text`. With a cache, the text is cut before every block header line and each piece is
@@ -181,8 +182,8 @@ function collectProblems(item: TopItem, text: string, out: SyntaxProblem[]): voi
   }
 }
 
-/** Words that may start a top-level line; peggy's own message is precise after them. */
-const TOP_WORDS = ['use', 'junction', 'adc', 'channel', 'thermistor', 'rtd'];
+// TOP_WORDS (keywords.generated.ts, from the schema): words that may start a top-level line; peggy's
+// own message is precise after them.
 
 function explainBadLine(node: ErrorNode, text: string): SyntaxProblem {
   const line = text.slice(node.span.start, node.span.end);

@@ -99,7 +99,7 @@ describe('calibration', () => {
   it('fits IS and N to measured codes and returns a fitted channel copy', () => {
     // Round trip: codes made by the model with IS x 1.3 and N x 1.01 give back those constants.
     const c = currentChannel();
-    const truth: ChannelDef = { ...c, sensor: { ...(c.sensor as never as { params: object }), params: { ...(c.sensor as { params: { IS: number; N: number } }).params, IS: 13e-15, N: 1.01 } } as ChannelDef['sensor'] };
+    const truth: ChannelDef = { ...c, sensor: { ...(c.sensor as never as { params: object }), params: { ...(c.sensor as never as { params: { IS: number; N: number } }).params, IS: 13e-15, N: 1.01 } } as never as ChannelDef['sensor'] };
     const codeAt = (k: number) => (sense(truth, k).volts / 1.2) * 4096 - 0.5;
     const measured = [278.15, 298.15, 318.15].map((k) => ({ kelvin: k, code: codeAt(k), span: { start: 0, end: 0 } }));
     const fit = fitMeasured({ ...c, measured })!;

@@ -10,7 +10,7 @@ import { DiskHost } from '../../../server/src/cli/io';
 import { fitMeasured, fittedChannel } from '../../../server/src/calibration/fit';
 import { makeFrame } from '../../../server/src/budget/frame';
 import { conversionInput } from '../../../server/src/codegen/channel-input';
-import type { JunctionDef } from '../../../server/src/model/types';
+import type { JunctionDef } from '../../../server/src/sensors/junction/types';
 import { ZERO_CELSIUS_K } from '../../../server/src/physics/constants';
 
 const samples = path.resolve(__dirname, '../../../samples');

@@ -8,7 +8,7 @@ import { analyse } from '../../../server/src/engine';
 import { DiskHost } from '../../../server/src/cli/io';
 import { conversionInput } from '../../../server/src/codegen/channel-input';
 import { generateC } from '../../../server/src/codegen';
-import { BLOCKS } from '../../../server/src/model/schema';
+import { blockSpec } from '../../../server/src/model/schema';
 
 const samples = path.resolve(__dirname, '../../../samples');
 const file = path.join(samples, 'kiln.tsense');
@@ -25,7 +25,7 @@ function chamber(optimise?: string) {
 
 describe('optimise', () => {
   it('is a channel field with a documented default of balanced', () => {
-    const f = BLOCKS.channel.fields.find((x) => x.name === 'optimise');
+    const f = blockSpec('channel')!.fields.find((x) => x.name === 'optimise');
     expect(f?.defaultText).toBe('balanced');
     expect(f?.doc).toMatch(/size/);
   });

@@ -4,7 +4,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { generatedFiles } from '../../../scripts/gen-docs';
-import { BLOCKS } from '../../../server/src/model/schema';
+import { allBlocks } from '../../../server/src/model/schema';
 import { CATALOGUE } from '../../../server/src/checks/catalogue';
 
 const ROOT = path.resolve(__dirname, '../../..');
@@ -37,7 +37,7 @@ describe('generated files', () => {
     const snippets = JSON.parse(FILES.find((f) => f.file.endsWith('tsense.json'))!.text) as Record<string, { prefix: string }>;
     const blockRe = new RegExp(grammar.repository.block.beginCaptures['1'].patterns[0].match);
     const fieldRe = new RegExp(grammar.repository.field.beginCaptures['1'].patterns[0].match);
-    for (const b of Object.values(BLOCKS)) {
+    for (const b of allBlocks().values()) {
       expect(blockRe.test(b.kind), b.kind).toBe(true);
       expect(Object.values(snippets).some((s) => s.prefix === b.kind), b.kind).toBe(true);
       expect(CATALOGUE['unknown-block'].doc).toContain(b.kind);

@@ -60,7 +60,7 @@ describe('tolerances and ranges', () => {
   it('reads a range, the low end borrowing the high end\'s unit', () => {
     const a = analyse({ path: '/x/r.tsense', text: 'junction q {\n IS = 1 fA\n rated = -40 .. 125 °C\n}\n' });
     expect(a.diagnostics).toEqual([]);
-    const q = a.model.junctions.get('q')!;
+    const q = a.model.sensors.get('q')!;
     expect(q.ratedLowK).toBeCloseTo(233.15, 10);
     expect(q.ratedHighK).toBeCloseTo(398.15, 10);
   });

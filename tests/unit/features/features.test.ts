@@ -65,7 +65,7 @@ describe('data-driven features', () => {
     return out;
   });
   check('outline', 'txt', (a, _o, text) => {
-    const lines = documentSymbols(a.files[0]!).map((s) => `${s.kind} ${s.name}${s.detail ? ` (${s.detail})` : ''}\n${s.children.map((c) => `  ${c.kind} ${c.name} = ${c.detail}`).join('\n')}`);
+    const lines = documentSymbols(a.files[0]!).map((s) => `${s.label} ${s.name}${s.detail ? ` (${s.detail})` : ''}\n${s.children.map((c) => `  ${c.label} ${c.name} = ${c.detail}`).join('\n')}`);
     const folds = foldingRanges(a.files[0]!).map((f) => `fold ${f.kind} ${JSON.stringify(text.slice(f.span.start, f.span.start + 12))}..${JSON.stringify(text.slice(f.span.end - 1, f.span.end))}`);
     const tokens = semanticTokens(a.files[0]!).map((t) => `${t.type}${t.declaration ? '+decl' : ''} ${JSON.stringify(text.slice(t.start, t.start + t.length))}`);
     return [...lines, ...folds, ...tokens].join('\n') + '\n';

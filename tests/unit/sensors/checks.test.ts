@@ -2,7 +2,7 @@
 // arithmetic. Fixture files for the new codes live in tests/fixtures/diagnostics/.
 import { describe, expect, it } from 'vitest';
 import { analyseText, codesOf, PARTS } from '../../fixtures/sensors/analyse';
-import { dividerSlopeShare } from '../../../server/src/checks/divider-optimum';
+import { dividerSlopeShare } from '../../../server/src/sensors/thermistor/divider-optimum';
 
 const chan = (body: string, adc = 'adc12') => analyseText(`${PARTS}
 adc fussy {

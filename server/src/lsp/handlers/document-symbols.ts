@@ -6,7 +6,7 @@ import { toRange } from '../convert';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 
 const KIND: Record<FeatureKind, SymbolKind> = {
-  junction: SymbolKind.Class,
+  sensor: SymbolKind.Class,
   adc: SymbolKind.Interface,
   channel: SymbolKind.Object,
   'unknown-block': SymbolKind.Namespace,

@@ -1,7 +1,7 @@
 // Faults of an RTD channel: an open element or lead (R -> infinity; on 3 and 4 wires an open lead
 // of the excitation path, taken the same) and a shorted element or cable (R = 0, uncompensated
 // leads still in series), through the channel's source or divider.
-import { resistiveChain } from '../../analysis/sense';
+import { resistiveChain } from '../resistive/model';
 import type { ChannelDef } from '../../model/types';
 import { chainFaultVolts } from '../../physics/resistive-chain';
 import type { FaultVolts } from '../faults';

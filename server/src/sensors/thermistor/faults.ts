@@ -1,6 +1,6 @@
 // Faults of a thermistor channel: an open element or lead (R -> infinity) and a shorted element or
 // cable (R = 0, uncompensated leads still in series), through the channel's divider or source.
-import { resistiveChain } from '../../analysis/sense';
+import { resistiveChain } from '../resistive/model';
 import type { ChannelDef } from '../../model/types';
 import { chainFaultVolts } from '../../physics/resistive-chain';
 import type { FaultVolts } from '../faults';

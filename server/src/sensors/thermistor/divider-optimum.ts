@@ -5,12 +5,13 @@
 // d/dRf = (Rt - Rf)/(Rf + Rt)^3, zero at Rf = Rt: the slope at Tc is largest when Rf = Rt(Tc)
 // (elementary calculus on the unloaded divider). Relative to that optimum, a resistor k Rt gives
 // 4k/(1 + k)^2 of the slope.
-import { nearestE24 } from '../analysis/eseries';
-import { elementAt } from '../analysis/sense';
-import { pointAt, sweepKelvins } from '../analysis/sweep';
-import type { ChannelDef } from '../model/types';
-import type { CheckContext } from './context';
-import { fmtC, fmtOhm, trimNumber } from './format';
+import { nearestE24 } from '../../analysis/eseries';
+import { thermistorModel } from './model';
+import type { ThermistorDef } from './types';
+import { pointAt, sweepKelvins } from '../../analysis/sweep';
+import type { ChannelDef } from '../../model/types';
+import type { CheckContext } from '../../checks/context';
+import { fmtC, fmtOhm, trimNumber } from '../../checks/format';
 
 /** Below this share of the optimum's centre slope the check fires (a design rule of ours). */
 export const DIVIDER_SLOPE_SHARE = 0.8;
@@ -21,12 +22,12 @@ export function dividerSlopeShare(fixedOhms: number, sensorOhms: number): number
 }
 
 export function checkDividerOptimum({ channel: c, result, sink }: CheckContext): void {
-  const s = c.sensor;
+  const s = c.sensor as ThermistorDef;
   const b = c.bias;
-  if (s.kind !== 'thermistor' || b.kind !== 'divider') return;
+  if (b.kind !== 'divider') return;
   const tc = (c.lowK + c.highK) / 2;
   const lead = c.wiring?.wires === 2 ? 2 * c.wiring.leadOhms : 0;
-  const rt = elementAt(s, tc).ohms + lead;
+  const rt = thermistorModel.element.at(s, tc).ohms + lead;
   const share = dividerSlopeShare(b.ohms.value, rt);
   if (share >= DIVIDER_SLOPE_SHARE) return;
   const better = nearestE24(rt);

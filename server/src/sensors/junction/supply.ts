@@ -1,12 +1,13 @@
 // supply-too-low: with the resistor shorted, can the supply push the window's minimum current
 // through the junction at the cold end (where the junction voltage is highest)?
-import { operatingPoint } from '../physics/junction';
-import type { CheckContext } from './context';
-import { fmtA, fmtC, fmtV } from './format';
+import { operatingPoint } from '../../physics/junction';
+import type { CheckContext } from '../../checks/context';
+import { fmtA, fmtC, fmtV } from '../../checks/format';
+import type { JunctionDef } from './types';
 
 export function checkSupply({ channel: c, sink, reported }: CheckContext): void {
-  if (c.bias.kind !== 'resistor' || c.sensor.kind !== 'junction') return;
-  const need = operatingPoint(c.sensor.params, { kind: 'current', amps: c.windowLowA }, c.lowK).volts;
+  if (c.bias.kind !== 'resistor') return;
+  const need = operatingPoint((c.sensor as JunctionDef).params, { kind: 'current', amps: c.windowLowA }, c.lowK).volts;
   const supply = c.bias.supply.value;
   if (supply > need) return;
   reported.add('supply-too-low');

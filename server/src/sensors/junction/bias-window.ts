@@ -1,14 +1,15 @@
 // bias-current-low / bias-current-high: the bias current over the range against the sound window.
 // Default window 1 µA .. 1 mA (common practice for small-signal junctions; see the catalogue).
-import { operatingPoint } from '../physics/junction';
-import { nearestE24 } from '../analysis/eseries';
-import type { ChannelDef } from '../model/types';
-import type { CheckContext } from './context';
-import { fmtA, fmtC, fmtOhm } from './format';
+import { operatingPoint } from '../../physics/junction';
+import { nearestE24 } from '../../analysis/eseries';
+import type { ChannelDef } from '../../model/types';
+import type { CheckContext } from '../../checks/context';
+import { fmtA, fmtC, fmtOhm } from '../../checks/format';
+import type { JunctionDef } from './types';
 
 export function checkBiasWindow({ channel: c, result, sink, reported }: CheckContext): void {
   // The window is a junction rule; resistive sensors are judged on self-heating instead.
-  if (reported.has('supply-too-low') || c.sensor.kind !== 'junction') return;
+  if (reported.has('supply-too-low')) return;
   const { ampsMin, ampsMax } = result.summary;
   if (ampsMin >= c.windowLowA && ampsMax <= c.windowHighA) return;
   const { ampsMin: atMin, ampsMax: atMax } = result.summary.at;
@@ -32,15 +33,16 @@ export function checkBiasWindow({ channel: c, result, sink, reported }: CheckCon
  * with the currents it gives at the two ends of the range; null when no resistor can.
  */
 export function suggestResistor(c: ChannelDef): { ohms: number; ampsMin: number; ampsMax: number } | null {
-  if (c.bias.kind !== 'resistor' || c.sensor.kind !== 'junction') return null;
+  if (c.bias.kind !== 'resistor') return null;
+  const p = (c.sensor as JunctionDef).params;
   const supply = c.bias.supply.value;
   const target = Math.sqrt(c.windowLowA * c.windowHighA);
   const mid = (c.lowK + c.highK) / 2;
-  const vj = operatingPoint(c.sensor.params, { kind: 'current', amps: target }, mid).volts;
+  const vj = operatingPoint(p, { kind: 'current', amps: target }, mid).volts;
   if (!(supply > vj)) return null;
   const ohms = nearestE24((supply - vj) / target);
   const bias = { kind: 'resistor' as const, ohms, supply };
-  const a = operatingPoint(c.sensor.params, bias, c.lowK).amps;
-  const b = operatingPoint(c.sensor.params, bias, c.highK).amps;
+  const a = operatingPoint(p, bias, c.lowK).amps;
+  const b = operatingPoint(p, bias, c.highK).amps;
   return { ohms, ampsMin: Math.min(a, b), ampsMax: Math.max(a, b) };
 }

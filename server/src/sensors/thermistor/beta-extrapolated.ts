@@ -2,16 +2,17 @@
 // specified between. The beta model is the Steinhart-Hart equation with C = 0 (steinhart-hart.ts);
 // real NTC curves bend away from it, so datasheets quote beta per temperature pair (beta 25/50,
 // 25/85...) and the error grows away from that pair (common practice, no source).
-import type { CheckContext } from './context';
-import { fieldSpan } from './context';
-import { fmtC, trimNumber } from './format';
+import type { CheckContext } from '../../checks/context';
+import { fieldSpan } from '../../checks/context';
+import { fmtC, trimNumber } from '../../checks/format';
+import type { ThermistorDef } from './types';
 
 /** How far past the beta pair the range may reach before the note, K (a rule of ours). */
 export const BETA_MARGIN_K = 10;
 
 export function checkBetaExtrapolated({ channel: c, sink }: CheckContext): void {
-  const s = c.sensor;
-  if (s.kind !== 'thermistor' || !s.beta) return;
+  const s = c.sensor as ThermistorDef;
+  if (!s.beta) return;
   const below = s.beta.lowK - c.lowK;
   const above = c.highK - s.beta.highK;
   if (below <= BETA_MARGIN_K && above <= BETA_MARGIN_K) return;

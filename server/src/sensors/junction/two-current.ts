@@ -1,9 +1,9 @@
 // two-current-unresolved: one ADC count of the two-current difference spans more temperature than
 // the resolution target (or 0.5 K when none is given); names the gain or oversampling that fixes it.
-import type { CheckContext } from './context';
-import { fieldSpan } from './context';
-import { fmtC, trimNumber } from './format';
-import { effectiveOversamplingBits, samplesForExtraBits } from '../budget/oversampling';
+import type { CheckContext } from '../../checks/context';
+import { fieldSpan } from '../../checks/context';
+import { fmtC, trimNumber } from '../../checks/format';
+import { effectiveOversamplingBits, samplesForExtraBits } from '../../budget/oversampling';
 
 /** Resolution asked of a two-current channel without a resolution target, K per count. */
 export const DEFAULT_TWO_CURRENT_K_PER_COUNT = 0.5;

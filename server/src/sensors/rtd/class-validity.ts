@@ -5,14 +5,15 @@
 // spread (taken from the class) is optimistic there. The rtd's `element` field says how the element is
 // built; when it is absent the note fires when the range leaves the film range and says whether it
 // also leaves the wire-wound one.
-import type { CheckContext } from './context';
-import { fieldSpan } from './context';
-import { fmtC } from './format';
-import { RTD_CLASSES } from '../physics/callendar-van-dusen';
+import type { CheckContext } from '../../checks/context';
+import { fieldSpan } from '../../checks/context';
+import { fmtC } from '../../checks/format';
+import { RTD_CLASSES } from '../../physics/callendar-van-dusen';
+import type { RtdDef } from './types';
 
 export function checkClassValidity({ channel: c, sink }: CheckContext): void {
-  const s = c.sensor;
-  if (s.kind !== 'rtd' || !s.toleranceClass) return;
+  const s = c.sensor as RtdDef;
+  if (!s.toleranceClass) return;
   const k = RTD_CLASSES[s.toleranceClass];
   const lowC = c.lowK - 273.15;
   const highC = c.highK - 273.15;
