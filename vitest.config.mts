@@ -22,6 +22,7 @@ export default defineConfig({
     hookTimeout: 300_000,
     teardownTimeout: 60_000,
     pool: 'forks',
+    setupFiles: ['tests/unit/helpers/register-kinds.ts'],
     projects: [
       { extends: true, test: { name: 'fast', include: ['tests/unit/**/*.test.ts', 'tests/protocol/**/*.test.ts'], exclude: TOOLCHAIN_TESTS } },
       { extends: true, test: { name: 'toolchains', include: TOOLCHAIN_TESTS } },

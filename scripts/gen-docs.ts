@@ -3,7 +3,8 @@
 // so they cannot drift from the code. Run by `npm run docs` and by the build; a unit test fails when one is stale.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { CATALOGUE } from '../server/src/checks/catalogue';
+import '../server/src/sensors/kinds';
+import { CATALOGUE } from '../server/src/diagnostics/catalogue';
 import { blockKinds } from '../server/src/model/schema';
 import { blockSpecs, needOf, snippets, textMateGrammar } from '../server/src/model/language';
 import { DIMENSION_WORDS, UNIT_TEXTS } from '../server/src/model/units';

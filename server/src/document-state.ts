@@ -13,8 +13,8 @@
 // content its sweep, worst-case budget, Monte Carlo budget (on first use) and checks' diagnostics.
 import type { ChannelResult } from './analysis/types';
 import { channelKey } from './analysis/cache';
-import type { BudgetResult } from './budget/types';
-import type { Diagnostic } from './checks/diagnostic';
+import type { BudgetResult } from './analysis/budget-types';
+import type { Diagnostic } from './diagnostics/diagnostic';
 import type { ChannelDef } from './model/types';
 import { contentToken } from './model/moved';
 import { ParseCache } from './syntax/parse';

@@ -1,7 +1,9 @@
 // The engine's façade: the whole API that the CLI and the language server call.
 // Text in, syntax tree + model + per-channel results + diagnostics out. No IO, no editor types.
 import * as path from 'node:path';
-import { DiagnosticSink, type Diagnostic } from './checks/diagnostic';
+// Registers every sensor kind before anything reads the registry (sensors/kinds.ts).
+import './sensors/kinds';
+import { DiagnosticSink, type Diagnostic } from './diagnostics/diagnostic';
 import { channelChecks } from './checks/index';
 import { analyseChannel, channelResult } from './analysis/sweep';
 import { channelBudget, liveBudget } from './budget/budget';
@@ -11,16 +13,18 @@ import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel, type Resolution } from './model/resolve';
 import type { ChannelDerived, DocumentState } from './document-state';
-import { shown } from './checks/shown';
+import { shown } from './diagnostics/shown';
 
-export type { Diagnostic } from './checks/diagnostic';
+export type { Diagnostic } from './diagnostics/diagnostic';
 export type { SourceHost, LoadedFile } from './model/workspace';
 export type { SyntaxFile } from './syntax/ast';
 export type { ChannelResult, SweepPoint, ChannelSummary } from './analysis/types';
 export type { ChannelDef, SensorDef, AdcDef } from './model/types';
-export { CATALOGUE, type DiagnosticCode, type Severity } from './checks/catalogue';
+export { CATALOGUE, type DiagnosticCode, type Severity } from './diagnostics/catalogue';
 export { LineIndex } from './syntax/line-index';
 export { DocumentState } from './document-state';
+export type { Analysis } from './analysis/result';
+import type { Analysis } from './analysis/result';
 
 export interface AnalyseInput {
   /** Absolute path of the spec (for an unsaved buffer, any absolute path in its folder). */
@@ -44,15 +48,6 @@ export interface AnalyseInput {
   errorBudget?: boolean;
 }
 
-export interface Analysis {
-  path: string;
-  /** The entry file first, then every file it uses. */
-  files: LoadedFile[];
-  model: Resolution;
-  channels: ChannelResult[];
-  /** Every diagnostic, of the entry file and of used files (see `file`). */
-  diagnostics: Diagnostic[];
-}
 
 const NO_FILES: SourceHost = { read: () => undefined };
 
@@ -235,3 +230,45 @@ function reportUsedFileProblems(files: LoadedFile[], sink: DiagnosticSink): void
     }
   }
 }
+
+// The rest of the façade: what the CLI and the language server use of the layers below, so that
+// they import nothing but this file (.dependency-cruiser.cjs, "front-ends-through-facade").
+export { channelBudgetAsync } from './budget/budget';
+export { describeSetting, SHARES_EXPLAINED } from './budget/describe';
+export { budgetJson, budgetSummaryJson } from './budget/json';
+export { type PairedDifference } from './budget/paired';
+export { type BudgetResult } from './analysis/budget-types';
+export { fitMeasured } from './calibration/fit';
+export { escapeControls, shown } from './diagnostics/shown';
+export { headerPathFor, generatableResults } from './codegen/channel-input';
+export { symbolClash } from './codegen/clash';
+export { prefixProblem } from './codegen/generate';
+export { orphanBlocks, scanGeneratedBlocks, spliceGenerated } from './codegen/markers';
+export { generateForSpec, splitChannels, conversionBlock } from './codegen/spec';
+export { staleDiagnostics, specChannelNames } from './codegen/stale';
+export { type GenerateResult, type SpliceBlock } from './codegen/types';
+export { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from './compare/cells';
+export { compareGroups, type CompareGroup, type CompareRow } from './compare/compare';
+export { channelLenses } from './features/code-lens';
+export { completion, type CompletionKind } from './features/completion';
+export { foldingRanges } from './features/folding';
+export { formatEdits } from './features/format';
+export { conversionFilePath, generatableChannels, generateForChannel } from './features/generate-code';
+export { hover } from './features/hover';
+export { inlayHints } from './features/inlay';
+export { blockAt } from './features/locate';
+export { definition, loadNames, prepareRename, rename, workspaceOccurrences, type FileSpan, type NamedSpec } from './features/navigation';
+export { quickFixes, type FixEdit } from './features/quickfix';
+export { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from './features/semantic-tokens';
+export { documentSymbols, type OutlineSymbol, type SymbolKind } from './features/symbols';
+export { fixedNumber, formatSI, trimNumber } from './model/read-value';
+export { isInside } from './model/workspace';
+export { plotData, plotProblem, type PlotData } from './plot/data';
+export { renderSvg } from './plot/render';
+export { plotSpec, type ChartKind } from './plot/spec';
+export { CAUTION } from './report/caution';
+export { describeBias, describeSensor } from './report/describe';
+export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';
+export { sarifLog } from './report/sarif';
+export { describeFaults, sensorFaults } from './sensors/faults';
+export { type Span } from './syntax/ast';

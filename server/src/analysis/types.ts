@@ -58,7 +58,7 @@ export interface ChannelResult {
   table: import('./sweep').SweepTable;
   summary: ChannelSummary;
   /** Full error budget with Monte Carlo (budget/budget.ts), computed by analyse() on first read; absent when it could not be computed. */
-  budget?: import('../budget/types').BudgetResult;
+  budget?: import('./budget-types').BudgetResult;
   /** Worst case alone on the same grid, computed by every analyse() for the accuracy check. */
-  worstCaseBudget?: import('../budget/types').BudgetResult;
+  worstCaseBudget?: import('./budget-types').BudgetResult;
 }

@@ -6,7 +6,7 @@ import { ZERO_CELSIUS_K } from '../physics/constants';
 import { makeFrame, type BudgetFrame } from './frame';
 import { REFINE, worstCase, type WorstCase } from './worst-case';
 import { monteCarlo, monteCarloAsync, percentileSorted, type McSamples } from './monte-carlo';
-import type { BudgetOptions, BudgetResult, CancellationToken, ContributorShare, ModeBudget, Progress } from './types';
+import type { BudgetOptions, BudgetResult, CancellationToken, ContributorShare, ModeBudget, Progress } from '../analysis/budget-types';
 import { effectiveOversamplingBits, noiseSuffices } from './oversampling';
 import { trimNumber } from '../model/read-value';
 

@@ -7,7 +7,7 @@
 // are; two points: weighted by where the temperature lies between the points, larger outside them).
 import type { ChannelDef } from '../model/types';
 import { trimNumber } from '../model/read-value';
-import type { Contributor } from './types';
+import type { Contributor } from '../analysis/budget-types';
 
 /** Calibration-reading contributors, from the reading ones (their LSB bounds) and the channel's `cal_reference`. */
 export function calibrationContributors(c: ChannelDef, reading: Contributor[]): Contributor[] {

@@ -2,7 +2,7 @@
 // tolerances from the spec, and how a board with given draws perturbs the channel.
 import type { BiasDef, ChannelDef } from '../model/types';
 import { trimNumber } from '../model/read-value';
-import type { Contributor } from './types';
+import type { Contributor } from '../analysis/budget-types';
 import { kindOf } from '../sensors/registry';
 
 const pct = (r: number) => `± ${trimNumber(r * 100, 3)} %`;

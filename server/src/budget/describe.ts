@@ -1,5 +1,5 @@
 // Words for budget settings, shared by diagnostics, hover and the CLI.
-import type { CalSetting } from './types';
+import type { CalSetting } from '../analysis/budget-types';
 import { trimNumber } from '../model/read-value';
 
 const c = (k: number) => `${trimNumber(k - 273.15, 4)} °C`;

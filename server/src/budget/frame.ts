@@ -15,7 +15,7 @@ import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
 import { fittedChannel } from '../calibration/fit';
 import { NominalInverse } from './nominal-inverse';
 import { contributorsOf, perturb } from './contributors';
-import type { CalSetting, Contributor } from './types';
+import type { CalSetting, Contributor } from '../analysis/budget-types';
 import { effectiveOversamplingBits } from './oversampling';
 import { calibrationContributors, type CalShift } from './calibration-readings';
 

@@ -1,5 +1,5 @@
 // The budget in the machine-readable report (check --format json, budget --format json).
-import type { BudgetResult } from './types';
+import type { BudgetResult } from '../analysis/budget-types';
 
 const r6 = (x: number) => Number(x.toPrecision(6));
 

@@ -10,7 +10,7 @@ import { boardErrors, boardTrim, calibrated, type BudgetFrame } from './frame';
 import { applyTrimK } from '../calibration/trim';
 import { InlProfile } from './inl-profile';
 import type { CalShift } from './calibration-readings';
-import type { CancellationToken, Progress } from './types';
+import type { CancellationToken, Progress } from '../analysis/budget-types';
 
 export interface McSamples {
   runs: number;

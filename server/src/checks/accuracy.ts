@@ -2,7 +2,7 @@
 import type { CheckContext } from './context';
 import { fieldSpan } from './context';
 import { trimNumber } from './format';
-import type { ModeBudget } from '../budget/types';
+import type { ModeBudget } from '../analysis/budget-types';
 import { describeSetting } from '../budget/describe';
 
 /** A channel that clips or cannot be biased has its real problem reported already. */

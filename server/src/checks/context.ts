@@ -2,7 +2,7 @@
 import type { ChannelResult } from '../analysis/types';
 import type { ChannelDef } from '../model/types';
 import type { Span } from '../syntax/ast';
-import type { DiagnosticSink } from './diagnostic';
+import type { DiagnosticSink } from '../diagnostics/diagnostic';
 
 export interface CheckContext {
   channel: ChannelDef;

@@ -1,7 +1,7 @@
 // The CLI's file access: the engine's SourceHost over the disk, and line indexes for output.
 import { readDisk, realPathOnDisk } from '../disk';
-import type { SourceHost } from '../model/workspace';
-import { LineIndex } from '../syntax/line-index';
+import type { SourceHost } from '../engine';
+import { LineIndex } from '../engine';
 
 export class DiskHost implements SourceHost {
   private readonly cache = new Map<string, string | undefined>();

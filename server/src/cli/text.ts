@@ -1,8 +1,8 @@
 // Human-readable CLI text: diagnostics as `file:line:col: severity [code] message`, 1-based.
 import * as path from 'node:path';
-import type { Diagnostic } from '../checks/diagnostic';
-import type { LineIndex } from '../syntax/line-index';
-import { escapeControls } from '../checks/shown';
+import type { Diagnostic } from '../engine';
+import type { LineIndex } from '../engine';
+import { escapeControls } from '../engine';
 
 export function formatDiagnostic(d: Diagnostic, index: LineIndex, cwd: string): string {
   const p = index.position(d.span.start);

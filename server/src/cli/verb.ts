@@ -8,9 +8,9 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { parseArgs } from 'node:util';
-import type { Diagnostic } from '../checks/diagnostic';
-import { shown as shownText } from '../checks/shown';
-import type { LineIndex } from '../syntax/line-index';
+import type { Diagnostic } from '../engine';
+import { shown as shownText } from '../engine';
+import type { LineIndex } from '../engine';
 import { EXIT, type CliIO } from './io';
 import { formatDiagnostic } from './text';
 

@@ -11,7 +11,7 @@ import { kelvinAtVolts } from '../analysis/inverse';
 import { sense } from '../analysis/sense';
 import { fitMeasured, fittedChannel } from '../calibration/fit';
 import type { ChannelResult } from '../analysis/types';
-import type { Diagnostic } from '../checks/diagnostic';
+import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { ChannelDef } from '../model/types';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { sensorFaults, usableCodes, type SensorFault } from '../sensors/faults';

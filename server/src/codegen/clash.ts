@@ -4,7 +4,7 @@
 // see the other spec, so a file that already holds another channel's block with the same C names
 // is refused rather than written into something that no longer compiles.
 import { scanGeneratedBlocks } from './markers';
-import { shown } from '../checks/shown';
+import { shown } from '../diagnostics/shown';
 
 /** The identifier prefix a generated block defines, read from its conversion function. */
 const DEFINES = /^uint8_t ([a-z][a-z0-9_]*)_code_to_temp\(/m;

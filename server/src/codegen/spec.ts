@@ -1,7 +1,7 @@
 // Generation for a whole analysed spec (every channel, or one): the C source and header texts the
 // CLI writes, and the marker-wrapped block the editor inserts at the cursor. Pure: no file IO.
 import type { ChannelResult } from '../analysis/types';
-import type { Diagnostic } from '../checks/diagnostic';
+import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { DocumentNode } from '../syntax/ast';
 import { channelError, conversionInput, generatableResults, tooWideMessage } from './channel-input';
 import { generateC } from './generate';

@@ -2,7 +2,7 @@
 // was generated. Pure: the caller hands over the C text (the server reads it through its document
 // host, the CLI from the disk).
 import type { ChannelResult } from '../analysis/types';
-import { DiagnosticSink, type Diagnostic } from '../checks/diagnostic';
+import { DiagnosticSink, type Diagnostic } from '../diagnostics/diagnostic';
 import { channelSpecHash, conversionFilePath, generatableResults } from './channel-input';
 import { orphanBlocks, scanGeneratedBlocks } from './markers';
 import type { DocumentNode } from '../syntax/ast';

@@ -4,9 +4,9 @@
 // contributors include the element's own spread, budget/contributors.ts + the sensor kind's; the
 // element spread alone when the budget cannot be computed), self-heating, an estimated parts count
 // and the generated conversion code's size.
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import type { ChannelResult } from '../analysis/types';
-import type { ModeBudget } from '../budget/types';
+import type { ModeBudget } from '../analysis/budget-types';
 import { conversionInput, generatableResults } from '../codegen/channel-input';
 import { generateC } from '../codegen';
 import { kindOf } from '../sensors/registry';

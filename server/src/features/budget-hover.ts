@@ -1,8 +1,8 @@
 // The "Error budget" section of a channel's hover: worst-case error before and after each
 // calibration mode, the Monte Carlo 1-99 % figure, the top contributors' shares and the dominant one.
-import type { BudgetResult } from '../budget/types';
+import type { BudgetResult } from '../analysis/budget-types';
 import { describeSetting } from '../budget/describe';
-import * as f from './figures';
+import * as f from '../analysis/figures';
 import { SHARES_EXPLAINED } from '../budget/describe';
 
 const TOP = 5;

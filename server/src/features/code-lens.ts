@@ -1,6 +1,6 @@
 // Code lenses: one "Show plots" lens on the name of each channel of the entry file, carrying the
 // channel's name. The server layer turns it into a command the client runs (thermoscribe.showPlot).
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import type { Span } from '../syntax/ast';
 
 export interface ChannelLens {

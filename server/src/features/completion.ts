@@ -1,14 +1,14 @@
 // Completion by context, read from the text before the cursor (which is usually not valid yet):
 // block keywords at top level; the fields of the enclosing block not yet given; after `key =`
 // the names, options or forms the field takes; after a number the units of its dimension.
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import type { BlockNode, Span } from '../syntax/ast';
 import { blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
 import { sensorKind } from '../sensors/registry';
 import { SUGGESTED_UNITS, type Dimension } from '../model/units';
 import { blockSpecs, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
 import { blockAt } from './locate';
-import { formatSI } from './figures';
+import { formatSI } from '../analysis/figures';
 
 export type CompletionKind = 'keyword' | 'field' | 'unit' | 'reference' | 'option' | 'form';
 

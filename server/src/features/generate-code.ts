@@ -4,7 +4,7 @@
 // block replaced (or appended), so hand-written code around it is kept. The channel -> generator
 // input mapping (and the spec hash) lives in codegen/channel-input.ts, shared with the CLI.
 import * as path from 'node:path';
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import { generateC, spliceGenerated } from '../codegen/index';
 import { conversionFilePath, conversionInput, tooWideMessage } from '../codegen/channel-input';
 import { symbolClash } from '../codegen/clash';

@@ -1,20 +1,20 @@
 // Hover: computed figures for a channel, its bias, a junction or an ADC; a number's value in
 // base units; a field's documentation and default. Offsets in, markdown and a span out.
 import { describeFaults, sensorFaults } from '../sensors/faults';
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import type { ChannelResult, SweepPoint } from '../analysis/types';
 import type { AdcDef } from '../model/types';
 import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
 import { blockSpec, fieldSpec, type BlockKind } from '../model/schema';
 import { needOf } from '../model/language';
-import { DiagnosticSink } from '../checks/diagnostic';
+import { DiagnosticSink } from '../diagnostics/diagnostic';
 import { readQuantityValue } from '../model/read-value';
 import { readUnit, type Dimension } from '../model/units';
 import { pointAt } from '../analysis/sweep';
 import { describeBias } from '../report/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
-import * as f from './figures';
+import * as f from '../analysis/figures';
 import { budgetHoverSection } from './budget-hover';
 import { kindOf, sensorKind } from '../sensors/registry';
 

@@ -2,11 +2,11 @@
 // current range it gives; after its range: the worst-case resolution; after its adc: the sensed
 // span against the reference; after its accuracy: self-heating and straight-line error; after an
 // ADC's reference: the LSB size; after its bits: the number of codes.
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import type { BlockNode, Span } from '../syntax/ast';
 import { blockSpec, fieldSpec } from '../model/schema';
 import { spanOf } from '../model/read-value';
-import * as f from './figures';
+import * as f from '../analysis/figures';
 
 export interface InlayHint {
   /** Offset the hint is shown at (the end of the field's value). */

@@ -8,7 +8,7 @@ import type { ParseCache } from '../syntax/parse';
 import { blockKinds, blockSpec, fieldSpec, type BlockKind } from '../model/schema';
 import { declaredBlocks, type BlockRef } from '../model/resolve';
 import { loadWorkspace, type LoadedFile, type SourceHost } from '../model/workspace';
-import { DiagnosticSink } from '../checks/diagnostic';
+import { DiagnosticSink } from '../diagnostics/diagnostic';
 import { locate } from './locate';
 
 export interface FileSpan {

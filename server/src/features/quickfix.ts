@@ -1,14 +1,15 @@
 // Quick fixes computed by the engine. Each candidate edit is applied to the text and the spec is
 // analysed again: a fix is offered only when it clears its diagnostic without adding a clip, and
 // its title reports the figure it achieves. Keys on diagnostic codes and data, never on messages.
-import type { Analysis, Diagnostic } from '../engine';
+import type { Analysis } from '../analysis/result';
+import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
 import type { ChannelResult } from '../analysis/types';
 import type { AdcDef } from '../model/types';
 import { blockKinds, blockSpec, fieldSpec } from '../model/schema';
 import { closest } from '../model/suggest';
 import { locate, fieldOf } from './locate';
-import * as f from './figures';
+import * as f from '../analysis/figures';
 
 export interface FixEdit {
   file: string;

@@ -6,7 +6,7 @@ import {
 } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { Analysis, Diagnostic, Severity } from '../engine';
-import type { Span } from '../syntax/ast';
+import type { Span } from '../engine';
 import { pathToUri } from './documents';
 
 export function toRange(doc: TextDocument, span: Span): Range {

@@ -7,7 +7,7 @@ import type { TextDocument } from 'vscode-languageserver-textdocument';
 import type { ServerContext } from './context';
 import { toDiagnostic } from './convert';
 import { uriToPath } from './documents';
-import { staleDiagnostics } from '../codegen/stale';
+import { staleDiagnostics } from '../engine';
 import { isShutDown } from './guard';
 
 export class DiagnosticScheduler {

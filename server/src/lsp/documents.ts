@@ -7,7 +7,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { TextDocuments } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { SourceHost } from '../engine';
-import { isInside } from '../model/workspace';
+import { isInside } from '../engine';
 import { readDisk, realPathOnDisk } from '../disk';
 
 export { readDisk };

@@ -9,7 +9,7 @@ import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI }
 import { kindWithArticle, PART_DOMAINS } from './schema';
 import { closest } from './suggest';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
-import { shown } from '../checks/shown';
+import { shown } from '../diagnostics/shown';
 
 /** The channel's `sensor`: a definition of any sensor kind. */
 export function readSensorRef(r: BlockReader, res: Resolution): SensorDef | null {

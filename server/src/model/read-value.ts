@@ -1,11 +1,11 @@
 // Readers that turn a field's terms into numbers in base SI units, reporting every problem
 // with the span of the offending term. They return null when the value is unusable.
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
-import type { DiagnosticSink } from '../checks/diagnostic';
+import type { DiagnosticSink } from '../diagnostics/diagnostic';
 import { DIMENSION_WORDS, readUnit, type Dimension, type UnitInfo } from './units';
 import { PART_DOMAINS, type FieldForm } from './schema';
 import type { Toleranced } from './types';
-import { shown } from '../checks/shown';
+import { shown } from '../diagnostics/shown';
 
 export interface ReadContext {
   file: string;

@@ -4,7 +4,7 @@ import type { BlockNode, FieldNode, Span, Term, TopItem } from '../syntax/ast';
 import { pieceOrigin } from '../syntax/parse';
 import { contentToken, movedCopy, sameContent } from './moved';
 import { shiftOffsets } from '../syntax/shift';
-import { DiagnosticSink } from '../checks/diagnostic';
+import { DiagnosticSink } from '../diagnostics/diagnostic';
 import { blockKinds, blockSpec, fieldSpec, kindWithArticle, PART_DOMAINS, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { LoadedFile } from './workspace';
 import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase, SensorDef, Toleranced } from './types';
@@ -13,8 +13,8 @@ import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
-import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from '../budget/read-spec';
-import { shown } from '../checks/shown';
+import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
+import { shown } from '../diagnostics/shown';
 
 export interface BlockRef {
   kind: BlockKind;

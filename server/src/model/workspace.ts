@@ -6,8 +6,8 @@
 import * as path from 'node:path';
 import { parse, type ParseCache } from '../syntax/parse';
 import type { ParseResult, UseNode } from '../syntax/ast';
-import type { DiagnosticSink } from '../checks/diagnostic';
-import { shown } from '../checks/shown';
+import type { DiagnosticSink } from '../diagnostics/diagnostic';
+import { shown } from '../diagnostics/shown';
 
 export interface SourceHost {
   /** Text of the file at an absolute path, or undefined when it cannot be read. */

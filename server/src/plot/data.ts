@@ -3,7 +3,7 @@
 // (straight from the budget). Shared by the CLI (`plot`) and the language server (`thermoscribe/plotData`).
 // No drawing here: spec.ts turns this into chart specs.
 import type { ChannelResult } from '../analysis/types';
-import type { BudgetResult, CalMode } from '../budget/types';
+import type { BudgetResult, CalMode } from '../analysis/budget-types';
 import { describeSetting } from '../budget/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 

@@ -5,7 +5,7 @@
 // Plain JSON with fixed numbers: no expressions, no data loading, so it renders offline under a
 // strict content security policy (with vega-interpreter) as well as in Node.
 import { trimNumber } from '../model/read-value';
-import type { CalMode } from '../budget/types';
+import type { CalMode } from '../analysis/budget-types';
 import type { ErrorSeries, ModeBand, PlotData } from './data';
 import { NEUTRAL_THEME, type PlotTheme } from './theme';
 

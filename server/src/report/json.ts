@@ -2,8 +2,8 @@
 // channel, the sweep, a summary and every resolved input in base SI units, so that a report can be
 // checked independently of this tool.
 import { sensorFaults } from '../sensors/faults';
-import type { Analysis } from '../engine';
-import type { Diagnostic } from '../checks/diagnostic';
+import type { Analysis } from '../analysis/result';
+import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { ChannelResult } from '../analysis/types';
 import { LineIndex } from '../syntax/line-index';
 import { kindOf } from '../sensors/registry';

@@ -2,8 +2,8 @@
 // one run, rules from the diagnostic catalogue, results with 1-based line/column regions
 // (SARIF's default column unit is UTF-16 code units, as our offsets are).
 import { pathToFileURL } from 'node:url';
-import { CATALOGUE, type DiagnosticCode } from '../checks/catalogue';
-import type { Diagnostic } from '../checks/diagnostic';
+import { CATALOGUE, type DiagnosticCode } from '../diagnostics/catalogue';
+import type { Diagnostic } from '../diagnostics/diagnostic';
 import { LineIndex } from '../syntax/line-index';
 
 const LEVEL = { error: 'error', warning: 'warning', info: 'note' } as const;

@@ -14,7 +14,7 @@
 // spec (resolve.ts then keeps a channel with the content of the channels it names, as it does its
 // sensor and ADC today), and an optional `conversionInput` member giving the code generator its
 // second input (the cold-junction temperature from that channel's generated function).
-import type { Analysis } from '../engine';
+import type { Analysis } from '../analysis/result';
 import type { ChannelResult } from '../analysis/types';
 import type { SensedPoint } from '../analysis/sense';
 import type { CheckContext } from '../checks/context';

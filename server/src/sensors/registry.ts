@@ -1,26 +1,28 @@
-// The sensor kinds, in the order completion, messages and documentation list them. A new kind is
-// its folder under server/src/sensors/ plus one line here (DEVELOPERS.md, "How to add a sensor kind").
-// Read lazily: kinds import modules that import this one, so nothing here runs at load time.
+// The sensor kinds, in the order completion, messages and documentation list them. The list itself
+// is `sensors/kinds.ts` (a new kind is its folder plus one line there); it hands the kinds to
+// `registerSensorKinds` when the engine's façade loads it. So the generic layers (model, analysis,
+// budget, checks) dispatch through this file, which imports no kind: imports stay one-way
+// (DEVELOPERS.md, "Layers").
 import type { SensorKind } from './kind';
 import type { SensorDef } from '../model/types';
-import { junction } from './junction';
-import { thermistor } from './thermistor';
-import { rtd } from './rtd';
 
-let kinds: readonly SensorKind[] | undefined;
-let byName: Map<string, SensorKind> | undefined;
+let kinds: readonly SensorKind[] = [];
+let byName = new Map<string, SensorKind>();
+
+/** Called once by sensors/kinds.ts with every kind, in their listing order. */
+export function registerSensorKinds(list: readonly SensorKind[]): void {
+  kinds = list;
+  byName = new Map(list.map((k) => [k.name, k]));
+}
 
 export function sensorKinds(): readonly SensorKind[] {
-  return (kinds ??= [
-    junction,
-    thermistor,
-    rtd,
-  ] as unknown as SensorKind[]);
+  if (kinds.length === 0) throw new Error('no sensor kind is registered: import server/src/sensors/kinds.ts (the engine façade does) before using the engine');
+  return kinds;
 }
 
 /** The kind of a block keyword, or undefined when it is not a sensor kind. */
 export function sensorKind(name: string): SensorKind | undefined {
-  byName ??= new Map(sensorKinds().map((k) => [k.name, k]));
+  if (kinds.length === 0) sensorKinds();
   return byName.get(name);
 }
 

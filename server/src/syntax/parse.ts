@@ -7,7 +7,7 @@
 import * as generated from './parser.generated.js';
 import type { DocumentNode, ErrorNode, ParseResult, Span, SyntaxProblem, TopItem } from './ast';
 import { shiftOffsets } from './shift';
-import { shown } from '../checks/shown';
+import { shown } from '../diagnostics/shown';
 import { TOP_WORDS } from './keywords.generated';
 
 /**

@@ -4,7 +4,7 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { CATALOGUE, type DiagnosticCode } from '../../../server/src/checks/catalogue';
+import { CATALOGUE, type DiagnosticCode } from '../../../server/src/diagnostics/catalogue';
 import { analyseFile, diagnosticRows, expectMatchesFile, FIXTURES } from '../helpers/fixtures';
 
 const DIR = path.join(FIXTURES, 'diagnostics');

@@ -5,7 +5,7 @@ import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { generatedFiles } from '../../../scripts/gen-docs';
 import { allBlocks } from '../../../server/src/model/schema';
-import { CATALOGUE } from '../../../server/src/checks/catalogue';
+import { CATALOGUE } from '../../../server/src/diagnostics/catalogue';
 
 const ROOT = path.resolve(__dirname, '../../..');
 const FILES = generatedFiles();

@@ -1,7 +1,7 @@
 // Resolution figures against facts of the trade, and the clip-low check on a synthetic sweep.
 import { describe, expect, it } from 'vitest';
 import { analyse } from '../../../server/src/engine';
-import { DiagnosticSink } from '../../../server/src/checks/diagnostic';
+import { DiagnosticSink } from '../../../server/src/diagnostics/diagnostic';
 import { checkClip } from '../../../server/src/checks/clip';
 import type { ChannelResult } from '../../../server/src/analysis/types';
 

@@ -5,14 +5,14 @@ import { DiskHost } from '../io';
 import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { table } from '../text';
 import { analyseOne } from './check';
-import { channelBudgetAsync } from '../../budget/budget';
-import { budgetJson } from '../../budget/json';
-import { describeSetting, SHARES_EXPLAINED } from '../../budget/describe';
-import type { BudgetResult } from '../../budget/types';
-import { trimNumber } from '../../model/read-value';
-import { fitMeasured } from '../../calibration/fit';
-import type { ChannelDef } from '../../model/types';
-import { CAUTION } from '../../report/caution';
+import { channelBudgetAsync } from '../../engine';
+import { budgetJson } from '../../engine';
+import { describeSetting, SHARES_EXPLAINED } from '../../engine';
+import type { BudgetResult } from '../../engine';
+import { trimNumber } from '../../engine';
+import { fitMeasured } from '../../engine';
+import type { ChannelDef } from '../../engine';
+import { CAUTION } from '../../engine';
 
 export const BUDGET: VerbSpec = {
   name: 'budget',

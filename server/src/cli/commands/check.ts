@@ -4,11 +4,11 @@
 // Exit status: the one rule of cli/verb.ts.
 import * as path from 'node:path';
 import { analyse, type Analysis } from '../../engine';
-import { conversionFilePath } from '../../codegen/channel-input';
-import { staleDiagnostics } from '../../codegen/stale';
-import type { Diagnostic } from '../../checks/diagnostic';
-import { analysisJson, diagnosticJson, REPORT_VERSION } from '../../report/json';
-import { sarifLog } from '../../report/sarif';
+import { conversionFilePath } from '../../engine';
+import { staleDiagnostics } from '../../engine';
+import type { Diagnostic } from '../../engine';
+import { analysisJson, diagnosticJson, REPORT_VERSION } from '../../engine';
+import { sarifLog } from '../../engine';
 import { DiskHost, type CliIO } from '../io';
 import { defineVerb, ROOT_OPTION, shown, usageLine, type VerbArgs, type VerbSpec } from '../verb';
 import { formatDiagnostic } from '../text';

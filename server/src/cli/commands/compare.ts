@@ -5,9 +5,9 @@ import { DiskHost } from '../io';
 import { defineVerb, ROOT_OPTION, shown, usageLine, type VerbSpec } from '../verb';
 import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
-import { compareGroups, type CompareGroup } from '../../compare/compare';
-import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../compare/cells';
-import { CAUTION } from '../../report/caution';
+import { compareGroups, type CompareGroup } from '../../engine';
+import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../engine';
+import { CAUTION } from '../../engine';
 import { VERSION } from '../version';
 
 export const COMPARE: VerbSpec = { name: 'compare', files: 'one', options: { format: { kind: 'choice', values: ['text', 'json'] }, group: { kind: 'name', meta: 'NAME' }, root: ROOT_OPTION } };

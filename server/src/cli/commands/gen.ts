@@ -12,18 +12,18 @@
 // Both files are planned (and any damaged marker refused) before either is written.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { orphanBlocks, scanGeneratedBlocks, spliceGenerated } from '../../codegen/markers';
-import { specChannelNames } from '../../codegen/stale';
-import { conversionFilePath, headerPathFor } from '../../codegen/channel-input';
-import { generateForSpec, splitChannels } from '../../codegen/spec';
-import { prefixProblem } from '../../codegen/generate';
-import { symbolClash } from '../../codegen/clash';
-import type { GenerateResult, SpliceBlock } from '../../codegen/types';
+import { orphanBlocks, scanGeneratedBlocks, spliceGenerated } from '../../engine';
+import { specChannelNames } from '../../engine';
+import { conversionFilePath, headerPathFor } from '../../engine';
+import { generateForSpec, splitChannels } from '../../engine';
+import { prefixProblem } from '../../engine';
+import { symbolClash } from '../../engine';
+import type { GenerateResult, SpliceBlock } from '../../engine';
 import { DiskHost, type CliIO } from '../io';
 import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { writeFilesTogether } from '../write-files';
 import { readDisk } from '../../disk';
-import { shown as shownText } from '../../checks/shown';
+import { shown as shownText } from '../../engine';
 import { analyseOne } from './check';
 
 export const GEN: VerbSpec = {

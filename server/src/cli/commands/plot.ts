@@ -6,10 +6,10 @@ import { DiskHost } from '../io';
 import { writeFilesTogether } from '../write-files';
 import { defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { analyseOne } from './check';
-import { channelBudgetAsync } from '../../budget/budget';
-import { plotData, plotProblem } from '../../plot/data';
-import { plotSpec, type ChartKind } from '../../plot/spec';
-import { renderSvg } from '../../plot/render';
+import { channelBudgetAsync } from '../../engine';
+import { plotData, plotProblem } from '../../engine';
+import { plotSpec, type ChartKind } from '../../engine';
+import { renderSvg } from '../../engine';
 
 const CHARTS: readonly ChartKind[] = ['both', 'transfer', 'error'];
 

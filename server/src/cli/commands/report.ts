@@ -1,13 +1,13 @@
 // thermoscribe report FILE [--channel NAME] [--root DIR]: each channel's sweep as a table.
-import { describeFaults, sensorFaults } from '../../sensors/faults';
+import { describeFaults, sensorFaults } from '../../engine';
 import { DiskHost } from '../io';
 import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type VerbSpec } from '../verb';
 import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
-import type { ChannelResult } from '../../analysis/types';
-import { fixedNumber, formatSI, trimNumber } from '../../model/read-value';
-import { CAUTION } from '../../report/caution';
-import { describeBias, describeSensor } from '../../report/describe';
+import type { ChannelResult } from '../../engine';
+import { fixedNumber, formatSI, trimNumber } from '../../engine';
+import { CAUTION } from '../../engine';
+import { describeBias, describeSensor } from '../../engine';
 
 export const REPORT: VerbSpec = { name: 'report', files: 'one', options: { channel: CHANNEL_OPTION, root: ROOT_OPTION } };
 export const REPORT_USAGE = usageLine(REPORT);

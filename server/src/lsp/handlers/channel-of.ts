@@ -1,7 +1,7 @@
 // What the custom requests share: the analysis of a spec by URI (the open document's, else the file
 // read through the document host), and one of its channels by name with a message when it is absent.
 import { analyse, type Analysis } from '../../engine';
-import type { ChannelResult } from '../../analysis/types';
+import type { ChannelResult } from '../../engine';
 import type { ServerContext } from '../context';
 import { uriToPath } from '../documents';
 

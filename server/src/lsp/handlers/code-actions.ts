@@ -11,11 +11,11 @@ import {
   type TextEdit,
 } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
-import { quickFixes, type FixEdit } from '../../features/quickfix';
-import { conversionFilePath, generatableChannels, generateForChannel } from '../../features/generate-code';
-import { blockAt } from '../../features/locate';
-import { headerPathFor } from '../../codegen/channel-input';
-import { scanGeneratedBlocks } from '../../codegen/markers';
+import { quickFixes, type FixEdit } from '../../engine';
+import { conversionFilePath, generatableChannels, generateForChannel } from '../../engine';
+import { blockAt } from '../../engine';
+import { headerPathFor } from '../../engine';
+import { scanGeneratedBlocks } from '../../engine';
 import type { ServerContext } from '../context';
 import { docForFile, toDiagnostic, toRange, toSpan } from '../convert';
 import { pathToUri, readDisk } from '../documents';

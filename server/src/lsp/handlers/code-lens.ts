@@ -1,7 +1,7 @@
 // textDocument/codeLens: a lens on each channel that runs the client's thermoscribe.showPlot
 // command with the document URI and the channel name.
 import type { CodeLens, CodeLensParams } from 'vscode-languageserver/node';
-import { channelLenses } from '../../features/code-lens';
+import { channelLenses } from '../../engine';
 import type { ServerContext } from '../context';
 import { toRange } from '../convert';
 

@@ -4,10 +4,10 @@
 // `thermoscribe compare --format json`; the cells are the CLI table's text (compare/cells.ts), so
 // the panel formats nothing itself. A missing group or an unreadable file is an answer, not an error.
 import { ErrorCodes, ResponseError } from 'vscode-languageserver/node';
-import { compareGroups, type CompareRow } from '../../compare/compare';
-import type { PairedDifference } from '../../budget/paired';
-import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../compare/cells';
-import { CAUTION } from '../../report/caution';
+import { compareGroups, type CompareRow } from '../../engine';
+import type { PairedDifference } from '../../engine';
+import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../engine';
+import { CAUTION } from '../../engine';
 import type { ServerContext } from '../context';
 import { analysisOf } from './channel-of';
 

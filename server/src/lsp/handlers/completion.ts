@@ -1,6 +1,6 @@
 // textDocument/completion: the engine's context-aware items, with their documentation.
 import { CompletionItemKind, InsertTextFormat, MarkupKind, type CompletionItem, type CompletionParams } from 'vscode-languageserver/node';
-import { completion, type CompletionKind } from '../../features/completion';
+import { completion, type CompletionKind } from '../../engine';
 import type { ServerContext } from '../context';
 import { toRange } from '../convert';
 

@@ -3,8 +3,8 @@
 //   thermoscribe/conversionCode     {uri, channel}  -> {text, method, maxErrorC} the marked source block
 // A spec that is not open is read through the document host (open documents first, then the disk).
 import { ResponseError, ErrorCodes } from 'vscode-languageserver/node';
-import { generatableResults } from '../../codegen/channel-input';
-import { conversionBlock } from '../../codegen/spec';
+import { generatableResults } from '../../engine';
+import { conversionBlock } from '../../engine';
 import type { ServerContext } from '../context';
 import { analysisOf } from './channel-of';
 

@@ -1,6 +1,6 @@
 // textDocument/documentSymbol: the outline (blocks with their fields as children).
 import { SymbolKind, type DocumentSymbol, type DocumentSymbolParams } from 'vscode-languageserver/node';
-import { documentSymbols, type OutlineSymbol, type SymbolKind as FeatureKind } from '../../features/symbols';
+import { documentSymbols, type OutlineSymbol, type SymbolKind as FeatureKind } from '../../engine';
 import type { ServerContext } from '../context';
 import { toRange } from '../convert';
 import type { TextDocument } from 'vscode-languageserver-textdocument';

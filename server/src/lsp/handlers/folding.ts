@@ -1,6 +1,6 @@
 // textDocument/foldingRange: blocks and comment runs.
 import { FoldingRangeKind, type FoldingRange, type FoldingRangeParams } from 'vscode-languageserver/node';
-import { foldingRanges } from '../../features/folding';
+import { foldingRanges } from '../../engine';
 import type { ServerContext } from '../context';
 
 export function onFoldingRanges(ctx: ServerContext, params: FoldingRangeParams): FoldingRange[] {

@@ -1,6 +1,6 @@
 // textDocument/formatting: the canonical layout; no edits when the file has syntax errors.
 import type { DocumentFormattingParams, TextEdit } from 'vscode-languageserver/node';
-import { formatEdits } from '../../features/format';
+import { formatEdits } from '../../engine';
 import type { ServerContext } from '../context';
 import { toRange } from '../convert';
 

@@ -1,6 +1,6 @@
 // textDocument/hover: the engine's hover at the cursor, as markdown.
 import { MarkupKind, type Hover, type HoverParams } from 'vscode-languageserver/node';
-import { hover } from '../../features/hover';
+import { hover } from '../../engine';
 import type { ServerContext } from '../context';
 import { toRange } from '../convert';
 

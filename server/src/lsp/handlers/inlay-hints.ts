@@ -1,6 +1,6 @@
 // textDocument/inlayHint: computed figures at line ends; off when thermoscribe.inlayHints.enabled is false.
 import { InlayHintKind, type InlayHint, type InlayHintParams } from 'vscode-languageserver/node';
-import { inlayHints } from '../../features/inlay';
+import { inlayHints } from '../../engine';
 import type { ServerContext } from '../context';
 import { toSpan } from '../convert';
 

@@ -14,7 +14,7 @@ import {
   type WorkspaceEdit,
 } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
-import { definition, loadNames, prepareRename, rename, workspaceOccurrences, type FileSpan, type NamedSpec } from '../../features/navigation';
+import { definition, loadNames, prepareRename, rename, workspaceOccurrences, type FileSpan, type NamedSpec } from '../../engine';
 import type { ServerContext } from '../context';
 import { docForFile, toRange } from '../convert';
 import { pathToUri, uriToPath } from '../documents';

@@ -4,7 +4,7 @@
 // budget; the client draws it with the shared chart spec. An unknown or broken channel is an answer
 // (the panel shows the message and the channels there are), not an error.
 import { ErrorCodes, ResponseError } from 'vscode-languageserver/node';
-import { plotData, type PlotData } from '../../plot/data';
+import { plotData, type PlotData } from '../../engine';
 import type { ServerContext } from '../context';
 import { channelOf } from './channel-of';
 

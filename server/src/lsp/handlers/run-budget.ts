@@ -7,8 +7,8 @@
 // which carries a cancel button. Either cancellation ($/cancelRequest or the button) stops the run
 // between chunks. Shapes follow the Language Server Protocol 3.17 specification.
 import { ErrorCodes, LSPErrorCodes, ResponseError, type CancellationToken, type WorkDoneProgressReporter } from 'vscode-languageserver/node';
-import { channelBudgetAsync } from '../../budget/budget';
-import { budgetSummaryJson } from '../../budget/json';
+import { channelBudgetAsync } from '../../engine';
+import { budgetSummaryJson } from '../../engine';
 import type { ServerContext } from '../context';
 import { channelOf } from './channel-of';
 import { refuseAfterShutdown } from '../guard';

@@ -1,6 +1,6 @@
 // textDocument/semanticTokens/full: the engine's tokens, delta-encoded by line and character.
 import type { SemanticTokens, SemanticTokensLegend, SemanticTokensParams } from 'vscode-languageserver/node';
-import { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from '../../features/semantic-tokens';
+import { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from '../../engine';
 import type { ServerContext } from '../context';
 
 export const LEGEND: SemanticTokensLegend = { tokenTypes: [...TOKEN_TYPES], tokenModifiers: [...TOKEN_MODIFIERS] };

@@ -1,10 +1,10 @@
 // Hover of a junction definition: its SPICE parameters, a reference operating point, rated range,
 // thermal resistance and the channels using it.
-import type { Analysis } from '../../engine';
+import type { Analysis } from '../../analysis/result';
 import { operatingPoint } from '../../physics/junction';
 import { ZERO_CELSIUS_K } from '../../physics/constants';
 import { formatSI, trimNumber } from '../../model/read-value';
-import * as f from '../../features/figures';
+import * as f from '../../analysis/figures';
 import type { JunctionDef } from './types';
 
 const ROOM_K = 25 + ZERO_CELSIUS_K;

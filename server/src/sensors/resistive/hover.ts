@@ -2,12 +2,12 @@
 // ends of the channels using it, and the resistive parts of a channel (divider, ratiometric reading,
 // amplifier, lead wiring). Pure: definitions in, markdown out. The element's R(T) is its kind's curve
 // (elementAt).
-import type { Analysis } from '../../engine';
+import type { Analysis } from '../../analysis/result';
 import type { ChannelResult } from '../../analysis/types';
 import type { ChannelDef, SensorDef } from '../../model/types';
 import { elementAt } from './model';
 import { ZERO_CELSIUS_K } from '../../physics/constants';
-import * as f from '../../features/figures';
+import * as f from '../../analysis/figures';
 
 /** The element's resistance at the two ends of each analysed channel that uses it. */
 export function rangeEndOhms(a: Analysis, s: SensorDef): { channel: string; lowC: number; highC: number; lowOhms: number; highOhms: number }[] {

@@ -1,9 +1,9 @@
 // Hover of an rtd definition. alpha = (R100 - R0) / (100 °C · R0), the mean temperature coefficient
 // over 0..100 °C defined in IEC 60751 (0.00385 /°C for the standard's coefficients); class tolerance
 // ±(a + b|t|) from physics/callendar-van-dusen.ts (IEC 60751 table, from memory).
-import type { Analysis } from '../../engine';
+import type { Analysis } from '../../analysis/result';
 import { classToleranceC, cvdResistance, RTD_CLASSES } from '../../physics/callendar-van-dusen';
-import * as f from '../../features/figures';
+import * as f from '../../analysis/figures';
 import { dissipation, endsTable, sci, tol } from '../resistive/hover';
 import type { RtdDef } from './types';
 

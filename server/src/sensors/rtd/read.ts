@@ -3,7 +3,7 @@
 import type { BlockReader } from '../../model/resolve';
 import { trimNumber } from '../../model/read-value';
 import { CVD_HIGH_C, CVD_LOW_C, IEC60751, cvdCelsiusAt, cvdResistance, type RtdClass } from '../../physics/callendar-van-dusen';
-import { shown } from '../../checks/shown';
+import { shown } from '../../diagnostics/shown';
 import type { DefBase } from '../../model/types';
 import { readDissipation } from '../resistive/read';
 import type { RtdDef } from './types';

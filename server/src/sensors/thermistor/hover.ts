@@ -1,7 +1,7 @@
 // Hover of a thermistor definition: its curve as given, the Steinhart-Hart coefficients it is held
 // in (1/T = A + B ln R + C (ln R)^3), rated range, dissipation, and R at the range ends of its channels.
-import type { Analysis } from '../../engine';
-import * as f from '../../features/figures';
+import type { Analysis } from '../../analysis/result';
+import * as f from '../../analysis/figures';
 import { dissipation, endsTable, sci, tol } from '../resistive/hover';
 import type { ThermistorDef } from './types';
 

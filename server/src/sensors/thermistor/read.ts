@@ -5,7 +5,7 @@ import type { Toleranced } from '../../model/types';
 import { checkDomain, noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber } from '../../model/read-value';
 import { fieldSpec, PART_DOMAINS, type FieldForm } from '../../model/schema';
 import { betaToSteinhartHart, fitSteinhartHart, shMonotonicMessage, shResistanceAt, type ShCoefficients } from '../../physics/steinhart-hart';
-import { shown } from '../../checks/shown';
+import { shown } from '../../diagnostics/shown';
 import type { DefBase } from '../../model/types';
 import { readDissipation } from '../resistive/read';
 import type { ThermistorDef } from './types';

@@ -2,8 +2,8 @@
 // sensible precision (3 significant digits), temperatures in °C, small rises in mK.
 import { formatSI, trimNumber } from '../model/read-value';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import type { Analysis } from '../engine';
-import type { ChannelResult } from '../analysis/types';
+import type { Analysis } from './result';
+import type { ChannelResult } from './types';
 
 export { formatSI, trimNumber };
 

@@ -2,11 +2,11 @@
 // the two-current bias, calibration, measured points, Monte Carlo settings and oversampling.
 // Each reports bad input with the span of the offending term and returns null; never throws.
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
-import type { BiasDef, CalibrationSpec, MeasuredPoint, MonteCarloSpec } from '../model/types';
-import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from '../model/read-value';
-import { PART_DOMAINS } from '../model/schema';
-import { readUnit } from '../model/units';
-import { shown } from '../checks/shown';
+import type { BiasDef, CalibrationSpec, MeasuredPoint, MonteCarloSpec } from './types';
+import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from './read-value';
+import { PART_DOMAINS } from './schema';
+import { readUnit } from './units';
+import { shown } from '../diagnostics/shown';
 
 function bad(ctx: ReadContext, span: Span, message: string): null {
   ctx.sink.report('bad-value', ctx.file, span, `${ctx.field}: ${message}`);
