@@ -1,6 +1,6 @@
 // Words for budget settings, shared by diagnostics, hover and the CLI.
 import type { CalSetting } from '../analysis/budget-types';
-import { trimNumber } from '../model/read-value';
+import { trimNumber } from '../diagnostics/numbers';
 
 const c = (k: number) => `${trimNumber(k - 273.15, 4)} °C`;
 

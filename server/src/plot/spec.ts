@@ -4,7 +4,7 @@
 // ± accuracy target). The one spec builder shared by the CLI's SVG and the editor panel.
 // Plain JSON with fixed numbers: no expressions, no data loading, so it renders offline under a
 // strict content security policy (with vega-interpreter) as well as in Node.
-import { trimNumber } from '../model/read-value';
+import { trimNumber } from '../diagnostics/numbers';
 import type { CalMode } from '../analysis/budget-types';
 import type { ErrorSeries, ModeBand, PlotData } from './data';
 import { NEUTRAL_THEME, type PlotTheme } from './theme';
