@@ -37,13 +37,13 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
       return runCompare(rest, io);
     case 'budget':
       // Asynchronous (long Monte Carlo runs yield, report progress, stop on Ctrl+C): it sets the exit code itself.
-      void runBudget(rest, io).then((code) => {
+      void Promise.resolve(runBudget(rest, io)).then((code) => {
         process.exitCode = code;
       });
       return 'serving';
     case 'plot':
       // Asynchronous like budget (Monte Carlo, then the drawing): it sets the exit code itself.
-      void runPlot(rest, io).then((code) => {
+      void Promise.resolve(runPlot(rest, io)).then((code) => {
         process.exitCode = code;
       });
       return 'serving';

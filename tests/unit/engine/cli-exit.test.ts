@@ -2,6 +2,7 @@
 // 0 done and no error diagnostic, 1 error diagnostics (printed) or the work could not be done, 2
 // unusable input (bad or unknown options, missing file or folder, unknown channel). Specs are the
 // invented fixtures of tests/fixtures/hostile-values/.
+import { spawnSync } from 'node:child_process';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -136,5 +137,20 @@ describe('options are checked against each verb\'s table (#17 item 7)', () => {
     let err = '';
     expect(main(['frobnicate'], { out: () => undefined, err: (t) => (err += t), cwd: dir })).toBe(2);
     expect(err).toContain('thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error] [--runs N] [--seed S] [--root DIR]');
+  });
+});
+
+describe('the CLI process itself (issue #17 items 6 and 7, through the dispatcher)', () => {
+  // The verbs that run asynchronously (budget, plot) answer bad options synchronously: the
+  // dispatcher must take both, never an internal error.
+  it('budget and plot exit 2 with their usage on a bad option, without an internal error', () => {
+    const cli = path.resolve(__dirname, '../../../dist/cli.js');
+    const spec = path.resolve(__dirname, '../../../samples/greenhouse.tsense');
+    for (const args of [['budget', spec, '--runs', ''], ['plot', spec, '--channel', 'soil', '--out', '/tmp/x.svg', '--seed', 'x']]) {
+      const r = spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
+      expect(r.status, r.stderr).toBe(2);
+      expect(r.stderr).toMatch(/usage: thermoscribe (budget|plot)/);
+      expect(r.stderr).not.toMatch(/internal error/);
+    }
   });
 });
