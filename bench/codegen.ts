@@ -17,7 +17,7 @@ export async function benchCodegen(): Promise<void> {
   console.log('== codegen: 12-bit junction channel, -40..125 degC (invented parameters: IS 1e-14 A, N 1, BF 200, EG 1.11 eV, XTI 3, TNOM 300.15 K, RS 0; 50 uA; 2.5 V reference)');
   const op = await loadOperatingPoint();
   if (!op) {
-    console.log('   skipped: server/src/physics/junction.ts (operatingPoint) is not present');
+    console.log('   skipped: server/src/sensors/junction/physics.ts (operatingPoint) is not present');
     return;
   }
   const t0 = Date.now();

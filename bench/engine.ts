@@ -7,7 +7,7 @@ import { SERVER_NODE_FLAGS } from '../client/src/server-flags';
 import { analyse, DocumentState } from '../server/src/engine';
 import { parse } from '../server/src/syntax/parse';
 import { DiskHost } from '../server/src/cli/io';
-import { junctionAtTemperature, operatingPointAt, solveResistorBiasAmps } from '../server/src/physics/junction';
+import { junctionAtTemperature, operatingPointAt, solveResistorBiasAmps } from '../server/src/sensors/junction/physics';
 import { generateSpec } from './generate';
 import { median, timeRuns, timeRunsOn, verdict } from './stats';
 

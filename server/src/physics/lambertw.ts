@@ -29,7 +29,7 @@ function fritschFactor(w: number, z: number): number {
   return ((z / w1) * (1 - r)) / (1 - 2 * r);
 }
 
-// Built outside lambertW0, as the junction checks build theirs (physics/junction.ts): there a
+// Built outside lambertW0, as the junction checks build theirs (sensors/junction/physics.ts): there a
 // template literal in a hot function slowed the sweep under V8 even with the throw never taken.
 function negativeArgumentError(x: number): RangeError {
   return new RangeError(`lambertW0: argument must be a number >= 0 (got ${x})`);

@@ -53,7 +53,7 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
   beforeAll(async () => {
     const op = await loadOperatingPoint();
     if (op) channels.push(junctionChannel(op));
-    else console.log('host-compile: junction channel skipped, server/src/physics/junction.ts not present');
+    else console.log('host-compile: junction channel skipped, server/src/sensors/junction/physics.ts not present');
     // Every channel of samples/*.tsense the engine analyses, with the options its spec gives; the
     // model is the engine's exact inverse (analysis/inverse.ts), itself checked against published
     // equations in the physics and sensor tests.

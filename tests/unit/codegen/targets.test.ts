@@ -52,7 +52,7 @@ describe('generated C on cross compilers', () => {
   it('12-bit junction channel -40..125 degC vs float baselines (figures printed)', async () => {
     const op = await loadOperatingPoint();
     if (!op) {
-      console.log('codegen targets: junction channel skipped, server/src/physics/junction.ts not present');
+      console.log('codegen targets: junction channel skipped, server/src/sensors/junction/physics.ts not present');
       return;
     }
     const r = compareOnTargets(junctionChannel(op));

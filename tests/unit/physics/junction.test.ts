@@ -5,7 +5,7 @@ import {
   junctionAtTemperature,
   operatingPoint,
   saturationCurrent,
-} from '../../../server/src/physics/junction';
+} from '../../../server/src/sensors/junction/physics';
 import type { Bias, JunctionParams } from '../../../server/src/physics/types';
 import { INVENTED_DIODE, INVENTED_NPN } from './fixtures';
 

@@ -4,7 +4,7 @@ import {
   operatingPoint,
   solveResistorBiasAmps,
   solveResistorBiasNewton,
-} from '../../../server/src/physics/junction';
+} from '../../../server/src/sensors/junction/physics';
 import type { JunctionParams } from '../../../server/src/physics/types';
 import { INVENTED_DIODE, INVENTED_NPN } from './fixtures';
 

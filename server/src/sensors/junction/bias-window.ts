@@ -1,6 +1,6 @@
 // bias-current-low / bias-current-high: the bias current over the range against the sound window.
 // Default window 1 µA .. 1 mA (common practice for small-signal junctions; see the catalogue).
-import { operatingPoint } from '../../physics/junction';
+import { operatingPoint } from './physics';
 import { nearestE24 } from '../../analysis/eseries';
 import type { ChannelDef } from '../../model/types';
 import type { CheckContext } from '../../checks/context';

@@ -1,7 +1,7 @@
 // Hover of a junction definition: its SPICE parameters, a reference operating point, rated range,
 // thermal resistance and the channels using it.
 import type { Analysis } from '../../analysis/result';
-import { operatingPoint } from '../../physics/junction';
+import { operatingPoint } from './physics';
 import { ZERO_CELSIUS_K } from '../../physics/constants';
 import { formatSI, trimNumber } from '../../model/read-value';
 import * as f from '../../analysis/figures';

@@ -1,6 +1,6 @@
 // The junction channel's forward model: the exact operating point of the SPICE junction under its
-// bias (physics/junction.ts), or for the two-current (delta-VBE) method the difference of two.
-import { operatingPoint, operatingPointAt, junctionAtTemperature, sourceOhmsAt } from '../../physics/junction';
+// bias (sensors/junction/physics.ts), or for the two-current (delta-VBE) method the difference of two.
+import { operatingPoint, operatingPointAt, junctionAtTemperature, sourceOhmsAt } from './physics';
 import type { Bias } from '../../physics/types';
 import type { BiasDef, ChannelDef } from '../../model/types';
 import { nominalBias, physicsBias, type SensedPoint } from '../../analysis/sense';

@@ -1,6 +1,6 @@
 // supply-too-low: with the resistor shorted, can the supply push the window's minimum current
 // through the junction at the cold end (where the junction voltage is highest)?
-import { operatingPoint } from '../../physics/junction';
+import { operatingPoint } from './physics';
 import type { CheckContext } from '../../checks/context';
 import { fmtA, fmtC, fmtV } from '../../checks/format';
 import type { JunctionDef } from './types';

@@ -5,9 +5,9 @@
 // (ISE/NE), breakdown and self-heating are ignored; RS is lumped and temperature-independent.
 // For pnp devices all quantities are magnitudes (the caller mirrors signs).
 
-import { thermalVoltage } from './constants';
-import { lambertW0OfExp } from './lambertw';
-import type { Bias, JunctionParams, OperatingPoint } from './types';
+import { thermalVoltage } from '../../physics/constants';
+import { lambertW0OfExp } from '../../physics/lambertw';
+import type { Bias, JunctionParams, OperatingPoint } from '../../physics/types';
 
 /** Per-temperature constants of one junction: compute once, reuse for every bias. */
 export interface JunctionAtTemperature {
