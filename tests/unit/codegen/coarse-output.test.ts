@@ -1,32 +1,16 @@
 // A coarse output unit must not blow up the generated code: table points and constant terms carry
 // internal fraction bits and the result is rounded to the output unit once, at the end.
-import * as fs from 'node:fs';
-import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyse } from '../../../server/src/engine';
-import { DiskHost } from '../../../server/src/cli/io';
-import { conversionInput, generatableResults } from '../../../server/src/codegen/channel-input';
 import { generateC } from '../../../server/src/codegen';
 import type { ConversionInput } from '../../../server/src/codegen/types';
-
-function sampleInputs(): ConversionInput[] {
-  const dir = path.resolve(__dirname, '../../../samples');
-  const out: ConversionInput[] = [];
-  for (const spec of fs.readdirSync(dir).filter((f) => f.endsWith('.tsense')).sort()) {
-    const file = path.join(dir, spec);
-    const host = new DiskHost();
-    const a = analyse({ path: file, text: host.read(file) ?? '', root: dir, host });
-    for (const r of generatableResults(a.channels, a.diagnostics)) if (r.channel.file === file) out.push({ ...conversionInput(r, file), channelName: `${spec}.${r.channel.name}` });
-  }
-  return out;
-}
+import { sampleChannelInputs } from '../../fixtures/codegen/samples';
 
 /** Bytes of the final rounding step in the generator's estimate (generate.ts ROUND_BYTES). */
 const ROUNDING_BYTES = 24;
 
 describe('coarse output units', () => {
   it('0.1 degC with a 0.08 degC target costs at most the final rounding step more than 0.01 degC with 0.02 degC, on every sample channel', () => {
-    const inputs = sampleInputs().filter((c) => c.method !== 'line');
+    const inputs = sampleChannelInputs().filter((c) => c.method !== 'line');
     expect(inputs.length).toBeGreaterThan(8);
     for (const c of inputs) {
       // Compared on bytes alone (optimise = size); balanced may trade a few bytes for cycles.

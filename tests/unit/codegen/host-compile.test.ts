@@ -3,15 +3,11 @@
 // published equations (IEC 60751 Callendar-Van Dusen; SPICE diode/BJT temperature laws as coded
 // in ngspice), not from the generator, so the error figure is an outside check.
 
-import * as fs from 'node:fs';
-import * as path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { analyse } from '../../../server/src/engine';
-import { DiskHost } from '../../../server/src/cli/io';
-import { conversionInput, generatableResults } from '../../../server/src/codegen/channel-input';
 import { generateC } from '../../../server/src/codegen';
 import { planChannels } from '../../../server/src/codegen/generate';
 import type { ConversionInput } from '../../../server/src/codegen/types';
+import { sampleChannelInputs } from '../../fixtures/codegen/samples';
 import { junctionChannel, loadOperatingPoint, rtdChannel, syntheticDiodeChannel } from '../../fixtures/codegen/channels';
 import { expectedOutput } from '../../fixtures/codegen/measure';
 import { WorkDir, hasTool, hostBuildRun, run } from '../../fixtures/codegen/toolchain';
@@ -20,21 +16,6 @@ const haveGcc = hasTool('gcc');
 if (!haveGcc) console.log('host-compile: skipped, gcc not found (run scripts/install-toolchains.sh)');
 
 interface Row { status: number; value: number; f?: number }
-
-/** The analysed channels of every sample spec as generator inputs (names made unique across specs). */
-function sampleChannels(): ConversionInput[] {
-  const dir = path.resolve(__dirname, '../../../samples');
-  const out: ConversionInput[] = [];
-  for (const spec of fs.readdirSync(dir).filter((f) => f.endsWith('.tsense')).sort()) {
-    const file = path.join(dir, spec);
-    const host = new DiskHost();
-    const a = analyse({ path: file, text: host.read(file) ?? '', root: dir, host });
-    for (const r of generatableResults(a.channels, a.diagnostics)) {
-      if (r.channel.file === file) out.push({ ...conversionInput(r, file), channelName: `${spec.replace(/\.tsense$/, '')}.${r.channel.name}` });
-    }
-  }
-  return out;
-}
 
 describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => {
   const channels: ConversionInput[] = [
@@ -57,10 +38,10 @@ describe.skipIf(!haveGcc)('generated C on the host compiler, every code', () => 
     // Every channel of samples/*.tsense the engine analyses, with the options its spec gives; the
     // model is the engine's exact inverse (analysis/inverse.ts), itself checked against published
     // equations in the physics and sensor tests.
-    channels.push(...sampleChannels());
+    channels.push(...sampleChannelInputs());
     // The same channels with a coarse output unit (0.1 degC, 0.08 degC target): the kernel then
     // carries internal fraction bits and rounds at the end, which must match the simulation too.
-    channels.push(...sampleChannels().map((c) => ({ ...c, channelName: `${c.channelName}.coarse`, outputScale: 10, errorTarget: 0.08 })));
+    channels.push(...sampleChannelInputs().map((c) => ({ ...c, channelName: `${c.channelName}.coarse`, outputScale: 10, errorTarget: 0.08 })));
     const src = generateC(channels, { fileStem: 'conv' });
     const hdr = generateC(channels, { fileStem: 'conv', header: true });
     const { plans } = planChannels(channels);
