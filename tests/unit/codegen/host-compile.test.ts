@@ -1,7 +1,8 @@
 // Compiles the generated C with the host gcc (C99, -Wall -Wextra -Werror -pedantic), runs it over
 // every ADC code and compares each result with the channel's model. The models come from
-// published equations (IEC 60751 Callendar-Van Dusen; SPICE diode/BJT temperature laws as coded
-// in ngspice), not from the generator, so the error figure is an outside check.
+// published equations (IEC 60751 Callendar-Van Dusen; SPICE diode/BJT temperature laws as published
+// in Massobrio & Antognetti, Semiconductor Device Modeling with SPICE, 2nd ed. 1993, from memory),
+// not from the generator, so the error figure is an outside check.
 
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateC } from '../../../server/src/codegen';

@@ -57,8 +57,8 @@ describe('generated C on cross compilers', () => {
     }
     const r = compareOnTargets(junctionChannel(op));
     console.log(formatComparison(r, false));
-    // Outside check: the model is the physics module's SPICE Gummel-Poon temperature law (ngspice
-    // bjttemp.c); our integer result must stay within the 0.02 degC target over every in-range code.
+    // Outside check: the model is the physics module's SPICE Gummel-Poon temperature law (Massobrio &
+    // Antognetti 1993, from memory); our integer result must stay within the 0.02 degC target over every in-range code.
     expect(r.ours.maxErrorC).toBeLessThanOrEqual(0.02);
     // Baseline (b) solves the same published equation in float; it must agree to well under our error.
     expect(r.newton.maxErrorC).toBeLessThan(0.01);

@@ -52,7 +52,8 @@ describe('JSON report', () => {
 
   it('can be checked independently from its own inputs', () => {
     // Re-derive each sweep voltage from the reported inputs with the SPICE Gummel-Poon
-    // saturation-current law (ngspice manual, BJT temperature dependence) and the diode
+    // saturation-current law (Massobrio & Antognetti, Semiconductor Device Modeling with SPICE,
+    // 2nd ed. 1993, BJT temperature dependence; from memory) and the diode
     // equation of a diode-connected transistor, I = IS(T) (1 + 1/BF) (exp(V/(N Vt)) - 1),
     // Vt = kT/q with the SI 2019 exact constants. Written here independently of the engine.
     const k = 1.380649e-23;

@@ -14,16 +14,17 @@ const ROOM = ZERO_CELSIUS_K + 25;
 
 describe('saturation current IS(T)', () => {
   it('equals IS at TNOM', () => {
-    // SPICE temperature laws (ngspice bjttemp.c / diotemp.c): both factors are 1 at T = TNOM.
+    // SPICE temperature laws (Massobrio & Antognetti, Semiconductor Device Modeling with SPICE, 2nd
+    // ed. 1993; from memory): both factors are 1 at T = TNOM.
     expect(saturationCurrent(INVENTED_NPN, INVENTED_NPN.TNOM)).toBe(INVENTED_NPN.IS);
     expect(saturationCurrent(INVENTED_DIODE, INVENTED_DIODE.TNOM)).toBe(INVENTED_DIODE.IS);
   });
 
   it('follows the SPICE BJT and diode laws', () => {
-    // ngspice src/spicelib/devices/bjt/bjttemp.c: IS(T) = IS exp((T/TNOM-1) EG/Vt) (T/TNOM)^XTI;
+    // SPICE BJT law (same text): IS(T) = IS exp((T/TNOM-1) EG/Vt) (T/TNOM)^XTI;
     // evaluated at 50 digits with mpmath 1.3.0 for T = 350 K, TNOM = 300.15 K, EG = 1.11, XTI = 3.
     expect(rel(saturationCurrent(INVENTED_NPN, 350) / INVENTED_NPN.IS, 715.73608742919079522)).toBeLessThan(1e-13);
-    // ngspice src/spicelib/devices/dio/diotemp.c: exponent and XTI divided by N; N = 1.8, same T.
+    // SPICE diode law (same text): exponent and XTI divided by N; N = 1.8, same T.
     expect(rel(saturationCurrent(INVENTED_DIODE, 350) / INVENTED_DIODE.IS, 38.545514026642594645)).toBeLessThan(1e-13);
   });
 
@@ -36,12 +37,12 @@ describe('saturation current IS(T)', () => {
     const doubling = Math.LN2 / growthPerK;
     expect(doubling).toBeGreaterThan(4);
     expect(doubling).toBeLessThan(6);
-    // Closed-form derivative of the ngspice law (see junction.ts): (EG/Vt + XTI)/T.
+    // Closed-form derivative of the SPICE law (see sensors/junction/physics.ts): (EG/Vt + XTI)/T.
     expect(rel(growthPerK, (1.11 / thermalVoltage(T) + 3) / T)).toBeLessThan(1e-5);
   });
 
   it('scales BF as (T/TNOM)^XTB', () => {
-    // ngspice bjttemp.c (TLEV = 0): BF(T) = BF exp(XTB ln(T/TNOM)).
+    // SPICE BJT XTB law (same text): BF(T) = BF exp(XTB ln(T/TNOM)).
     expect(rel(forwardBeta(INVENTED_NPN, 400), 100 * Math.pow(400 / 300.15, 1.5))).toBeLessThan(1e-15);
     expect(forwardBeta(INVENTED_NPN, INVENTED_NPN.TNOM)).toBe(100);
   });
@@ -62,7 +63,7 @@ describe('constant-current bias', () => {
   });
 
   it('follows V = N Vt ln(I/Isx + 1) + I RS', () => {
-    // Shockley diode law as used by the SPICE diode model (ngspice dioload.c), inverted; RS in series.
+    // Shockley diode law as used by the SPICE diode model (same text), inverted; RS in series.
     const p: JunctionParams = { ...INVENTED_DIODE, RS: 20 };
     const T = 320;
     const op = operatingPoint(p, { kind: 'current', amps: 1e-4 }, T);

@@ -91,9 +91,11 @@ function checkParams(p: JunctionParams, kelvin: number): void {
 
 /**
  * ln(IS(T)/IS).
- * BJT (SPICE Gummel-Poon, ngspice src/spicelib/devices/bjt/bjttemp.c, BJTtemp):
+ * Published SPICE temperature laws (G. Massobrio, P. Antognetti, Semiconductor Device Modeling
+ * with SPICE, 2nd ed., McGraw-Hill 1993, the BJT's and the diode's temperature dependence; cited
+ * from memory). BJT (Gummel-Poon):
  *   IS(T) = IS * exp((T/TNOM - 1) * EG / Vt(T)) * (T/TNOM)^XTI
- * Diode (SPICE diode, ngspice src/spicelib/devices/dio/diotemp.c, DIOtempUpdate):
+ * Diode (SPICE diode model, the same text):
  *   IS(T) = IS * exp((T/TNOM - 1) * EG / (N Vt(T))) * (T/TNOM)^(XTI/N)
  * With m = 1 (BJT) or N (diode), and (T/TNOM - 1)/Vt(T) = (q/k)(1/TNOM - 1/T):
  *   d ln IS(T)/dT = (EG/Vt(T) + XTI) / (m T).
@@ -128,7 +130,7 @@ function checkSatAmps(p: JunctionParams, kelvin: number, satAmps: number): void 
 }
 
 /**
- * BF(T) = BF * (T/TNOM)^XTB (ngspice bjttemp.c, TLEV = 0), before its range check.
+ * BF(T) = BF * (T/TNOM)^XTB (the SPICE BJT's XTB law, same text as satLog), before its range check.
  * XTB = 0 (the SPICE default) skips the power: (T/TNOM)^0 is exactly 1 (ECMA-262 Math.pow), so
  * the result is BF either way.
  */
@@ -159,7 +161,7 @@ export function saturationCurrent(p: JunctionParams, kelvin: number): number {
   return is;
 }
 
-/** BF(T) = BF * (T/TNOM)^XTB (ngspice bjttemp.c, TLEV = 0). Infinity for a plain diode. */
+/** BF(T) = BF * (T/TNOM)^XTB (SPICE BJT XTB law, see satLog). Infinity for a plain diode. */
 export function forwardBeta(p: JunctionParams, kelvin: number): number {
   checkParams(p, kelvin);
   return p.kind === 'diode' ? Infinity : betaFAt(p, kelvin);
