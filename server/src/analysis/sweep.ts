@@ -2,7 +2,7 @@
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { sense } from './sense';
 import type { ChannelDef } from '../model/types';
-import type { ChannelResult, ChannelSummary, SweepPoint } from './types';
+import type { ChannelResult, ChannelSummary, SweepColumns, SweepPoint } from './types';
 import { nonlinearity } from './nonlinearity';
 
 /** Temperatures of the sweep, K: from low to high by step, the high end always included. */
@@ -58,7 +58,7 @@ function pointOf(c: ChannelDef, kelvin: number, volts: number, amps: number, slo
  * the checks need only the summary. Points are made when something asks for them (hover, plots,
  * reports) and then kept.
  */
-export class SweepTable {
+export class SweepTable implements SweepColumns {
   readonly kelvin: number[];
   // Typed arrays: their numbers live outside the JS heap, so the collector never copies them. A
   // cold 200-channel analysis keeps 1.6 MB of them; as plain arrays each young-generation
@@ -114,7 +114,7 @@ export class SweepTable {
 const SWEEP = { enumerable: true, configurable: true, get(this: ChannelResult): SweepPoint[] { return this.table.points(); } };
 
 /** A channel's result over a sweep table; `sweep` (the points) is made on first read. */
-export function channelResult(channel: ChannelDef, table: SweepTable, summary: ChannelSummary): ChannelResult {
+export function channelResult(channel: ChannelDef, table: SweepColumns, summary: ChannelSummary): ChannelResult {
   const result = { channel, table, summary } as ChannelResult;
   Object.defineProperty(result, 'sweep', SWEEP);
   return result;

@@ -50,12 +50,26 @@ export interface ChannelSummary {
   at: { voltsMin: SweepPoint; voltsMax: SweepPoint; ampsMin: SweepPoint; ampsMax: SweepPoint; selfHeatingMax: SweepPoint };
 }
 
+/** The sweep as columns (analysis/sweep.ts `SweepTable`); declared here so the types import no module that computes. */
+export interface SweepColumns {
+  readonly channel: ChannelDef;
+  readonly kelvin: number[];
+  readonly volts: Float64Array;
+  readonly amps: Float64Array;
+  readonly slope: Float64Array;
+  readonly powerW: Float64Array;
+  readonly sourceOhms: Float64Array;
+  readonly length: number;
+  point(i: number): SweepPoint;
+  points(): SweepPoint[];
+}
+
 export interface ChannelResult {
   channel: ChannelDef;
   /** The sweep's points, made from `table` on first read (analysis/sweep.ts). */
   sweep: SweepPoint[];
   /** The sweep as columns. */
-  table: import('./sweep').SweepTable;
+  table: SweepColumns;
   summary: ChannelSummary;
   /** Full error budget with Monte Carlo (budget/budget.ts), computed by analyse() on first read; absent when it could not be computed. */
   budget?: import('./budget-types').BudgetResult;
