@@ -16,6 +16,16 @@ const LAYERS = [
   ['front ends', ['server/src/lsp/', 'server/src/cli/', 'server/src/disk\\.ts$']],
 ];
 
+// The sensor-kind contract: `sensors/registry.ts` (the kinds' dispatch table, which imports no kind)
+// and `sensors/kind.ts` (the interface every kind implements) sit in the model layer, so the generic
+// layers call the kinds through them without importing upward. The interface names types of the
+// layers that call it (the check context, the analysis result): those imports must be type-only
+// (erased when compiled), the rule `kind-contract-types-only` below holds it to that, and the cycles
+// they close are not counted (nothing runs along them).
+const CONTRACT = ['server/src/sensors/registry\\.ts$', 'server/src/sensors/kind\\.ts$'];
+const KIND_INTERFACE = '^server/src/sensors/kind\\.ts$';
+const layerOf = (name) => (name === 'model' ? CONTRACT : []);
+
 const escape = (p) => '^' + p;
 const forbidden = [];
 LAYERS.forEach(([name, paths], i) => {
@@ -25,9 +35,17 @@ LAYERS.forEach(([name, paths], i) => {
     name: `upward-from-${name.replace(/[^a-z]+/g, '-')}`,
     severity: 'error',
     comment: `${name} may import only its own layer and the layers below it (DEVELOPERS.md, "Layers").`,
-    from: { path: paths.map(escape) },
-    to: { path: above.map(escape) },
+    from: { path: [...paths, ...layerOf(name)].map(escape), pathNot: [KIND_INTERFACE] },
+    to: { path: above.map(escape), pathNot: LAYERS.slice(0, i + 1).flatMap(([n]) => layerOf(n)).map(escape) },
   });
+});
+
+forbidden.push({
+  name: 'kind-contract-types-only',
+  severity: 'error',
+  comment: 'The sensor-kind interface (sensors/kind.ts) may name types of the layers above the model, but import nothing from them that runs.',
+  from: { path: KIND_INTERFACE },
+  to: { path: LAYERS.slice(2).flatMap(([, ps]) => ps).map(escape), dependencyTypesNot: ['type-only'] },
 });
 
 forbidden.push({
@@ -43,7 +61,7 @@ forbidden.push({
   severity: 'error',
   comment: 'Files that import each other in a circle.',
   from: { path: '^server/src/' },
-  to: { circular: true },
+  to: { circular: true, viaOnly: { pathNot: KIND_INTERFACE } },
 });
 
 forbidden.push({

@@ -11,7 +11,8 @@ import { channelKey } from './analysis/cache';
 import type { ChannelResult } from './analysis/types';
 import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
-import { resolveModel, type Resolution } from './model/resolve';
+import { resolveModel } from './model/resolve';
+import { type Resolution } from './model/block-reader';
 import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './diagnostics/shown';
 
@@ -270,5 +271,5 @@ export { CAUTION } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';
 export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';
 export { sarifLog } from './report/sarif';
-export { describeFaults, sensorFaults } from './sensors/faults';
+export { describeFaults, sensorFaults } from './analysis/sensor-faults';
 export { type Span } from './syntax/ast';

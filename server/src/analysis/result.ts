@@ -2,7 +2,7 @@
 // every diagnostic. Made by the engine's façade (engine.ts), read by the language features and products.
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { LoadedFile } from '../model/workspace';
-import type { Resolution } from '../model/resolve';
+import type { Resolution } from '../model/block-reader';
 import type { ChannelResult } from './types';
 
 export interface Analysis {

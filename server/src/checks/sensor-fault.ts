@@ -1,6 +1,6 @@
 // fault-in-range: an open or shorted sensor gives a code inside the channel's usable range, so the
 // firmware cannot tell the fault from a temperature (sensors/faults.ts computes the codes).
-import { sensorFaults } from '../sensors/faults';
+import { sensorFaults } from '../analysis/sensor-faults';
 import type { CheckContext } from './context';
 import { fieldSpan } from './context';
 

@@ -14,7 +14,7 @@ import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { ChannelDef } from '../model/types';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { sensorFaults, usableCodes, type SensorFault } from '../sensors/faults';
+import { sensorFaults, usableCodes, type SensorFault } from '../analysis/sensor-faults';
 import { CodegenInputError, type ConversionInput } from './types';
 
 /** Defaults when the channel gives no code options: hundredths of a degC, 0.02 degC, auto. */

@@ -1,6 +1,6 @@
 // Hover: computed figures for a channel, its bias, a junction or an ADC; a number's value in
 // base units; a field's documentation and default. Offsets in, markdown and a span out.
-import { describeFaults, sensorFaults } from '../sensors/faults';
+import { describeFaults, sensorFaults } from '../analysis/sensor-faults';
 import type { Analysis } from '../analysis/result';
 import type { ChannelResult, SweepPoint } from '../analysis/types';
 import type { AdcDef } from '../model/types';

@@ -3,7 +3,7 @@
 // sensor's kind takes (sensors/kind.ts). resolve.ts builds the BlockReader and calls these; they
 // report with precise ranges and never throw.
 import type { QuantityTerm, Term } from '../syntax/ast';
-import type { BlockReader, Resolution } from './resolve';
+import type { BlockReader, Resolution } from './block-reader';
 import type { AdcDef, BiasDef, SensorDef, WiringDef } from './types';
 import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
 import { kindWithArticle, PART_DOMAINS } from './schema';

@@ -1,34 +1,21 @@
 // Resolves parsed blocks into typed definitions (base SI units, defaults applied), reporting
 // unknown blocks and fields, duplicates, missing fields, wrong units and out-of-domain values.
-import type { BlockNode, FieldNode, Span, Term, TopItem } from '../syntax/ast';
+import type { Term, TopItem } from '../syntax/ast';
 import { pieceOrigin } from '../syntax/parse';
 import { contentToken, movedCopy, sameContent } from './moved';
 import { shiftOffsets } from '../syntax/shift';
 import { DiagnosticSink } from '../diagnostics/diagnostic';
-import { blockKinds, blockSpec, fieldSpec, kindWithArticle, PART_DOMAINS, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
+import { blockKinds, blockSpec, kindWithArticle, PART_DOMAINS } from './schema';
 import type { LoadedFile } from './workspace';
-import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase, SensorDef, Toleranced } from './types';
-import { noExtra, readPart, trimNumber, readQuantityField, readQuantityValue, readRange, readTolerance, spanOf, type ReadContext } from './read-value';
+import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase } from './types';
+import { noExtra, readPart, trimNumber, readTolerance, spanOf } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
+import { BlockReader, type BlockRef, type Resolution } from './block-reader';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
 import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
 import { shown } from '../diagnostics/shown';
-
-export interface BlockRef {
-  kind: BlockKind;
-  file: string;
-  node: BlockNode;
-}
-
-export interface Resolution {
-  blocks: Map<string, BlockRef>;
-  /** Sensor definitions of every kind, by name (each read by its kind, sensors/<kind>/). */
-  sensors: Map<string, SensorDef>;
-  adcs: Map<string, AdcDef>;
-  channels: ChannelDef[];
-}
 
 const ZERO_C = 273.15;
 
@@ -161,92 +148,6 @@ function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink,
   sameContent(current, hit);
   kept.get(pieceOrigin(ref.node).base)!.def = current;
   return current;
-}
-
-/** Fields of a block by canonical name; reports unknown and repeated fields. */
-function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<string, { spec: FieldSpec; node: FieldNode }> {
-  const out = new Map<string, { spec: FieldSpec; node: FieldNode }>();
-  for (const f of ref.node.fields) {
-    if (f.kind !== 'field') continue;
-    const fs = fieldSpec(spec, f.key.text);
-    if (!fs) {
-      const near = closest(f.key.text, spec.fields.map((x) => x.name));
-      sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${shown(f.key.text)}'${near ? ` (did you mean '${near}'?)` : `; its fields are ${spec.fields.map((x) => x.name).join(', ')}`}`);
-      continue;
-    }
-    if (out.has(fs.name)) {
-      sink.report('duplicate-field', ref.file, f.key.span, `'${fs.name}' is already given in this ${spec.kind}; this one is ignored`);
-      continue;
-    }
-    out.set(fs.name, { spec: fs, node: f });
-  }
-  return out;
-}
-
-export class BlockReader {
-  readonly fields: Map<string, { spec: FieldSpec; node: FieldNode }>;
-  readonly fieldSpans: Record<string, Span> = {};
-  ok = true;
-  constructor(readonly ref: BlockRef, readonly spec: BlockSpec, readonly sink: DiagnosticSink) {
-    this.fields = fieldsOf(ref, spec, sink);
-    for (const [name, f] of this.fields) this.fieldSpans[name] = spanOf(f.node.value);
-  }
-  ctx(name: string): ReadContext {
-    return { file: this.ref.file, sink: this.sink, field: name };
-  }
-  terms(name: string): Term[] | undefined {
-    return this.fields.get(name)?.node.value;
-  }
-  missing(name: string): void {
-    const fs = fieldSpec(this.spec, name)!;
-    this.sink.report('missing-field', this.ref.file, this.ref.node.name.span, `${this.spec.kind} '${shown(this.ref.node.name.text)}' needs '${name}', e.g. \`${fs.example}\``);
-    this.ok = false;
-  }
-  /** A quantity field in base units, its default when absent, or null (and not ok) when bad. */
-  quantity(name: string, fallback?: number): Toleranced | null {
-    const fs = fieldSpec(this.spec, name)!;
-    const terms = this.terms(name);
-    if (!terms) {
-      if (fallback === undefined) {
-        this.missing(name);
-        return null;
-      }
-      return { value: fallback, tolerance: 0, span: this.ref.node.name.span };
-    }
-    if (fs.form.form !== 'quantity') throw new Error(`field ${name} is not a quantity`);
-    const q = readQuantityField(terms, fs.form, this.ctx(name));
-    if (!q) this.ok = false;
-    return q;
-  }
-  choice(name: string, fallback: string): string {
-    const fs = fieldSpec(this.spec, name)!;
-    const terms = this.terms(name);
-    if (!terms || fs.form.form !== 'choice') return fallback;
-    const t = terms[0]!;
-    const options = fs.form.options;
-    if (t.kind !== 'word' || !options.includes(t.text)) {
-      this.sink.report('bad-value', this.ref.file, spanOf(terms), `${name} is one of ${options.join(', ')}`);
-      this.ok = false;
-      return fallback;
-    }
-    if (!noExtra(terms, 1, this.ctx(name))) this.ok = false;
-    return t.text;
-  }
-  range(name: string, fallback?: [number, number]): { low: number; high: number } | null {
-    const fs = fieldSpec(this.spec, name)!;
-    const terms = this.terms(name);
-    if (!terms) {
-      if (!fallback) {
-        this.missing(name);
-        return null;
-      }
-      return { low: fallback[0], high: fallback[1] };
-    }
-    if (fs.form.form !== 'range') throw new Error(`field ${name} is not a range`);
-    const r = readRange(terms, fs.form.dimension, this.ctx(name));
-    if (!r) this.ok = false;
-    return r;
-  }
 }
 
 function base(ref: BlockRef, r: BlockReader): DefBase {

@@ -1,7 +1,7 @@
 // The machine-readable report: per file its diagnostics (0-based line/character ranges) and, per
 // channel, the sweep, a summary and every resolved input in base SI units, so that a report can be
 // checked independently of this tool.
-import { sensorFaults } from '../sensors/faults';
+import { sensorFaults } from '../analysis/sensor-faults';
 import type { Analysis } from '../analysis/result';
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { ChannelResult } from '../analysis/types';

@@ -19,10 +19,10 @@ import type { ChannelResult } from '../analysis/types';
 import type { SensedPoint } from '../analysis/sense';
 import type { CheckContext } from '../checks/context';
 import type { FitResult } from '../calibration/fit';
-import type { BlockReader } from '../model/resolve';
+import type { BlockReader } from '../model/block-reader';
 import type { BlockSpec } from '../model/schema';
 import type { BiasDef, ChannelDef, DefBase, SensorDef } from '../model/types';
-import type { FaultVolts } from './faults';
+import type { FaultVolts } from '../analysis/sensor-faults';
 
 /** A board-to-board spread of the element, as an error-budget contributor (relative half-width). */
 export interface ElementContributor {

@@ -10,7 +10,7 @@ import { planChannels } from '../../../server/src/codegen/generate';
 import type { ConversionInput } from '../../../server/src/codegen/types';
 import { channelHover } from '../../../server/src/features/hover';
 import { channelReport } from '../../../server/src/cli/commands/report';
-import { sensorFaults } from '../../../server/src/sensors/faults';
+import { sensorFaults } from '../../../server/src/analysis/sensor-faults';
 import type { Analysis } from '../../../server/src/engine';
 import { analyseFile, FIXTURES } from '../helpers/fixtures';
 import { syntheticDiodeChannel } from '../../fixtures/codegen/channels';

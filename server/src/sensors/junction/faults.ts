@@ -1,7 +1,7 @@
 // Faults of a junction channel (diode or transistor): what the ADC pin sees with the junction (or
 // one of its leads) open, or shorted. Pure function of the resolved channel.
 import type { ChannelDef } from '../../model/types';
-import type { FaultVolts } from '../faults';
+import type { FaultVolts } from '../../analysis/sensor-faults';
 
 const COMPLIANCE = 'a current source with no load rises to its compliance voltage, taken as at or above the ADC reference (full scale)';
 

@@ -1,6 +1,6 @@
 // Reads a junction block: SPICE parameters (defaults as SPICE's where it has one), rated range and
 // thermal resistance; spreads given on IS, N and BF feed the error budget.
-import type { BlockReader } from '../../model/resolve';
+import type { BlockReader } from '../../model/block-reader';
 import type { DefBase } from '../../model/types';
 import type { JunctionDef } from './types';
 

@@ -1,5 +1,5 @@
 // What the resistive kinds (thermistor, rtd) read alike: the dissipation constant.
-import type { BlockReader } from '../../model/resolve';
+import type { BlockReader } from '../../model/block-reader';
 import { noExtra, spanOf, formatSI } from '../../model/read-value';
 import { readUnit } from '../../model/units';
 

@@ -4,7 +4,7 @@
 import { resistiveChain } from '../resistive/model';
 import type { ChannelDef } from '../../model/types';
 import { chainFaultVolts } from '../../physics/resistive-chain';
-import type { FaultVolts } from '../faults';
+import type { FaultVolts } from '../../analysis/sensor-faults';
 
 export function rtdFaultVolts(c: ChannelDef): FaultVolts[] {
   const v = chainFaultVolts(resistiveChain(c));

@@ -1,6 +1,6 @@
 // Reads an rtd block: R0, the Callendar-Van Dusen coefficients (IEC 60751 by default), the class and
 // element build, rated range and dissipation; the curve must rise and invert over the rated range.
-import type { BlockReader } from '../../model/resolve';
+import type { BlockReader } from '../../model/block-reader';
 import { trimNumber } from '../../model/read-value';
 import { CVD_HIGH_C, CVD_LOW_C, IEC60751, cvdCelsiusAt, cvdResistance, type RtdClass } from '../../physics/callendar-van-dusen';
 import { shown } from '../../diagnostics/shown';

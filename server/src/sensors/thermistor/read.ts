@@ -1,6 +1,6 @@
 // Reads a thermistor block: its curve given one way (beta and R25, Steinhart-Hart coefficients, or
 // three measured points fitted exactly), the resistance tolerance, rated range and dissipation.
-import type { BlockReader } from '../../model/resolve';
+import type { BlockReader } from '../../model/block-reader';
 import type { Toleranced } from '../../model/types';
 import { checkDomain, noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber } from '../../model/read-value';
 import { fieldSpec, PART_DOMAINS, type FieldForm } from '../../model/schema';

@@ -2,9 +2,9 @@
 // whether that code can be told from a code of the designed range. The voltages come from each
 // kind's own module (sensors/<kind>/faults.ts, the kind's `faults`); this file turns voltages into
 // codes.
-import { adcCode } from '../analysis/sweep';
+import { adcCode } from './sweep';
 import type { ChannelDef } from '../model/types';
-import { kindOf } from './registry';
+import { kindOf } from '../sensors/registry';
 
 /** One fault as a kind module describes it. */
 export interface FaultVolts {
