@@ -13,6 +13,7 @@ import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel } from './model/resolve';
 import { type Resolution } from './model/block-reader';
+import { attachBenchData } from './model/bench-data';
 import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './diagnostics/shown';
 
@@ -61,6 +62,10 @@ export function analyse(input: AnalyseInput): Analysis {
   own?.begin();
   const files = loadWorkspace(entry, input.text, root, input.host ?? NO_FILES, sink, own?.pieces);
   const model = resolveModel(files, sink, own?.definitions);
+  // Bench data files are read here, through the same host as used files, on every analysis (a file
+  // may change while the spec does not); an unchanged file gives the very same channel object.
+  const host = input.host ?? NO_FILES;
+  model.channels = model.channels.map((c) => attachBenchData(c, root, host, sink));
   const channels: ChannelResult[] = [];
   for (const c of model.channels) {
     try {
@@ -239,7 +244,7 @@ export { describeSetting, SHARES_EXPLAINED } from './budget/describe';
 export { budgetJson, budgetSummaryJson } from './budget/json';
 export { type PairedDifference } from './budget/paired';
 export { type BudgetResult } from './analysis/budget-types';
-export { fitMeasured } from './calibration/fit';
+export { fitMeasured, OUTLIER_RULE, residualRows } from './calibration/fit';
 export { escapeControls, shown } from './diagnostics/shown';
 export { headerPathFor, generatableResults } from './codegen/channel-input';
 export { symbolClash } from './codegen/clash';

@@ -3,7 +3,9 @@
 // derived from a channel by this key; the code generator hashes it.
 import type { ChannelDef } from '../model/types';
 
-const POSITIONAL = new Set(['span', 'nameSpan', 'fieldSpans', 'file', 'given', 'closeSpan']);
+// `benchInfo` says where bench data was read (an absolute path) and how many rows were left out; the
+// points themselves are in `measured`, and the path as written in `benchData`.
+const POSITIONAL = new Set(['span', 'nameSpan', 'fieldSpans', 'file', 'given', 'closeSpan', 'benchInfo']);
 
 /** Computed once per ChannelDef object (a memo attached to the object: it goes with it). */
 const keys = new WeakMap<ChannelDef, string>();

@@ -7,7 +7,7 @@ import { fmtC, trimNumber } from './format';
 import { fieldSpan } from './context';
 import { sense } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { fitMeasured } from '../calibration/fit';
+import { fitMeasured, pointSource } from '../calibration/fit';
 import { kindOf } from '../sensors/registry';
 
 export function checkCalibrationFit({ channel: c, sink }: CheckContext): void {
@@ -15,7 +15,7 @@ export function checkCalibrationFit({ channel: c, sink }: CheckContext): void {
   const s = c.sensor;
   const kind = kindOf(s);
   if (!kind.fit) {
-    sink.report('measured-unused', c.file, fieldSpan(c, 'measured'),
+    sink.report('measured-unused', c.file, c.fieldSpans['measured'] ?? c.benchData?.span ?? fieldSpan(c, 'measured'),
       `the measured points are not used on a ${s.kind} channel: the model is not fitted to them, and neither the error budget nor generated code reflects them; state the part's own values (${kind.ownValues ?? 'from its datasheet'}) instead`);
     return;
   }
@@ -24,7 +24,7 @@ export function checkCalibrationFit({ channel: c, sink }: CheckContext): void {
     if (m.kelvin < s.ratedLowK || m.kelvin > s.ratedHighK) {
       unusable = true;
       sink.report('out-of-domain', c.file, m.span,
-        `measured: the point at ${fmtC(m.kelvin - ZERO_CELSIUS_K)} lies outside the rated range of '${s.name}' (${fmtC(s.ratedLowK - ZERO_CELSIUS_K)} .. ${fmtC(s.ratedHighK - ZERO_CELSIUS_K)}), where the model cannot be fitted; remove the point or correct its temperature`);
+        `measured: the point at ${fmtC(m.kelvin - ZERO_CELSIUS_K)}${pointSource(m)} lies outside the rated range of '${s.name}' (${fmtC(s.ratedLowK - ZERO_CELSIUS_K)} .. ${fmtC(s.ratedHighK - ZERO_CELSIUS_K)}), where the model cannot be fitted; remove the point or correct its temperature`);
     }
   }
   if (unusable) return;
@@ -45,7 +45,7 @@ export function checkCalibrationFit({ channel: c, sink }: CheckContext): void {
       const offK = (Math.abs(a.code - b.code) * lsb) / slope;
       if (offK <= Math.max(tolK, (2 * lsb) / slope)) continue;
       sink.report('calibration-outlier', c.file, b.span,
-        `codes ${trimNumber(a.code, 6)} and ${trimNumber(b.code, 6)} were both read at ${trimNumber(a.kelvin - ZERO_CELSIUS_K, 4)} °C, ${trimNumber(Math.abs(a.code - b.code), 6)} counts (${trimNumber(offK, 3)} K) apart; at most one is right: check the reference thermometer, settling and the code read`,
+        `codes ${trimNumber(a.code, 6)}${pointSource(a)} and ${trimNumber(b.code, 6)}${pointSource(b)} were both read at ${trimNumber(a.kelvin - ZERO_CELSIUS_K, 4)} °C, ${trimNumber(Math.abs(a.code - b.code), 6)} counts (${trimNumber(offK, 3)} K) apart; at most one is right: check the reference thermometer, settling and the code read`,
         { offK });
       return;
     }
@@ -55,6 +55,6 @@ export function checkCalibrationFit({ channel: c, sink }: CheckContext): void {
   const p = fit.points[fit.outlier]!;
   const m = c.measured[fit.outlier]!;
   sink.report('calibration-outlier', c.file, m.span,
-    `code ${trimNumber(p.code, 6)} at ${trimNumber(p.celsius, 4)} °C disagrees with the other measured points: the model fitted to them reports ${trimNumber(p.celsius + p.leaveOneOutK!, 4)} °C for it (${trimNumber(p.leaveOneOutK!, 3)} K off, tolerance ${trimNumber(p.toleranceK, 3)} K); check the reference thermometer, settling and the code read`,
+    `code ${trimNumber(p.code, 6)} at ${trimNumber(p.celsius, 4)} °C${pointSource(m)} disagrees with the other measured points: the model fitted to them reports ${trimNumber(p.celsius + p.leaveOneOutK!, 4)} °C for it (${trimNumber(p.leaveOneOutK!, 3)} K off, tolerance ${trimNumber(p.toleranceK, 3)} K); check the reference thermometer, settling and the code read`,
     { offK: p.leaveOneOutK });
 }

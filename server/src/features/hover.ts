@@ -17,6 +17,8 @@ import { locate, type Located } from './locate';
 import * as f from '../analysis/figures';
 import { budgetHoverSection } from './budget-hover';
 import { kindOf, sensorKind } from '../sensors/registry';
+import { OUTLIER_RULE, residualRows } from '../calibration/fit';
+import { escapeControls, shown } from '../diagnostics/shown';
 
 export interface HoverResult {
   markdown: string;
@@ -196,6 +198,7 @@ function termHover(a: Analysis, at: Extract<Located, { kind: 'term' }>): HoverRe
     if (adc) return { markdown: adcHover(a, adc), span: term.span };
     return null;
   }
+  if (term.kind === 'string' && kind === 'channel' && key === 'bench_data') return r ? { markdown: benchHover(r), span: term.span } : null;
   const biasPart = key === 'bias' && r ? biasHover(r) : null;
   if (quantity && kind && key) {
     const meaning = quantityMeaning(kind, key, field, at.index, quantity);
@@ -269,4 +272,32 @@ function baseNumber(v: number): string {
   const abs = Math.abs(v);
   if (v === 0 || !Number.isFinite(v) || (abs >= 1e-3 && abs < 1e7) || abs >= 1e100) return f.trimNumber(v, 6);
   return Number(v.toPrecision(6)).toExponential().replace('e+', 'e');
+}
+
+/** Rows of the residual table a hover shows; the rest are in `thermoscribe report`. */
+const HOVER_RESIDUAL_ROWS = 40;
+
+/** Hover on a channel's bench data path: what was read, the fit, and each point's residual. */
+export function benchHover(r: ChannelResult): string {
+  const c = r.channel;
+  const info = c.benchInfo;
+  const name = shown(c.benchData?.path ?? '');
+  if (!info) return `**${name}**: not read (see the problem reported here)`;
+  const used = c.measured?.filter((m) => m.row !== undefined).length ?? 0;
+  const head = [
+    `**${name}**: ${used} reading${used === 1 ? '' : 's'} used of ${info.rows} row${info.rows === 1 ? '' : 's'}` +
+      (info.skipped ? `, ${info.skipped} left out (see the warnings)` : '') +
+      (info.otherBoards ? `, ${info.otherBoards} of other boards` : '') +
+      (info.boards.length ? `; board${info.boards.length === 1 ? '' : 's'} ${info.boards.slice(0, 8).map((b) => escapeControls(b)).join(', ')}${info.boards.length > 8 ? ', …' : ''}` : ''),
+  ];
+  const res = residualRows(c);
+  if (!res) return `${head[0]}\n\nThe points are not fitted on a ${c.sensor.kind} channel.`;
+  const { fit, rows } = res;
+  head.push(`Fit: ${Object.entries(fit.parameters).map(([k, v]) => `${k} = ${f.trimNumber(v, 5)}`).join(', ')}; rms residual ${f.kelvinDelta(fit.rmsK)}` + (fit.outlier !== null ? `; one point flagged (${rows[fit.outlier]!.source}) and left out of the fit the budget and the generated code use` : ''));
+  const table = ['| point | °C | code | residual | others\' fit | |', '|---|---:|---:|---:|---:|---|'];
+  for (const row of rows.slice(0, HOVER_RESIDUAL_ROWS)) {
+    table.push(`| ${escapeControls(row.source).replace(/\|/g, '\\|')} | ${row.celsius.toFixed(2)} | ${row.code} | ${row.residualK.toFixed(3)} K | ${row.leaveOneOutK === null ? '–' : `${row.leaveOneOutK.toFixed(3)} K`} | ${row.outlier ? '**outlier**' : ''} |`);
+  }
+  if (rows.length > HOVER_RESIDUAL_ROWS) table.push(`| … ${rows.length - HOVER_RESIDUAL_ROWS} more (\`thermoscribe report\` lists all) | | | | | |`);
+  return [...head, table.join('\n'), `_Residual: the temperature the fitted model gives for the code minus the reference temperature. Outliers: ${OUTLIER_RULE}._`, SHORT_CAUTION].join('\n\n');
 }

@@ -2,7 +2,7 @@
 // the two-current bias, calibration, measured points, Monte Carlo settings and oversampling.
 // Each reports bad input with the span of the offending term and returns null; never throws.
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
-import type { BiasDef, CalibrationSpec, MeasuredPoint, MonteCarloSpec } from './types';
+import type { BenchDataRef, BiasDef, CalibrationSpec, MeasuredPoint, MonteCarloSpec } from './types';
 import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from './read-value';
 import { PART_DOMAINS } from './schema';
 import { readUnit } from './units';
@@ -181,12 +181,8 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
     const c = readQuantityValue(code, 'count', ctx);
     const k = readQuantityValue(temp, 'temperature', ctx);
     if (c === null || k === null) return null;
-    const full = 2 ** bits;
-    if (!(c >= 0 && c <= full - 1)) return outOfDomain(ctx, code.span, `a ${bits}-bit code must be from 0 to ${full - 1} (found ${shown(code.number.text)})`);
-    if (!Number.isInteger(c)) return outOfDomain(ctx, code.span, `a code is a whole number of counts, 1 to ${full - 2} (found ${shown(code.number.text)}); give the code the converter returned`);
-    // A code at either rail is a clipped reading: it says only "at or beyond", not which temperature.
-    if (c === 0 || c === full - 1)
-      return outOfDomain(ctx, code.span, `code ${c} is the ${c === 0 ? 'bottom' : 'full scale'} of the ${bits}-bit converter: a clipped reading does not tell the temperature; use points whose codes lie from 1 to ${full - 2}`);
+    const codeProblem = measuredCodeProblem(c, code.number.text, bits);
+    if (codeProblem) return outOfDomain(ctx, code.span, codeProblem);
     if (!(k > 0)) return outOfDomain(ctx, temp.span, 'a temperature must be above 0 K (absolute zero)');
     out.push({ kelvin: k, code: c, span: { start: code.span.start, end: temp.span.end } });
     i += 3;
@@ -194,6 +190,19 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
   if (out.length === 0) return bad(ctx, spanOf(terms), hint);
   if (out.length > 32) return outOfDomain(ctx, spanOf(terms), `at most 32 points (found ${out.length})`);
   return out;
+}
+
+/**
+ * What is wrong with a measured code on a `bits`-bit converter (`written`: the code as the user wrote
+ * it), or null: one rule for the spec's `measured` points and for rows of bench data.
+ */
+export function measuredCodeProblem(c: number, written: string, bits: number): string | null {
+  const full = 2 ** bits;
+  if (!(c >= 0 && c <= full - 1)) return `a ${bits}-bit code must be from 0 to ${full - 1} (found ${shown(written)})`;
+  if (!Number.isInteger(c)) return `a code is a whole number of counts, 1 to ${full - 2} (found ${shown(written)}); give the code the converter returned`;
+  // A code at either rail is a clipped reading: it says only "at or beyond", not which temperature.
+  if (c === 0 || c === full - 1) return `code ${c} is the ${c === 0 ? 'bottom' : 'full scale'} of the ${bits}-bit converter: a clipped reading does not tell the temperature; use points whose codes lie from 1 to ${full - 2}`;
+  return null;
 }
 
 /** `± 0.05 °C` (or K): the reference thermometer's uncertainty, a temperature difference from 0 to 10 K. */
@@ -243,4 +252,24 @@ export function readOversampling(terms: Term[], ctx: ReadContext): number | null
   }
   if (!(Number.isInteger(q.number.value) && q.number.value >= 0 && q.number.value <= 8)) return outOfDomain(ctx, q.span, `must be a whole number of bits from 0 to 8 (found ${shown(q.number.text)})`);
   return q.number.value;
+}
+
+const BENCH_HINT = 'takes a CSV file path, optionally with a board, such as `"bench/run1.csv"` or `"bench/run1.csv" board A7`';
+
+/** Reads the field's terms: `"file.csv"` or `"file.csv" board ID`. */
+export function readBenchRef(terms: Term[], ctx: ReadContext): BenchDataRef | null {
+  const bad = (span: Span, message: string): null => {
+    ctx.sink.report('bad-value', ctx.file, span, `${ctx.field}: ${message}`);
+    return null;
+  };
+  const file = terms[0];
+  if (!file || file.kind !== 'string') return bad(spanOf(terms), BENCH_HINT);
+  if (file.text.trim() === '') return bad(file.span, 'the file path is empty; ' + BENCH_HINT);
+  if (terms.length === 1) return { path: file.text, span: file.span };
+  const word = terms[1];
+  const id = terms[2];
+  if (terms.length !== 3 || !word || word.kind !== 'word' || word.text !== 'board' || !id) return bad(spanOf(terms.slice(1)), BENCH_HINT);
+  const board = id.kind === 'string' || id.kind === 'word' ? id.text : id.kind === 'quantity' && !id.unit && !id.tolerance ? id.number.text : null;
+  if (board === null || board === '') return bad(id.span, 'the board is a name, a number or a quoted text such as `A7`, `12` or `"line 2/7"`');
+  return { path: file.text, board, span: file.span };
 }

@@ -14,7 +14,7 @@ import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { BlockReader, type BlockRef, type Resolution } from './block-reader';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
-import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
+import { isTwoCurrentBias, readBenchRef, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
 import { shown } from '../diagnostics/shown';
 
 const ZERO_C = 273.15;
@@ -365,6 +365,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   };
   const calibration = range ? phrase('calibration', (t) => readCalibration(t, r.ctx('calibration'), range.low, range.high)) : undefined;
   const measured = adc ? phrase('measured', (t) => readMeasured(t, r.ctx('measured'), adc.bits)) : undefined;
+  const benchData = phrase('bench_data', (t) => readBenchRef(t, r.ctx('bench_data')));
   const calReference = phrase('cal_reference', (t) => readCalReference(t, r.ctx('cal_reference')));
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
@@ -380,6 +381,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
     ...(twin ? { secondBias: twin.second } : {}),
     ...(calibration ? { calibration } : {}),
     ...(measured ? { measured } : {}),
+    ...(benchData ? { benchData } : {}),
     ...(monteCarlo ? { monteCarlo } : {}),
     ...(calReference !== undefined ? { calReferenceK: calReference } : {}),
     ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),

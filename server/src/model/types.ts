@@ -85,8 +85,12 @@ export interface ChannelDef extends DefBase {
   secondBias?: BiasDef;
   /** Calibration done on each board (absent = none). */
   calibration?: CalibrationSpec;
-  /** ADC codes measured on a real board at known temperatures. */
+  /** ADC codes measured on a real board at known temperatures (the spec's own, then its bench data's). */
   measured?: MeasuredPoint[];
+  /** A CSV file of bench readings (`bench_data`); its rows join `measured` when the engine reads it. */
+  benchData?: BenchDataRef;
+  /** What was read from that file (set with the rows; absent when it was not read). */
+  benchInfo?: BenchDataInfo;
   /** Uncertainty (half-width) of the reference thermometer a calibration compares with, K (absent: taken as exact). */
   calReferenceK?: number;
   /** Monte Carlo settings of the error budget (absent = defaults). */
@@ -130,7 +134,35 @@ export interface MeasuredPoint {
   /** ADC code read at that temperature (a fractional code is an average of readings). */
   code: number;
   span: Span;
+  /** The row of the bench data file it came from (model/bench-data.ts); absent for the spec's own points. */
+  row?: number;
+  /** The board of that row, when the file names boards. */
+  board?: string;
 }
+
+/** The `bench_data` field: a file path (relative to the spec's folder) and an optional board to keep. */
+export interface BenchDataRef {
+  path: string;
+  /** Only rows of this board (the file's `board` column). */
+  board?: string;
+  /** The path's span in the spec: where the file's problems are reported. */
+  span: Span;
+}
+
+/** What a channel read from its bench data (on the channel after the engine attached it). */
+export interface BenchDataInfo {
+  /** The file's absolute path, as read. */
+  file: string;
+  /** Rows of readings in the file (after the header, comments and blank lines). */
+  rows: number;
+  /** Rows left out for a problem (each has its diagnostic). */
+  skipped: number;
+  /** Rows of other boards left out by the `board` filter. */
+  otherBoards: number;
+  /** The distinct boards of the rows used (empty without a board column). */
+  boards: string[];
+}
+
 
 export interface MonteCarloSpec {
   runs: number;

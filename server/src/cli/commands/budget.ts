@@ -3,6 +3,7 @@
 // Long runs report progress on stderr and stop cleanly on Ctrl+C (exit 130).
 import { DiskHost } from '../io';
 import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
+import { residualReport } from '../residuals';
 import { table } from '../text';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../engine';
@@ -93,12 +94,8 @@ export function budgetText(b: BudgetResult, c: ChannelDef): string {
   const s = b.stated;
   const rows = b.celsius.map((t, i) => [trimNumber(t, 4), k3(s.worstLow[i]!), k3(s.worstHigh[i]!), ...(s.mc ? [k3(s.mc.p1[i]!), k3(s.mc.p50[i]!), k3(s.mc.p99[i]!)] : [])]);
   out.push(table(['°C', 'worst low', 'worst high', ...(s.mc ? ['MC 1 %', 'MC 50 %', 'MC 99 %'] : [])], rows));
-  const fit = fitMeasured(c);
-  if (fit) {
-    out.push('');
-    out.push(`Fit to the measured points: ${Object.entries(fit.parameters).map(([k, v]) => `${k} = ${trimNumber(v!, 5)}`).join(', ')}, rms residual ${k3(fit.rmsK)} K` + (fit.outlier !== null ? `; point ${fit.outlier + 1} disagrees with the others` : ''));
-    out.push(table(['°C', 'code', 'residual K', 'left out K'], fit.points.map((p) => [trimNumber(p.celsius, 4), trimNumber(p.code, 6), k3(p.residualK), p.leaveOneOutK === null ? '-' : k3(p.leaveOneOutK)])));
-  }
+  const residuals = residualReport(c);
+  if (residuals) out.push(residuals.replace(/^\n\n/, '\n'));
   for (const n of b.notes) out.push(`Note: ${n}`);
   return out.join('\n');
 }

@@ -8,6 +8,7 @@ import type { ChannelResult } from '../../engine';
 import { fixedNumber, formatSI, trimNumber } from '../../engine';
 import { CAUTION } from '../../engine';
 import { describeBias, describeSensor } from '../../engine';
+import { residualReport } from '../residuals';
 
 export const REPORT: VerbSpec = { name: 'report', files: 'one', options: { channel: CHANNEL_OPTION, root: ROOT_OPTION } };
 export const REPORT_USAGE = usageLine(REPORT);
@@ -54,5 +55,5 @@ export function channelReport(r: ChannelResult): string {
     fixedNumber(p.celsiusPerCount, 4),
     fixedNumber(p.selfHeatingK * 1000, 3),
   ]);
-  return head.join('\n') + table(['°C', 'mV', 'µA', 'code', 'mV/K', 'counts/K', '°C/count', 'heat mK'], rows);
+  return head.join('\n') + table(['°C', 'mV', 'µA', 'code', 'mV/K', 'counts/K', '°C/count', 'heat mK'], rows) + residualReport(r.channel);
 }

@@ -23,7 +23,10 @@ function withParams(c: ChannelDef, names: Param[], x: number[]): ChannelDef {
   return { ...c, sensor: { ...s, params: p } };
 }
 
-/** Residual of one point in K: (measured code's voltage - model voltage) / model slope. */
+/**
+ * Residual of one point in K: (measured code's voltage - model voltage) / model slope, which to first
+ * order is the temperature the model gives for the measured code minus the point's temperature.
+ */
 function residual(c: ChannelDef, m: MeasuredPoint): number {
   const full = 2 ** c.adc.bits;
   const v = ((m.code + 0.5) * c.adc.reference.value) / full;
@@ -128,10 +131,10 @@ export function fitJunction(c: ChannelDef): FitResult | null {
     let tol = toleranceK;
     if (others.length >= looNames.length) {
       const fo = fitOn(c, others, looNames);
-      if (fo) loo = -residual(fo.channel, m);
+      if (fo) loo = residual(fo.channel, m);
       if (looNames.length < names.length) tol += priorSlack(c, m, others);
     }
-    return { celsius: m.kelvin - ZERO_CELSIUS_K, code: m.code, residualK: -residual(all.channel, m), leaveOneOutK: loo, toleranceK: tol };
+    return { celsius: m.kelvin - ZERO_CELSIUS_K, code: m.code, residualK: residual(all.channel, m), leaveOneOutK: loo, toleranceK: tol };
   });
   const rmsK = Math.sqrt(points.reduce((a, p) => a + p.residualK ** 2, 0) / points.length);
   // Only the worst disagreeing point is named: with few points every leave-one-out residual grows
