@@ -3,7 +3,7 @@
 // and emits marker-wrapped C blocks.
 
 import { INT16_MAX, INT16_MIN, clamp } from './arith';
-import { GAIN_Q, GAIN_Q_MAX, applyTrim, trimDesign } from './calibration';
+import { GAIN_Q, GAIN_Q_MAX, TWO_POINT_FRAC, applyTrim, trimDesign } from './calibration';
 import { CAUTION_LINES, emitHeaderBody, emitSourceBody, type ChannelPlan } from './emit';
 import { renderBlock } from './markers';
 import { commentLines, uniqueIdentifiers } from './names';
@@ -192,7 +192,8 @@ function cyclesEstimate(d: Design, s: Samples): number {
     const narrow = d.entryBits === 16 && d.spanMax <= 32767;
     base = narrow && d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 72 : narrow && d.mulBits === 16 ? 110 : 231;
   }
-  return base + (s.frac > 0 ? 18 : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 70);
+  const twoPoint = s.trim.mode === 'two-point';
+  return base + (s.frac > 0 && !twoPoint ? 18 : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
 }
 
 /** Largest number of internal fraction bits tried. */
@@ -223,6 +224,14 @@ function chooseLine(c: ConversionInput, s0: Samples): Choice {
   return { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s), s };
 }
 
+function kernelFitsInt16(d: Design, s: Samples): boolean {
+  for (let code = s.low; code <= s.high; code++) {
+    const k = kernelAt(d, s, code);
+    if (k < INT16_MIN || k > INT16_MAX) return false;
+  }
+  return true;
+}
+
 function choose(c: ConversionInput, s0: Samples): Choice {
   if (c.method === 'line') return chooseLine(c, s0);
   const target = c.errorTarget * c.outputScale;
@@ -232,13 +241,18 @@ function choose(c: ConversionInput, s0: Samples): Choice {
   let bestMissed: Choice | undefined;
   let fmax = 0;
   for (const v of s0.f) fmax = Math.max(fmax, Math.abs(v));
-  for (let frac = 0; frac <= MAX_FRAC; frac++) {
+  // A two-point trim takes the kernel with exactly one fraction bit and rounds it itself
+  // (calibration.ts); other kernels try 0..MAX_FRAC bits and round at the end.
+  const twoPoint = s0.trim.mode === 'two-point';
+  for (let frac = twoPoint ? TWO_POINT_FRAC : 0; frac <= (twoPoint ? TWO_POINT_FRAC : MAX_FRAC); frac++) {
     // Fraction bits only while the kernel stays well inside int16 (then the rounding is 16-bit).
-    if (frac > 0 && (fmax + 2) * 2 ** frac * 1.05 > 32000) break;
+    if (!twoPoint && frac > 0 && (fmax + 2) * 2 ** frac * 1.05 > 32000) break;
     const s = withFraction(s0, frac);
     const consider = (r: { design: Design; maxErr: number } | undefined) => {
       if (!r) return;
-      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) + (frac > 0 ? ROUND_BYTES : 0), s };
+      // The two-point trim biases the kernel into uint16: it must be an int16 at every code.
+      if (twoPoint && !kernelFitsInt16(r.design, s)) return;
+      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) + (frac > 0 && !twoPoint ? ROUND_BYTES : 0), s };
       if (r.maxErr <= target + 1e-9) candidates.push(ch);
       else if (!bestMissed || r.maxErr < bestMissed.maxErr) bestMissed = ch;
     };
@@ -325,7 +339,7 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
       const k = rounded(s, kernelAt(ch.design, s, code));
       kLo = Math.min(kLo, k);
       kHi = Math.max(kHi, k);
-      const t = s.trim.mode === 'none' ? k : s.trim.mode === 'offset' ? k + s.trim.offsetScaled : k + (k * s.trim.gainD) / 65536 + s.trim.offsetScaled;
+      const t = applyTrim(s.trim, k);
       lo = Math.min(lo, t);
       hi = Math.max(hi, t);
       worst = Math.max(worst, Math.abs(clamp(applyTrim(s.trim, k), s.outMin, s.outMax) - s.ideal[code - s.low]!));
