@@ -101,6 +101,16 @@ static inline __attribute__((always_inline)) uint16_t thsc_mul_hi8(uint16_t s, u
 #define THSC_MUL_HI8(s, f) ((uint16_t)(((uint32_t)(s) * (uint8_t)(f) + 128UL) >> 8))
 #endif
 #endif
+#ifndef THSC_ASR16
+/* floor(v / 2^k) for int16 v: GCC and Clang define >> of a negative number as an arithmetic
+   shift (GCC manual, "Integers implementation"), one instruction pair per bit on an 8-bit AVR;
+   elsewhere the biased form of THSC_ASR32 (C99 6.5.7p5 leaves it implementation-defined). */
+#if defined(__GNUC__)
+#define THSC_ASR16(v, k) ((int16_t)((int16_t)(v) >> (k)))
+#else
+#define THSC_ASR16(v, k) ((int16_t)((int16_t)((uint16_t)((uint16_t)(v) + 0x8000u) >> (k)) - (int16_t)(0x8000u >> (k))))
+#endif
+#endif
 #ifndef THSC_MULHI_HELPER
 #define THSC_MULHI_HELPER 1
 /* floor((u * g + 32768) / 65536) for unsigned 16-bit u and g: the two-point trim's multiply. On an
@@ -473,11 +483,23 @@ function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string 
   ].join('\n');
 }
 
+/**
+ * What the emitted table points carry on top of the design's: 2^(F-1) when a 16-bit table kernel
+ * rounds F fraction bits at the end, so the rounding is one arithmetic shift (the kernel is a
+ * point plus or minus a step, so every point moving by a constant moves it by the same).
+ */
+function foldedBias(p: ChannelPlan): number {
+  const d = p.design;
+  if (d.kind !== 'table' || d.shift === 0 || p.fracBits === 0 || p.trim.mode === 'two-point') return 0;
+  return d.entryBits === 16 && d.spanMax <= 32767 ? 2 ** (p.fracBits - 1) : 0;
+}
+
 function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
   const d = p.design;
   if (d.kind === 'table') {
     const t = d.entryBits === 16 ? 'int16_t' : 'int32_t';
-    const vals = d.entries.map((v) => lit(v, d.entryBits));
+    const bias = foldedBias(p);
+    const vals = d.entries.map((v) => lit(v + bias, d.entryBits));
     return `static const ${t} ${n.data}[${vals.length}] THSC_ROM = {\n${rows(vals, 8, '    ')}\n};`;
   }
   const segs = d.coefs.map((c) => `{ ${c.map(lit32).join(', ')} }`);
@@ -528,6 +550,8 @@ function roundFraction(p: ChannelPlan, wide: boolean): string[] {
   const f = p.fracBits;
   // A two-point trim takes the kernel with its fraction bit and rounds it itself.
   if (f === 0 || p.trim.mode === 'two-point') return [];
+  // The table points carry the rounding's 2^(F-1) already (foldedBias).
+  if (foldedBias(p) > 0) return [`    kernel = THSC_ASR16(kernel, ${f}); /* to 1/${p.scale} degC, rounded */`];
   if (wide) return [`    kernel = THSC_ASR32(kernel + ${2 ** (f - 1)}L, ${f}); /* to 1/${p.scale} degC, rounded */`];
   return [`    kernel = (int16_t)((int16_t)((uint16_t)((uint16_t)kernel + ${0x8000 + 2 ** (f - 1)}u) >> ${f}) - ${0x8000 >> f}); /* to 1/${p.scale} degC, rounded */`];
 }
@@ -576,7 +600,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
       `    b = (float)${rd}(&${n.data}[idx + 1u]);`,
       `    y = a + (b - a) * ((float)(off & ${2 ** d.shift - 1}u) / ${2 ** d.shift}.0f);`,
     );
-    if (p.fracBits > 0) lines.push(`    y = y / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
+    if (p.fracBits > 0) lines.push(`    y = ${foldedBias(p) > 0 ? `(y - ${foldedBias(p)}.0f)` : 'y'} / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
   } else if (d.kind === 'table') {
     lines.push(`    y = (float)${rd}(&${n.data}[code - ${p.low}u]);`);
   } else {

@@ -193,13 +193,16 @@ function cyclesEstimate(d: Design, s: Samples): number {
     base = narrow && d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 72 : narrow && d.mulBits === 16 ? 110 : 231;
   }
   const twoPoint = s.trim.mode === 'two-point';
-  return base + (s.frac > 0 && !twoPoint ? 18 : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
+  return base + (s.frac > 0 && !twoPoint ? 2 * s.frac : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
 }
 
 /** Largest number of internal fraction bits tried. */
 const MAX_FRAC = 4;
-/** Bytes of the final rounding step (atmega328p, -Os, linked; bench: 188 against 164 bytes for the junction channel). */
-const ROUND_BYTES = 24;
+/**
+ * Bytes of the final rounding step: one arithmetic shift per fraction bit, its 2^(F-1) carried by
+ * the table points (atmega328p, -Os, linked; bench: 160 against 156 bytes for the junction channel).
+ */
+const ROUND_BYTES = 4;
 
 /** A straight line: two points, one segment over every in-range code (linear interpolation between them). */
 function chooseLine(c: ConversionInput, s0: Samples): Choice {
