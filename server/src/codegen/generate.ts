@@ -10,6 +10,7 @@ import { commentLines, uniqueIdentifiers } from './names';
 import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
 import { finish, makeIdeal, rounded, withFraction, type Samples } from './samples';
 import { designTable, tableKernel, type TableDesign } from './table';
+import { prefixProblem } from '../model/code-prefix';
 import {
   CodegenInputError,
   type ConversionInput,
@@ -74,6 +75,8 @@ export function validateInput(c: ConversionInput): void {
       fail(c, field, `must be an integer 0..${top} outside the in-range codes ${c.codeLow}..${c.codeHigh}, got ${v}`);
   }
   if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
+  const ownPrefix = c.prefix === undefined ? undefined : typeof c.prefix === 'string' ? prefixProblem(c.prefix) : 'must be a string';
+  if (ownPrefix) fail(c, 'prefix', ownPrefix);
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
 
@@ -326,7 +329,8 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
     if (seen.has(c.channelName)) fail(c, 'channelName', 'two channels have this name; markers need unique names');
     seen.add(c.channelName);
   }
-  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id) => prefix + id);
+  // A channel's own prefix (the spec's `code_prefix`) before the file-wide one.
+  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id, i) => (inputs[i]!.prefix ?? prefix) + id);
   const plans: ChannelPlan[] = [];
   const samples: Samples[] = [];
   const bytes: number[] = [];
@@ -384,13 +388,8 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
   return { plans, samples, bytes };
 }
 
-/** Why `prefix` cannot start a generated identifier, or undefined when it can. */
-export function prefixProblem(prefix: string): string | undefined {
-  // A leading underscore is reserved to the implementation in many cases (C99 7.1.3).
-  return prefix === '' || /^[A-Za-z][A-Za-z0-9_]{0,31}$/.test(prefix)
-    ? undefined
-    : `must be a C identifier of 1 to 32 letters, digits and underscores starting with a letter (got '${prefix.replace(/[^\x20-\x7e]/g, '?')}')`;
-}
+/** Why `prefix` cannot start a generated identifier (the rule lives with the spec's `code_prefix`). */
+export { prefixProblem };
 
 export function generateC(inputs: ConversionInput[], options: GenerateOptions): GenerateResult {
   const { plans, bytes } = planChannels(inputs, options.prefix);
