@@ -195,5 +195,6 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     floatVariant: opts.floatVariant,
     specHash: channelSpecHash(c),
     note: notes.join(' '),
+    ...('prefix' in opts && opts.prefix ? { prefix: opts.prefix } : {}),
   };
 }

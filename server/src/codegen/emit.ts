@@ -71,53 +71,83 @@ const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
    shift of a negative number (C99 6.5.7p5): bias into uint32, shift, remove the bias. The biased
    sum is cast back to uint32_t: where unsigned long is 64 bits it would otherwise not wrap. */
 #define THSC_ASR32(v, k) ((int32_t)((uint32_t)((uint32_t)(v) + 0x80000000UL) >> (k)) - (int32_t)(0x80000000UL >> (k)))
-/* floor((s * f + 128) / 256) for 16-bit s and 8-bit f. avr-gcc's 24-bit integer (a GNU extension,
-   hence __extension__) lets it use two 8x8 multiplies instead of a 32-bit library multiply. */
-#if defined(__AVR__) && defined(__GNUC__) && defined(__UINT24_MAX__)
+/* floor((s * f + 128) / 256) for 16-bit s and 8-bit f. On an 8-bit AVR with a multiplier: two
+   hardware multiplies inline, s_hi * f + (s_lo * f + 128) / 256, where bit 7 of the low product is
+   the rounding carry (the compiler's own code for the 24-bit product took twice the cycles and
+   three more registers). Without: avr-gcc's 24-bit integer (a GNU extension, hence __extension__),
+   still no 32-bit library multiply. */
+#if defined(__AVR__) && defined(__GNUC__) && defined(__AVR_HAVE_MUL__)
+static inline __attribute__((always_inline)) uint16_t thsc_mul_hi8(uint16_t s, uint8_t f)
+{
+    uint16_t r;
+    uint8_t z;
+    __asm__ (
+        "clr %[z]\\n\\t"
+        "mul %B[s], %[f]\\n\\t"
+        "movw %A[r], __tmp_reg__\\n\\t"
+        "mul %A[s], %[f]\\n\\t"
+        "lsl __tmp_reg__\\n\\t"
+        "adc %A[r], __zero_reg__\\n\\t"
+        "adc %B[r], %[z]\\n\\t"
+        "clr __zero_reg__"
+        : [r] "=&r" (r), [z] "=&r" (z)
+        : [s] "r" (s), [f] "r" (f));
+    return r;
+}
+#define THSC_MUL_HI8(s, f) thsc_mul_hi8((uint16_t)(s), (uint8_t)(f))
+#elif defined(__AVR__) && defined(__GNUC__) && defined(__UINT24_MAX__)
 #define THSC_MUL_HI8(s, f) ((uint16_t)((__extension__((__uint24)(s) * (uint8_t)(f) + 128u)) >> 8))
 #else
 #define THSC_MUL_HI8(s, f) ((uint16_t)(((uint32_t)(s) * (uint8_t)(f) + 128UL) >> 8))
 #endif
 #endif
-#ifndef THSC_GAIN_HELPER
-#define THSC_GAIN_HELPER 1
-/* floor((y * d + 32768) / 65536) for 16-bit y and d: the gain correction of a run-time trim. On
-   an 8-bit AVR with a multiplier, the signed 16 x 16 -> 32-bit multiply of Atmel application note
-   AVR201 (four hardware multiplies, inline) instead of a library call; the low byte is not formed,
-   as it cannot carry into the result. */
+#ifndef THSC_ASR16
+/* floor(v / 2^k) for int16 v: GCC and Clang define >> of a negative number as an arithmetic
+   shift (GCC manual, "Integers implementation"), one instruction pair per bit on an 8-bit AVR;
+   elsewhere the biased form of THSC_ASR32 (C99 6.5.7p5 leaves it implementation-defined). */
+#if defined(__GNUC__)
+#define THSC_ASR16(v, k) ((int16_t)((int16_t)(v) >> (k)))
+#else
+#define THSC_ASR16(v, k) ((int16_t)((int16_t)((uint16_t)((uint16_t)(v) + 0x8000u) >> (k)) - (int16_t)(0x8000u >> (k))))
+#endif
+#endif
+#ifndef THSC_MULHI_HELPER
+#define THSC_MULHI_HELPER 1
+/* floor((u * g + 32768) / 65536) for unsigned 16-bit u and g: the two-point trim's multiply. On an
+   8-bit AVR with a multiplier, four hardware multiplies inline (the partial products of the
+   16 x 16-bit product, as in Atmel application note AVR201) instead of a 32-bit library call; the
+   low byte of the product is not kept, as only its carry reaches the result, and bit 15 is the
+   rounding carry. Always inlined: a call would cost more than the multiply. */
 #if defined(__AVR__) && defined(__GNUC__) && defined(__AVR_HAVE_MUL__)
-static inline int16_t thsc_gain_corr(int16_t y, int16_t d)
+static inline __attribute__((always_inline)) uint16_t thsc_mul_hi16(uint16_t u, uint16_t g)
 {
-    int16_t r;
-    uint8_t b1, z;
+    uint16_t r;
+    uint8_t t, z;
     __asm__ (
         "clr %[z]\\n\\t"
-        "muls %B[y], %B[d]\\n\\t"
-        "mov %A[r], __tmp_reg__\\n\\t"
-        "mov %B[r], __zero_reg__\\n\\t"
-        "mul %A[y], %A[d]\\n\\t"
-        "mov %[b1], __zero_reg__\\n\\t"
-        "mulsu %B[y], %A[d]\\n\\t"
-        "sbc %B[r], %[z]\\n\\t"
-        "add %[b1], __tmp_reg__\\n\\t"
+        "mul %A[u], %A[g]\\n\\t"
+        "mov %[t], __zero_reg__\\n\\t"
+        "mul %B[u], %B[g]\\n\\t"
+        "movw %A[r], __tmp_reg__\\n\\t"
+        "mul %B[u], %A[g]\\n\\t"
+        "add %[t], __tmp_reg__\\n\\t"
         "adc %A[r], __zero_reg__\\n\\t"
         "adc %B[r], %[z]\\n\\t"
-        "mulsu %B[d], %A[y]\\n\\t"
-        "sbc %B[r], %[z]\\n\\t"
-        "add %[b1], __tmp_reg__\\n\\t"
+        "mul %A[u], %B[g]\\n\\t"
+        "add %[t], __tmp_reg__\\n\\t"
         "adc %A[r], __zero_reg__\\n\\t"
         "adc %B[r], %[z]\\n\\t"
-        "lsl %[b1]\\n\\t"
+        "lsl %[t]\\n\\t"
         "adc %A[r], %[z]\\n\\t"
         "adc %B[r], %[z]\\n\\t"
         "clr __zero_reg__"
-        : [r] "=&r" (r), [b1] "=&r" (b1), [z] "=&r" (z)
-        : [y] "a" (y), [d] "a" (d));
+        : [r] "=&r" (r), [t] "=&r" (t), [z] "=&r" (z)
+        : [u] "r" (u), [g] "r" (g));
     return r;
 }
-#define THSC_GAIN_CORR(y, d) thsc_gain_corr((y), (d))
+#define THSC_MUL_HI16(u, g) thsc_mul_hi16((u), (g))
 #else
-#define THSC_GAIN_CORR(y, d) ((int16_t)THSC_ASR32((int32_t)(y) * (d) + 32768L, 16))
+#define THSC_MUL_HI16(u, g) ((uint16_t)(((uint32_t)(u) * (uint16_t)(g) + 32768UL) >> 16))
 #endif
 #endif`;
 
@@ -191,7 +221,7 @@ function describe(p: ChannelPlan): string[] {
     ...faultText(p),
     ...(p.trim.runtime
       ? [
-          `${names(p).setter}() writes ${p.trim.mode === 'offset' ? 'a 16-bit field' : 'two 16-bit fields'}: not atomic on an 8-bit core. When conversions run in an`,
+          `${names(p).setter}() writes ${p.trim.mode === 'offset' ? 'a 16-bit field' : 'two fields (32 and 16 bits)'}: not atomic on an 8-bit core. When conversions run in an`,
           'interrupt, call it with that interrupt disabled (on AVR: ATOMIC_BLOCK(ATOMIC_RESTORESTATE) of',
           '<util/atomic.h>), or call it from the same context that converts.',
         ]
@@ -257,8 +287,7 @@ function declarations(p: ChannelPlan): string {
     out.push(
       p.trim.mode === 'offset'
         ? `void ${n.setter}(int16_t offset_units); /* offset in 1/${p.scale} degC */`
-        : `/* Two-point trim: out = y + floor((y * D + 32768) / 65536) + offset_units, with y the untrimmed\n` +
-          `   value and D = 4 * gain_q${GAIN_Q} - 65536; gain_q${GAIN_Q} = gain * 2^${GAIN_Q}, held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5). */\n` +
+        : `${TWO_POINT_FORMULA}\n` +
           `void ${n.setter}(int16_t offset_units, uint16_t gain_q${GAIN_Q}); /* offset in 1/${p.scale} degC, gain * 2^${GAIN_Q} */`,
     );
   }
@@ -391,12 +420,24 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
   };
 }
 
+/** The two-point trim's formula (calibration.ts) as the header states it. */
+const TWO_POINT_FORMULA = [
+  '/* Two-point trim: out = floor((u * g + 32768) / 65536) + c = round(gain * y / 2) + offset_units,',
+  '   with y the untrimmed value in half output units, u = y + 32768 (unsigned), g = 2 * gain_q14 (the',
+  '   gain in 1/32768) and c = offset_units - gain_q14 (the bias of u taken back); the setter computes',
+  `   g and c. gain_q${GAIN_Q} = gain * 2^${GAIN_Q}, held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5). */`,
+].join('\n');
+
+/** The two-point trim's product of the kernel (an int16 in half output units) and g. */
+function mulHiExpr(value: string, g: string): string {
+  return `THSC_MUL_HI16((uint16_t)((uint16_t)${value} ^ 0x8000u), ${g})`;
+}
+
 function trimExpr(p: ChannelPlan, n: ReturnType<typeof names>, value: string): string {
-  const off = p.trim.runtime ? `(int32_t)${n.trims}.offset` : lit32(p.trim.offsetScaled);
-  if (p.trim.mode === 'offset') return `(int32_t)${value} + ${off}`;
-  // y + floor((y * D + 2^15) / 2^16) + O (calibration.ts): a 16 x 16 -> 32-bit product, whose
-  // high half is the correction (the value fits int16 whenever a two-point trim is designed).
-  return `(int32_t)${value} + THSC_ASR32((int32_t)(int16_t)${value} * ${p.trim.gainD}L + 32768L, 16) + ${off}`;
+  if (p.trim.mode === 'offset') return `(int32_t)${value} + ${p.trim.runtime ? `(int32_t)${n.trims}.offset` : lit32(p.trim.offsetScaled)}`;
+  // floor((u * g + 2^15) / 2^16) + c (calibration.ts): one unsigned 16 x 16 multiply.
+  if (p.trim.runtime) return `(int32_t)${mulHiExpr(value, `${n.trims}.gain`)} + ${n.trims}.add`;
+  return `(int32_t)${mulHiExpr(value, `${p.trim.gainG}u`)} + ${lit32(p.trim.addC)}`;
 }
 
 /** The setter of run-time trims; it bounds them so that every in-range output fits the output type. */
@@ -417,32 +458,48 @@ function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string 
       '}',
     ].join('\n');
   }
-  const g = `gain_q${GAIN_Q}`;
+  const gq = `gain_q${GAIN_Q}`;
+  // The trimmed value rises with the gain's product; its extremes are at the kernel's extremes.
+  const at = (k: number) => `(int32_t)THSC_MUL_HI16(${(k + 32768) >>> 0}u, g) - (int32_t)${gq}`;
   return [
-    `void ${n.setter}(int16_t offset_units, uint16_t ${g})`,
+    `void ${n.setter}(int16_t offset_units, uint16_t ${gq})`,
     '{',
-    '    int32_t d, lo, hi, off;',
-    `    /* The gain is held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5) and stored as D = 4 * gain - 65536; the`,
-    '       offset is held so that no in-range output leaves int16_t (the conversion needs no clamp). */',
-    `    if (${g} < ${GAIN_Q_MIN}u) ${g} = ${GAIN_Q_MIN}u;`,
-    `    else if (${g} > ${GAIN_Q_MAX}u) ${g} = ${GAIN_Q_MAX}u;`,
-    `    d = (int32_t)${g} * 4 - (int32_t)65536L;`,
-    `    lo = (int32_t)(${kmin} + THSC_ASR32(${kmin} * d + 32768L, 16));`,
-    `    hi = (int32_t)(${kmax} + THSC_ASR32(${kmax} * d + 32768L, 16));`,
+    '    int32_t lo, hi, off;',
+    '    uint16_t g;',
+    `    /* The gain is held to ${GAIN_Q_MIN}..${GAIN_Q_MAX} (0.5 .. 1.5) and stored as g = 2 * gain_q${GAIN_Q}; the offset is`,
+    '       held so that no in-range output leaves int16_t (the conversion needs no clamp), and stored',
+    `       with the bias as c = offset - gain_q${GAIN_Q}. */`,
+    `    if (${gq} < ${GAIN_Q_MIN}u) ${gq} = ${GAIN_Q_MIN}u;`,
+    `    else if (${gq} > ${GAIN_Q_MAX}u) ${gq} = ${GAIN_Q_MAX}u;`,
+    `    g = (uint16_t)(${gq} * 2u);`,
+    `    lo = ${at(p.kernelMin)}; /* untrimmed ${kmin} */`,
+    `    hi = ${at(p.kernelMax)}; /* untrimmed ${kmax} */`,
     '    off = offset_units;',
     '    if (off > 32767L - hi) off = 32767L - hi;',
     '    if (off < -32768L - lo) off = -32768L - lo;',
-    `    ${n.trims}.offset = (int16_t)off;`,
-    `    ${n.trims}.gain_d = (int16_t)d;`,
+    `    ${n.trims}.add = off - (int32_t)${gq};`,
+    `    ${n.trims}.gain = g;`,
     '}',
   ].join('\n');
+}
+
+/**
+ * What the emitted table points carry on top of the design's: 2^(F-1) when a 16-bit table kernel
+ * rounds F fraction bits at the end, so the rounding is one arithmetic shift (the kernel is a
+ * point plus or minus a step, so every point moving by a constant moves it by the same).
+ */
+function foldedBias(p: ChannelPlan): number {
+  const d = p.design;
+  if (d.kind !== 'table' || d.shift === 0 || p.fracBits === 0 || p.trim.mode === 'two-point') return 0;
+  return d.entryBits === 16 && d.spanMax <= 32767 ? 2 ** (p.fracBits - 1) : 0;
 }
 
 function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
   const d = p.design;
   if (d.kind === 'table') {
     const t = d.entryBits === 16 ? 'int16_t' : 'int32_t';
-    const vals = d.entries.map((v) => lit(v, d.entryBits));
+    const bias = foldedBias(p);
+    const vals = d.entries.map((v) => lit(v + bias, d.entryBits));
     return `static const ${t} ${n.data}[${vals.length}] THSC_ROM = {\n${rows(vals, 8, '    ')}\n};`;
   }
   const segs = d.coefs.map((c) => `{ ${c.map(lit32).join(', ')} }`);
@@ -461,25 +518,22 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
   const own = header ? [`#include "${header}" /* this channel's types, prototypes and status codes */`] : ['#include <stdint.h>', SHARED_STATUS, declarations(p)];
   const parts: string[] = [headComment(p), ...own, SHARED_IMPL, dataCode(p, n)];
   if (p.trim.runtime) {
-    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int16_t offset; int16_t gain_d;';
-    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${p.trim.offsetScaled}, ${p.trim.gainD}`;
+    const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int32_t add; uint16_t gain;';
+    const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${lit32(p.trim.addC)}, ${p.trim.gainG}u`;
     parts.push(`static struct { ${fields} } ${n.trims} = { ${init} };`);
     parts.push(trimRuntimeSetter(p, n));
   }
   if (p.trim.runtime && p.outBits === 16) {
     // Run-time trims on a 16-bit output: the untrimmed conversion (with its early returns at the
     // range ends) and the trim applied once to whatever it gives; the compiler inlines the first.
-    const inner: ChannelPlan = { ...p, trim: { ...p.trim, mode: 'none', runtime: false }, outAtLow: p.kernelAtLow, outAtHigh: p.kernelAtHigh };
+    // The inner function returns the kernel as the trim takes it (a two-point trim rounds it itself).
+    const inner: ChannelPlan = { ...p, trim: { ...p.trim, mode: 'none', runtime: false }, outAtLow: p.kernelAtLow, outAtHigh: p.kernelAtHigh, fracBits: p.trim.mode === 'two-point' ? 0 : p.fracBits };
     parts.push(conversionFunction(inner, n, kernelCode(inner, n), `static uint8_t ${n.id}_untrimmed(uint16_t code, int16_t *out)`));
-    const corr = p.trim.mode === 'two-point' ? ['    int16_t corr;'] : [];
     const apply =
       p.trim.mode === 'offset'
         ? [`    *out = (int16_t)(kernel + ${n.trims}.offset);`]
-        : [
-            `    corr = THSC_GAIN_CORR(kernel, ${n.trims}.gain_d);`,
-            `    *out = (int16_t)(kernel + corr + ${n.trims}.offset);`,
-          ];
-    parts.push([`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    int16_t kernel;', ...corr, `    uint8_t status = ${n.id}_untrimmed(code, &kernel);`, ...apply, '    return status;', '}'].join('\n'));
+        : [`    *out = (int16_t)(${trimExpr(p, n, 'kernel')});`];
+    parts.push([`uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`, '{', '    int16_t kernel;', `    uint8_t status = ${n.id}_untrimmed(code, &kernel);`, ...apply, '    return status;', '}'].join('\n'));
   } else {
     parts.push(conversionFunction(p, n, k, `uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`));
   }
@@ -494,7 +548,10 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
  */
 function roundFraction(p: ChannelPlan, wide: boolean): string[] {
   const f = p.fracBits;
-  if (f === 0) return [];
+  // A two-point trim takes the kernel with its fraction bit and rounds it itself.
+  if (f === 0 || p.trim.mode === 'two-point') return [];
+  // The table points carry the rounding's 2^(F-1) already (foldedBias).
+  if (foldedBias(p) > 0) return [`    kernel = THSC_ASR16(kernel, ${f}); /* to 1/${p.scale} degC, rounded */`];
   if (wide) return [`    kernel = THSC_ASR32(kernel + ${2 ** (f - 1)}L, ${f}); /* to 1/${p.scale} degC, rounded */`];
   return [`    kernel = (int16_t)((int16_t)((uint16_t)((uint16_t)kernel + ${0x8000 + 2 ** (f - 1)}u) >> ${f}) - ${0x8000 >> f}); /* to 1/${p.scale} degC, rounded */`];
 }
@@ -543,7 +600,7 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
       `    b = (float)${rd}(&${n.data}[idx + 1u]);`,
       `    y = a + (b - a) * ((float)(off & ${2 ** d.shift - 1}u) / ${2 ** d.shift}.0f);`,
     );
-    if (p.fracBits > 0) lines.push(`    y = y / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
+    if (p.fracBits > 0) lines.push(`    y = ${foldedBias(p) > 0 ? `(y - ${foldedBias(p)}.0f)` : 'y'} / ${2 ** p.fracBits}.0f; /* to 1/${p.scale} degC */`);
   } else if (d.kind === 'table') {
     lines.push(`    y = (float)${rd}(&${n.data}[code - ${p.low}u]);`);
   } else {
@@ -554,9 +611,9 @@ function floatVariant(p: ChannelPlan, n: ReturnType<typeof names>): string {
   if (p.trim.mode === 'offset') {
     lines.push(`    y += (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`);
   } else if (p.trim.mode === 'two-point') {
-    lines.push(
-      `    y = y * ((65536.0f + (float)${p.trim.runtime ? `${n.trims}.gain_d` : p.trim.gainD}) / 65536.0f) + (float)${p.trim.runtime ? `${n.trims}.offset` : p.trim.offsetScaled};`,
-    );
+    // gain = g / 32768 and offset = c + g / 2 (calibration.ts).
+    const [g, c] = p.trim.runtime ? [`(float)${n.trims}.gain`, `(float)${n.trims}.add`] : [`${p.trim.gainG}.0f`, `${p.trim.addC}.0f`];
+    lines.push(`    y = y * (${g} / 32768.0f) + (${c} + ${g} / 2.0f);`);
   }
   lines.push(`    *celsius = y / ${p.scale}.0f;`, '    return status;', '}');
   return lines.join('\n');

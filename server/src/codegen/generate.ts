@@ -3,13 +3,14 @@
 // and emits marker-wrapped C blocks.
 
 import { INT16_MAX, INT16_MIN, clamp } from './arith';
-import { GAIN_Q, GAIN_Q_MAX, applyTrim, trimDesign } from './calibration';
+import { GAIN_Q, GAIN_Q_MAX, TWO_POINT_FRAC, applyTrim, trimDesign } from './calibration';
 import { CAUTION_LINES, emitHeaderBody, emitSourceBody, type ChannelPlan } from './emit';
 import { renderBlock } from './markers';
 import { commentLines, uniqueIdentifiers } from './names';
 import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
 import { finish, makeIdeal, rounded, withFraction, type Samples } from './samples';
 import { designTable, tableKernel, type TableDesign } from './table';
+import { prefixProblem } from '../model/code-prefix';
 import {
   CodegenInputError,
   type ConversionInput,
@@ -74,6 +75,8 @@ export function validateInput(c: ConversionInput): void {
       fail(c, field, `must be an integer 0..${top} outside the in-range codes ${c.codeLow}..${c.codeHigh}, got ${v}`);
   }
   if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
+  const ownPrefix = c.prefix === undefined ? undefined : typeof c.prefix === 'string' ? prefixProblem(c.prefix) : 'must be a string';
+  if (ownPrefix) fail(c, 'prefix', ownPrefix);
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
 
@@ -192,13 +195,17 @@ function cyclesEstimate(d: Design, s: Samples): number {
     const narrow = d.entryBits === 16 && d.spanMax <= 32767;
     base = narrow && d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 72 : narrow && d.mulBits === 16 ? 110 : 231;
   }
-  return base + (s.frac > 0 ? 18 : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 70);
+  const twoPoint = s.trim.mode === 'two-point';
+  return base + (s.frac > 0 && !twoPoint ? 2 * s.frac : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
 }
 
 /** Largest number of internal fraction bits tried. */
 const MAX_FRAC = 4;
-/** Bytes of the final rounding step (atmega328p, -Os, linked; bench: 188 against 164 bytes for the junction channel). */
-const ROUND_BYTES = 24;
+/**
+ * Bytes of the final rounding step: one arithmetic shift per fraction bit, its 2^(F-1) carried by
+ * the table points (atmega328p, -Os, linked; bench: 160 against 156 bytes for the junction channel).
+ */
+const ROUND_BYTES = 4;
 
 /** A straight line: two points, one segment over every in-range code (linear interpolation between them). */
 function chooseLine(c: ConversionInput, s0: Samples): Choice {
@@ -223,6 +230,14 @@ function chooseLine(c: ConversionInput, s0: Samples): Choice {
   return { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s), s };
 }
 
+function kernelFitsInt16(d: Design, s: Samples): boolean {
+  for (let code = s.low; code <= s.high; code++) {
+    const k = kernelAt(d, s, code);
+    if (k < INT16_MIN || k > INT16_MAX) return false;
+  }
+  return true;
+}
+
 function choose(c: ConversionInput, s0: Samples): Choice {
   if (c.method === 'line') return chooseLine(c, s0);
   const target = c.errorTarget * c.outputScale;
@@ -232,13 +247,18 @@ function choose(c: ConversionInput, s0: Samples): Choice {
   let bestMissed: Choice | undefined;
   let fmax = 0;
   for (const v of s0.f) fmax = Math.max(fmax, Math.abs(v));
-  for (let frac = 0; frac <= MAX_FRAC; frac++) {
+  // A two-point trim takes the kernel with exactly one fraction bit and rounds it itself
+  // (calibration.ts); other kernels try 0..MAX_FRAC bits and round at the end.
+  const twoPoint = s0.trim.mode === 'two-point';
+  for (let frac = twoPoint ? TWO_POINT_FRAC : 0; frac <= (twoPoint ? TWO_POINT_FRAC : MAX_FRAC); frac++) {
     // Fraction bits only while the kernel stays well inside int16 (then the rounding is 16-bit).
-    if (frac > 0 && (fmax + 2) * 2 ** frac * 1.05 > 32000) break;
+    if (!twoPoint && frac > 0 && (fmax + 2) * 2 ** frac * 1.05 > 32000) break;
     const s = withFraction(s0, frac);
     const consider = (r: { design: Design; maxErr: number } | undefined) => {
       if (!r) return;
-      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) + (frac > 0 ? ROUND_BYTES : 0), s };
+      // The two-point trim biases the kernel into uint16: it must be an int16 at every code.
+      if (twoPoint && !kernelFitsInt16(r.design, s)) return;
+      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) + (frac > 0 && !twoPoint ? ROUND_BYTES : 0), s };
       if (r.maxErr <= target + 1e-9) candidates.push(ch);
       else if (!bestMissed || r.maxErr < bestMissed.maxErr) bestMissed = ch;
     };
@@ -309,7 +329,8 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
     if (seen.has(c.channelName)) fail(c, 'channelName', 'two channels have this name; markers need unique names');
     seen.add(c.channelName);
   }
-  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id) => prefix + id);
+  // A channel's own prefix (the spec's `code_prefix`) before the file-wide one.
+  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id, i) => (inputs[i]!.prefix ?? prefix) + id);
   const plans: ChannelPlan[] = [];
   const samples: Samples[] = [];
   const bytes: number[] = [];
@@ -325,7 +346,7 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
       const k = rounded(s, kernelAt(ch.design, s, code));
       kLo = Math.min(kLo, k);
       kHi = Math.max(kHi, k);
-      const t = s.trim.mode === 'none' ? k : s.trim.mode === 'offset' ? k + s.trim.offsetScaled : k + (k * s.trim.gainD) / 65536 + s.trim.offsetScaled;
+      const t = applyTrim(s.trim, k);
       lo = Math.min(lo, t);
       hi = Math.max(hi, t);
       worst = Math.max(worst, Math.abs(clamp(applyTrim(s.trim, k), s.outMin, s.outMax) - s.ideal[code - s.low]!));
@@ -367,13 +388,8 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
   return { plans, samples, bytes };
 }
 
-/** Why `prefix` cannot start a generated identifier, or undefined when it can. */
-export function prefixProblem(prefix: string): string | undefined {
-  // A leading underscore is reserved to the implementation in many cases (C99 7.1.3).
-  return prefix === '' || /^[A-Za-z][A-Za-z0-9_]{0,31}$/.test(prefix)
-    ? undefined
-    : `must be a C identifier of 1 to 32 letters, digits and underscores starting with a letter (got '${prefix.replace(/[^\x20-\x7e]/g, '?')}')`;
-}
+/** Why `prefix` cannot start a generated identifier (the rule lives with the spec's `code_prefix`). */
+export { prefixProblem };
 
 export function generateC(inputs: ConversionInput[], options: GenerateOptions): GenerateResult {
   const { plans, bytes } = planChannels(inputs, options.prefix);

@@ -31,9 +31,13 @@ export function modelAt(s: Samples, code: number): number {
   return a + (b - a) * (code - s.low - i);
 }
 
-/** A kernel value rounded to the output unit: floor((k + 2^(F-1)) / 2^F), as the C does it. */
+/**
+ * A kernel value rounded to the output unit: floor((k + 2^(F-1)) / 2^F), as the C does it. With a
+ * two-point trim the kernel keeps its fraction bit into the trim, which does the rounding
+ * (calibration.ts): the untrimmed value is then the kernel itself, in 1/2^F output units.
+ */
 export function rounded(s: Samples, kernel: number): number {
-  return s.frac === 0 ? kernel : Math.floor((kernel + 2 ** (s.frac - 1)) / 2 ** s.frac);
+  return s.frac === 0 || s.trim.mode === 'two-point' ? kernel : Math.floor((kernel + 2 ** (s.frac - 1)) / 2 ** s.frac);
 }
 
 /** Final output (rounding, trim, clamp) from a kernel value. */

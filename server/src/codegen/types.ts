@@ -45,6 +45,8 @@ export interface ConversionInput {
   specHash: string;
   /** Free text from the spec, written into a comment after sanitising. */
   note?: string;
+  /** Put before every identifier of this channel (the spec's `code_prefix`); wins over GenerateOptions.prefix. */
+  prefix?: string;
 }
 
 export interface GeneratedChannel {
@@ -122,6 +124,7 @@ const SPEC_WORDS: Record<string, string> = {
   'calibration.gain': 'calibration',
   codeLow: 'ADC code range',
   codeHigh: 'ADC code range',
+  prefix: 'code_prefix',
 };
 
 export class CodegenInputError extends Error {

@@ -11,6 +11,7 @@ import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase } from './types'
 import { noExtra, readPart, trimNumber, readTolerance, spanOf } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
+import { prefixProblem } from './code-prefix';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { BlockReader, type BlockRef, type Resolution } from './block-reader';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
@@ -314,13 +315,14 @@ function readAccuracy(r: BlockReader): number | null {
 
 /** Options of the generated conversion code; undefined when the channel gives none of them. */
 function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
-  if (!['output', 'code_error', 'code_method', 'float_variant', 'optimise'].some((n) => r.terms(n))) return undefined;
+  if (!['output', 'code_error', 'code_method', 'float_variant', 'optimise', 'code_prefix'].some((n) => r.terms(n))) return undefined;
   const unit = r.quantity('output', 0.01);
   const error = r.quantity('code_error', 0.02);
   const method = r.choice('code_method', 'auto') as CodegenSpec['method'];
   const floatVariant = r.choice('float_variant', 'no') === 'yes';
   const optimise = r.terms('optimise') ? (r.choice('optimise', 'balanced') as NonNullable<CodegenSpec['optimise']>) : undefined;
-  if (!unit || !error) return null;
+  const prefix = readCodePrefix(r);
+  if (!unit || !error || prefix === null) return null;
   const at = (name: string) => r.fieldSpans[name] ?? r.ref.node.name.span;
   const scale = Math.round(1 / unit.value);
   if (!(scale >= 1 && scale <= 10000 && Math.abs(1 / unit.value - scale) <= 1e-6 * scale)) {
@@ -331,7 +333,19 @@ function readCodegen(r: BlockReader): CodegenSpec | null | undefined {
     r.sink.report('out-of-domain', r.ref.file, at('code_error'), `code_error must be from half an output unit (${trimNumber(0.5 / scale, 6)} °C) to 100 °C; got ${trimNumber(error.value, 6)} °C`);
     return null;
   }
-  return { outputScale: scale, errorC: error.value, method, floatVariant, ...(optimise ? { optimise } : {}) };
+  return { outputScale: scale, errorC: error.value, method, floatVariant, ...(optimise ? { optimise } : {}), ...(prefix ? { prefix } : {}) };
+}
+
+/** `code_prefix = name`: undefined when absent, null (reported) when unusable. */
+function readCodePrefix(r: BlockReader): string | null | undefined {
+  const terms = r.terms('code_prefix');
+  if (!terms) return undefined;
+  const w = terms[0]!;
+  if (w.kind === 'word' && !noExtra(terms, 1, r.ctx('code_prefix'))) return null;
+  const problem = w.kind === 'word' ? prefixProblem(w.text) : 'must be a C identifier of 1 to 32 letters, digits and underscores starting with a letter';
+  if (problem === undefined && w.kind === 'word') return w.text;
+  r.sink.report('bad-value', r.ref.file, spanOf(terms), `code_prefix ${problem}, such as \`boiler_\``);
+  return null;
 }
 
 function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {

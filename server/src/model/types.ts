@@ -120,6 +120,8 @@ export interface CodegenSpec {
   optimise?: 'size' | 'speed' | 'balanced';
   /** Also emit a float function. */
   floatVariant: boolean;
+  /** `code_prefix`: put before every generated identifier of the channel (absent: none; left out when not written). */
+  prefix?: string;
 }
 
 export interface CalibrationSpec {

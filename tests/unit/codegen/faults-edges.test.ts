@@ -173,7 +173,7 @@ describe.skipIf(COMPILERS.length === 0)('generated C at the edges, every code, s
     const [cold, hot] = p.dir > 0 ? [p.outAtLow, p.outAtHigh] : [p.outAtHigh, p.outAtLow];
     expect(text).toContain(`THSC_CLAMPED_COLD gives exactly ${cold} (`);
     expect(text).toContain(`THSC_CLAMPED_HOT ${hot} (`);
-    expect(text).toMatch(/trimmed_set_trim\(\) writes two 16-bit fields: not atomic on an 8-bit core/);
+    expect(text).toMatch(/trimmed_set_trim\(\) writes two fields \(32 and 16 bits\): not atomic on an 8-bit core/);
     expect(text).toContain('ATOMIC_BLOCK(ATOMIC_RESTORESTATE)');
   });
 });
