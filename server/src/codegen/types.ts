@@ -108,29 +108,4 @@ export interface FoundBlock {
   bodyEnd: number;
 }
 
-/** Thrown by generateC for input outside the documented ranges; `field` names the offending input. */
-/** The spec's words for a generator input: messages speak of the spec, not of the generator's fields. */
-const SPEC_WORDS: Record<string, string> = {
-  celsiusAtCode: 'conversion',
-  bits: 'ADC bits',
-  oversamplingBits: 'oversampling',
-  outputScale: 'output',
-  errorTarget: 'code_error',
-  method: 'code_method',
-  'calibration.mode': 'calibration',
-  'calibration.offset': 'calibration',
-  'calibration.gain': 'calibration',
-  codeLow: 'ADC code range',
-  codeHigh: 'ADC code range',
-};
-
-export class CodegenInputError extends Error {
-  constructor(
-    readonly channel: string,
-    readonly field: string,
-    message: string,
-  ) {
-    super(`channel '${channel}': ${SPEC_WORDS[field] ?? field}: ${message}`);
-    this.name = 'CodegenInputError';
-  }
-}
+export { CodegenInputError } from '../sensors/conversion';
