@@ -10,7 +10,7 @@
 // reference functions, E(T) with the reference junction at 0 degC).
 
 import { CodegenInputError, type CompensatedInput } from '../conversion';
-import { emf, kelvinAtEmf, referenceRange, type TcType } from './its90-stub';
+import { emf, kelvinAtEmf, referenceRange, type TcType } from './its90';
 
 const ZERO_C_K = 273.15;
 
