@@ -145,10 +145,12 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
   const r = c.compensation;
   const top = 2 ** c.bits - 1;
   // u: the finest power-of-two unit of q whose in-range totals fit 0..65535 (the designer's input).
+  // The grid reaches a unit or two beyond both ends of the range, so a total inside the range is
+  // never pinned by the rounding alone.
   let k = 10;
-  while (k > -8 && Math.floor(c.qHigh * 2 ** k) - Math.ceil(c.qLow * 2 ** k) > 65535) k--;
-  const X0 = Math.ceil(c.qLow * 2 ** k);
-  const xHigh = Math.floor(c.qHigh * 2 ** k) - X0;
+  while (k > -8 && Math.ceil(c.qHigh * 2 ** k) - Math.floor(c.qLow * 2 ** k) + 2 > 65535) k--;
+  const X0 = Math.floor(c.qLow * 2 ** k) - 1;
+  const xHigh = Math.ceil(c.qHigh * 2 ** k) + 1 - X0;
   if (xHigh < 1 || xHigh > 65535) fail(c, 'range', `the ${c.qName} span ${c.qHigh - c.qLow} ${c.qUnit} cannot be represented`);
   const u = 2 ** -k;
   const G = Math.max(2, Math.min(4, 13 - k));
@@ -229,7 +231,12 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
   const deltaQ = u / 2 + errEm + errRef;
 
   // --- H: temperature at the total, designed to what the roundings before it leave of the target.
-  const hotModel = (x: number) => c.celsiusAtQ((X0 + x) * u);
+  // Beyond the range the model itself, or held flat where it has no value (past the sensor's tables).
+  const hotModel = (x: number) => {
+    const q = (X0 + x) * u;
+    const t = c.celsiusAtQ(q);
+    return Number.isFinite(t) ? t : c.celsiusAtQ(Math.min(c.qHigh, Math.max(c.qLow, q)));
+  };
   let slopeMax = 0;
   {
     const step = Math.max(1, Math.floor(xHigh / 4096));
@@ -239,9 +246,9 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
       if (Number.isFinite(a) && Number.isFinite(b)) slopeMax = Math.max(slopeMax, Math.abs(b - a) / u);
     }
   }
-  let designTarget = c.errorTarget - Math.max(deltaQ, u) * slopeMax * 1.02;
+  let designTarget = c.errorTarget - deltaQ * slopeMax * 1.02;
   const tooCoarse = () =>
-    fail(c, 'errorTarget', `${c.errorTarget} degC cannot be met: resolving the ${c.qName} to ${u} ${c.qUnit} (with the ADC line and the reference function) costs up to ${(Math.max(deltaQ, u) * slopeMax).toFixed(4)} degC alone, ${(slopeMax * u).toFixed(4)} degC per ${u} ${c.qUnit} where the sensor is least sensitive; raise the target (at least ${(Math.max(deltaQ, u) * slopeMax + 1 / c.outputScale).toFixed(3)} degC) or narrow the range`);
+    fail(c, 'errorTarget', `${c.errorTarget} degC cannot be met: resolving the ${c.qName} to ${u} ${c.qUnit} (with the ADC line and the reference function) costs up to ${(deltaQ * slopeMax).toFixed(4)} degC alone, ${(slopeMax * u).toFixed(4)} degC per ${u} ${c.qUnit} where the sensor is least sensitive; raise the target (at least ${(deltaQ * slopeMax + 1 / c.outputScale).toFixed(3)} degC) or narrow the range`);
   for (let attempt = 0; attempt < 4; attempt++) {
     if (designTarget * c.outputScale < 0.5) tooCoarse();
     const hotInput: ConversionInput = {
@@ -260,8 +267,7 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
     };
     const hotOne = planOne(hotInput, `${ident}_hot`);
     const hs = hotOne.samples;
-    // Claimed error: design error at x plus the slope near x times the bound on x u - q (a full u
-    // at the two ends, where a total just outside the grid is pinned to the end value).
+    // Claimed error: design error at x plus the slope near x times the bound on x u - q.
     const f = (x: number) => hs.ideal[x]! / c.outputScale;
     let claimed = 0;
     let designErr = 0;
@@ -273,8 +279,7 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
       designErr = Math.max(designErr, e);
       let s = 0;
       for (let j = Math.max(0, x - m); j <= Math.min(xHigh - 1, x + m); j++) s = Math.max(s, slopes[j]!);
-      const d = x === 0 || x === xHigh ? Math.max(deltaQ, u) : deltaQ;
-      claimed = Math.max(claimed, e + d * s);
+      claimed = Math.max(claimed, e + deltaQ * s);
     }
     if (claimed <= c.errorTarget + 1e-12) {
       const plan: CompensatedPlan = {

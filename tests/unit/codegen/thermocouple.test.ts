@@ -5,7 +5,7 @@
 // intermediate temperatures. Over every ADC code and cold-junction temperatures every 5 degC:
 // (a) the TypeScript simulation of the C arithmetic, (b) host gcc under -Wconversion and the
 // sanitizers, equal to (a) at every pair, (c) the 8-bit AVR in simavr, equal to (a).
-// Every amplifier and range below is invented for illustration.
+// Every amplifier and range (tests/fixtures/codegen/thermocouples.ts) is invented for illustration.
 
 import { beforeAll, describe, expect, it } from 'vitest';
 import { planCompensated, simulateCompensated, type CompensatedInput, type CompensatedPlan } from '../../../server/src/codegen/compensated';
@@ -14,15 +14,9 @@ import { thermocoupleConversionInput, type TcCodegenInput } from '../../../serve
 import { TC_TYPES, emf, kelvinAtEmf } from '../../../server/src/sensors/thermocouple/its90';
 import { avrRows, hostRows, type Row, type Sweep } from '../../fixtures/codegen/compensated';
 import { hasTool, missingTools } from '../../fixtures/codegen/toolchain';
+import { TC_CASES } from '../../fixtures/codegen/thermocouples';
 
-const base = { outputScale: 100, coldScale: 100, specHash: 'feedc0de', coldChannel: 'board cj' };
-/** Invented channels, one per type family: base metal (K, J, T) and noble metal (S). */
-const CASES: TcCodegenInput[] = [
-  { ...base, channelName: 'kiln K', type: 'K', gain: 60, outputOffsetV: 0.2, adcBits: 12, referenceV: 3.3, hotLowC: 0, hotHighC: 1000, coldLowC: -20, coldHighC: 70, errorTarget: 0.05, faultAbove: 4095 },
-  { ...base, channelName: 'oven J', type: 'J', gain: 60, outputOffsetV: 0.4, adcBits: 12, referenceV: 3.3, hotLowC: -40, hotHighC: 750, coldLowC: -20, coldHighC: 70, errorTarget: 0.05, faultAbove: 4095 },
-  { ...base, channelName: 'freezer T', type: 'T', gain: 100, outputOffsetV: 1.0, adcBits: 12, referenceV: 3.3, hotLowC: -200, hotHighC: 350, coldLowC: -20, coldHighC: 70, errorTarget: 0.05 },
-  { ...base, channelName: 'furnace S', type: 'S', gain: 150, outputOffsetV: 0.1, adcBits: 16, referenceV: 3.3, hotLowC: 0, hotHighC: 1600, coldLowC: 0, coldHighC: 70, errorTarget: 0.1, faultAbove: 65535 },
-];
+const CASES = TC_CASES;
 const available = CASES.filter((c) => (TC_TYPES as readonly string[]).includes(c.type));
 for (const c of CASES) if (!available.includes(c)) console.log(`thermocouple codegen: type ${c.type} skipped, not in the ITS-90 module yet`);
 
