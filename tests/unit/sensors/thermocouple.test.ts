@@ -195,7 +195,7 @@ describe('thermocouple error budget', () => {
 
   it('reports its inputs and cautions in JSON, and the thermocouple summary in completion of sensor', () => {
     const a = analyseText(spec(HOT));
-    const j = channelJson(a.channels.find((r) => r.channel.name === 'hot')!) as { inputs: { thermocouple: Record<string, unknown> } };
+    const j = channelJson(a.channels.find((r) => r.channel.name === 'hot')!) as unknown as { inputs: { thermocouple: Record<string, unknown> } };
     expect(j.inputs.thermocouple).toMatchObject({ type: 'K', toleranceClass: 2, coldJunctionChannel: 'board', nominalColdJunctionK: K(25), gain: 50, gainTolerance: 0.002 });
     expect(codesOf(a).filter((c) => c.startsWith('tc-'))).toEqual([]);
   });

@@ -8,8 +8,8 @@
 import type { CheckContext } from '../../checks/context';
 import { fieldSpan } from '../../checks/context';
 import { fmtC, fmtV, formatSI, trimNumber } from '../../checks/format';
-import { seebeck } from './its90-stub';
-import { classRange } from './tolerance-stub';
+import { seebeck } from './its90';
+import { classRange } from './tolerance';
 import { detectAmps, detectVolts } from './model';
 import { tcChannel, type ThermocoupleDef } from './types';
 

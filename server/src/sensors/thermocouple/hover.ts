@@ -4,8 +4,8 @@
 import type { Analysis } from '../../analysis/result';
 import type { ChannelResult } from '../../analysis/types';
 import * as f from '../../analysis/figures';
-import { emf, referenceRange, seebeck } from './its90-stub';
-import { classRange } from './tolerance-stub';
+import { emf, referenceRange, seebeck } from './its90';
+import { classRange } from './tolerance';
 import { boardSpanK, classTolK, coldJunctionErrorK, detectAmps, detectVolts, nominalColdJunctionK } from './model';
 import { coldJunctionChannel, tcChannel, type ThermocoupleDef } from './types';
 

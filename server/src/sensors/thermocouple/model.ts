@@ -19,8 +19,8 @@ import type { ChannelDef } from '../../model/types';
 import type { ElementContributor } from '../kind';
 import { trimNumber, formatSI } from '../../model/read-value';
 import { channelBudget } from '../../budget/budget';
-import { emf, kelvinAtEmf, referenceRange, seebeck } from './its90-stub';
-import { classRange, toleranceK } from './tolerance-stub';
+import { emf, kelvinAtEmf, referenceRange, seebeck } from './its90';
+import { classRange, toleranceK } from './tolerance';
 import { coldJunctionChannel, tcChannel, type ThermocoupleDef } from './types';
 
 const ZERO_C = 273.15;

@@ -8,8 +8,8 @@ import type { KindChannelReading } from '../kind';
 import { formatSI, noExtra, readPart, readRange, spanOf, trimNumber } from '../../model/read-value';
 import { boundTerm } from '../../model/read-budget-spec';
 import { shown } from '../../diagnostics/shown';
-import { referenceRange, type TcType } from './its90-stub';
-import type { TcClass } from './tolerance-stub';
+import { referenceRange, type TcType } from './its90';
+import type { TcClass } from './tolerance';
 import { DOMAINS } from './block';
 import { COLD_JUNCTION, type TcChannel, type ThermocoupleDef } from './types';
 

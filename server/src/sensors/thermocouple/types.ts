@@ -12,8 +12,8 @@
 // the loop (model.ts `detectVolts`). `nominalColdJunctionK(c)` (model.ts) is the cold-junction
 // temperature the sweep, figures and budget use.
 import type { ChannelDef, SensorDefBase } from '../../model/types';
-import type { TcType } from './its90-stub';
-import type { TcClass } from './tolerance-stub';
+import type { TcType } from './its90';
+import type { TcClass } from './tolerance';
 
 /** A thermocouple of one of the IEC 60584-1 letter types. */
 export interface ThermocoupleDef extends SensorDefBase {
