@@ -20,7 +20,8 @@ import type { SensedPoint } from '../analysis/sense';
 import type { CheckContext } from '../checks/context';
 import type { FitResult } from '../calibration/fit';
 import type { BlockReader } from '../model/resolve';
-import type { BlockSpec } from '../model/schema';
+import type { BlockSpec, FieldSpec } from '../model/schema';
+import type { Contributor } from '../analysis/budget-types';
 import type { BiasDef, ChannelDef, DefBase, SensorDef } from '../model/types';
 import type { FaultVolts } from './faults';
 
@@ -64,6 +65,15 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   biasProblem(s: S, bias: BiasDef): string | null;
   /** Why the channel's range is beyond what the model handles (reported at the range), or null. */
   rangeProblem?(s: S, lowK: number, highK: number): string | null;
+  /** Channel fields only this kind takes, added to the channel block (model/schema.ts); their names are in `channelFields` too. */
+  readonly channelBlockFields?: readonly FieldSpec[];
+  /**
+   * Reads the kind's own channel fields (model/read-sensors.ts `readChannelExtras`): the object
+   * becomes `ChannelDef.kindFields`; null when they have errors (reported with precise ranges).
+   * `at.channel(field)` reads a field naming another channel of the spec (model/resolve.ts: cycles
+   * refused); what it gives is kept in `ChannelDef.linked` under the field's name.
+   */
+  readChannel?(r: BlockReader, at: KindChannelReading<S>): object | null;
 
   // ---- the model (analysis/)
   /** What the ADC sees at one temperature: the forward model of the whole channel. */
@@ -78,6 +88,10 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   contributors(s: S): ElementContributor[];
   /** The element with drawn relative errors by contributor id (absent ids stay nominal). */
   perturb(s: S, draws: ReadonlyMap<string, number>): S;
+  /** Board contributors of the kind's own channel fields (ids unique to the kind; budget/contributors.ts). */
+  channelContributors?(c: ChannelDef): Contributor[];
+  /** The channel with those contributors' draws (d = draw × amount) applied (budget/contributors.ts `perturb`). */
+  perturbChannel?(c: ChannelDef, draws: ReadonlyMap<string, number>): ChannelDef;
   /** Element-only error for the comparison when the budget is not available; absent: none. */
   sensorSpread?(c: ChannelDef): SensorSpread | null;
   /** Largest tolerance of the element's stated class over the range, K, for the comparison. */
@@ -101,4 +115,15 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   channelHoverLines?(r: ChannelResult): string[];
   /** One line for completion of a `sensor = ` value. */
   summary(s: S): string;
+  /** Safety cautions of the kind, shown in its hovers and under reports of its channels (report/caution.ts). */
+  readonly cautions?: readonly string[];
+}
+
+/** What a kind's `readChannel` is given besides the channel block's reader. */
+export interface KindChannelReading<S extends SensorDef = SensorDef> {
+  sensor: S;
+  bias: BiasDef | null;
+  range: { low: number; high: number } | null;
+  /** The channel a field names, read first; null (reported) when it is missing, wrong or in a cycle. */
+  channel(field: string): ChannelDef | null;
 }
