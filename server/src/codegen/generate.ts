@@ -63,6 +63,7 @@ export function generateC(inputs: readonly AnyConversionInput[], options: Genera
         maxErrorC: p.maxErrorC,
         method: d.kind,
         entries: d.kind === 'table' ? d.entries.length : d.coefs.length,
+        rangeText: `codes ${p.codeLow}..${p.codeHigh} and ${p.ref.param} ${p.ref.low}..${p.ref.high}`,
       };
     }
     const { plan: p, bytes } = planOne(c, ids[i]!);
@@ -73,6 +74,7 @@ export function generateC(inputs: readonly AnyConversionInput[], options: Genera
       maxErrorC: p.maxErrorC,
       method: p.design.kind,
       entries: p.design.kind === 'table' ? p.design.entries.length : p.design.coefs.length,
+      rangeText: `codes ${p.low}..${p.high}`,
     };
   });
   const blocks = channels.map((ch, i) => renderBlock({ channel: inputs[i]!.channelName, hash: inputs[i]!.specHash, text: ch.code }));

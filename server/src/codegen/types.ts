@@ -60,6 +60,8 @@ export interface GeneratedChannel {
   method: string;
   /** Table entries (table) or segments (polynomial). */
   entries: number;
+  /** The in-range inputs in words: "codes 36..3379" (and the second input's range for a two-input conversion). */
+  rangeText: string;
 }
 
 export interface GenerateOptions {

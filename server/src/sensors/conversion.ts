@@ -3,6 +3,22 @@
 // for input outside the documented ranges. It lives below the generator's layer so that a kind's
 // own module (sensors/<kind>/codegen.ts) can build the input without importing the generator.
 
+import type { ChannelDef } from '../model/types';
+
+/** What a kind's `conversionInput` is given besides the channel (codegen/channel-input.ts fills it). */
+export interface ConversionContext {
+  /** The channel's spec hash, for the block markers. */
+  specHash: string;
+  /** Notes the generator writes into the header comment (the spec file, the channel). */
+  notes: string[];
+  /**
+   * Any channel's code options as the generator resolves them (the kind asks for its own and for
+   * the channels it reads, such as its cold-junction channel). `errorC` is undefined when the spec
+   * states none: the kind then picks its own default.
+   */
+  options(c: ChannelDef): { outputScale: number; errorC: number | undefined; method: 'auto' | 'table' | 'polynomial'; optimise: 'size' | 'speed' | 'balanced'; floatVariant: boolean };
+}
+
 /**
  * A two-input conversion: the sensor's signal q is linear in the ADC code, a second integer input
  * (a reference reading, e.g. the temperature another channel's generated function returns) adds

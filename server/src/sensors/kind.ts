@@ -24,6 +24,7 @@ import type { BlockSpec, FieldSpec } from '../model/schema';
 import type { Contributor } from '../analysis/budget-types';
 import type { BiasDef, ChannelDef, DefBase, SensorDef } from '../model/types';
 import type { FaultVolts } from './faults';
+import type { CompensatedInput, ConversionContext } from './conversion';
 
 /** A board-to-board spread of the element, as an error-budget contributor (relative half-width). */
 export interface ElementContributor {
@@ -115,6 +116,14 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   channelHoverLines?(r: ChannelResult): string[];
   /** One line for completion of a `sensor = ` value. */
   summary(s: S): string;
+  // ---- generated code (codegen/channel-input.ts)
+  /**
+   * The generator's input for a channel whose conversion takes a second input besides the ADC
+   * code (a thermocouple's cold-junction temperature from another channel's generated function;
+   * codegen/compensated.ts designs it); absent: a function of the code alone. Throws
+   * CodegenInputError (sensors/conversion.ts) naming the field and the range it takes.
+   */
+  conversionInput?(r: ChannelResult, ctx: ConversionContext): CompensatedInput;
   /** Safety cautions of the kind, shown in its hovers and under reports of its channels (report/caution.ts). */
   readonly cautions?: readonly string[];
 }

@@ -9,8 +9,12 @@
 // (the law of intermediate temperatures; NIST Monograph 175 (1993), the ITS-90 thermocouple
 // reference functions, E(T) with the reference junction at 0 degC).
 
-import { CodegenInputError, type CompensatedInput } from '../conversion';
+import type { ChannelResult } from '../../analysis/types';
+import { CodegenInputError, type CompensatedInput, type ConversionContext } from '../conversion';
+import { faultLimits, sensorFaults } from '../faults';
 import { emf, kelvinAtEmf, referenceRange, type TcType } from './its90';
+import { detectVolts } from './model';
+import { coldJunctionChannel, type ThermocoupleDef } from './types';
 
 const ZERO_C_K = 273.15;
 
@@ -111,4 +115,68 @@ export function thermocoupleConversionInput(t: TcCodegenInput): CompensatedInput
     specHash: t.specHash,
     ...(t.note !== undefined ? { note: t.note } : {}),
   };
+}
+
+/** Default code error of a thermocouple channel when the spec states none, degC: a rule of ours (well under the tightest IEC 60584-1 class, 0.5 degC). */
+export const TC_CODE_ERROR_C = 0.1;
+
+/**
+ * The kind's `conversionInput`: a thermocouple channel of the spec as the two-input generator's
+ * input. Removes the amplifier's nominal gain and output offset and the open-detection offset the
+ * model adds (model.ts); the cold-junction range and output unit are its channel's own.
+ */
+export function tcConversionInput(r: ChannelResult, ctx: ConversionContext): CompensatedInput {
+  const c = r.channel;
+  const s = c.sensor as ThermocoupleDef;
+  const cj = coldJunctionChannel(c);
+  const own = ctx.options(c);
+  const cold = ctx.options(cj);
+  if (c.oversamplingBits) throw new CodegenInputError(c.name, 'oversamplingBits', 'the thermocouple conversion takes one ADC reading; oversampling is not generated for it yet');
+  const gain = c.amplifier?.gain ?? 1;
+  const offsetV = (c.amplifier?.offsetVolts ?? 0) + gain * detectVolts(c);
+  const coldLowC = cj.lowK - ZERO_C_K;
+  const coldHighC = cj.highK - ZERO_C_K;
+  // The cold-junction function pins its output near its range ends (within its code error): a
+  // margin of that error keeps an in-range reading from being taken as out of range.
+  const margin = (cold.errorC ?? 0.02) + 1 / cold.outputScale;
+  // Its C type: int16_t while its outputs fit (codegen/design.ts picks the same way, with room for a two-point trim).
+  const trimFactor = cj.calibration?.mode === 'two-point' ? 2 : 1;
+  const coldMax = Math.max(Math.abs(coldLowC), Math.abs(coldHighC)) + 60;
+  const coldBits: 16 | 32 = coldMax * cold.outputScale * trimFactor + 2 <= 32767 ? 16 : 32;
+  // Codes a working thermocouple can give: hot range against the cold-junction range.
+  const lsb = c.adc.reference.value / 2 ** c.adc.bits;
+  const volts = (hotK: number, coldK: number) => gain * (emf(s.params.type, hotK) - emf(s.params.type, coldK)) + offsetV;
+  const code = (v: number) => Math.min(2 ** c.adc.bits - 1, Math.max(0, Math.floor(v / lsb)));
+  const codeMin = code(volts(c.lowK, cj.highK));
+  const codeMax = code(volts(c.highK, cj.lowK));
+  const faults = sensorFaults(c, codeMin, codeMax);
+  const limits = faultLimits(faults, Math.max(1, codeMin), Math.min(2 ** c.adc.bits - 2, codeMax), 0);
+  const notes = [
+    ...ctx.notes,
+    ...faults.map((f) => `${f.what[0]!.toUpperCase()}${f.what.slice(1)}: ADC code ${f.code}${f.distinct ? '' : ' (a temperature of the range gives it too: cannot be told apart)'}; assumes ${f.assumption}.`),
+    ...(own.floatVariant ? ['No float variant is generated for a thermocouple channel.'] : []),
+    ...(c.calibration && c.calibration.mode !== 'none' ? ['The board calibration of the spec is not applied by this code: trim the result in your firmware.'] : []),
+  ];
+  return thermocoupleConversionInput({
+    channelName: c.name,
+    type: s.params.type,
+    gain,
+    outputOffsetV: offsetV,
+    adcBits: c.adc.bits,
+    referenceV: c.adc.reference.value,
+    hotLowC: c.lowK - ZERO_C_K,
+    hotHighC: c.highK - ZERO_C_K,
+    coldLowC: coldLowC - margin,
+    coldHighC: coldHighC + margin,
+    coldScale: cold.outputScale,
+    coldBits,
+    coldChannel: cj.name,
+    outputScale: own.outputScale,
+    errorTarget: own.errorC ?? TC_CODE_ERROR_C,
+    method: own.method,
+    optimise: own.optimise,
+    ...limits,
+    specHash: ctx.specHash,
+    note: notes.join(' '),
+  });
 }

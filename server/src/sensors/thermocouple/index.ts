@@ -8,6 +8,7 @@ import { tcFaultVolts } from './faults';
 import { checkClassRange, checkOpenOffset, checkSwing } from './checks';
 import { TC_CAUTIONS, tcChannelLines, tcHover } from './hover';
 import type { ThermocoupleDef } from './types';
+import { tcConversionInput } from './codegen';
 
 export const thermocouple: SensorKind<ThermocoupleDef> = {
   name: 'thermocouple',
@@ -36,4 +37,5 @@ export const thermocouple: SensorKind<ThermocoupleDef> = {
   channelHoverLines: tcChannelLines,
   summary: (s) => `type ${s.params.type}${s.toleranceClass ? `, class ${s.toleranceClass}` : ''}`,
   cautions: TC_CAUTIONS,
+  conversionInput: tcConversionInput,
 };
