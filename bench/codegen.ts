@@ -12,6 +12,10 @@ import { junctionChannel, loadOperatingPoint } from '../tests/fixtures/codegen/c
 import { compareOnTargets, formatComparison } from '../tests/fixtures/codegen/measure';
 import { toolVersion } from '../tests/fixtures/codegen/toolchain';
 import type { ConversionInput } from '../server/src/codegen/types';
+import { planCompensated, simulateCompensated } from '../server/src/codegen/compensated';
+import { thermocoupleConversionInput } from '../server/src/sensors/thermocouple/codegen';
+import { avrRows } from '../tests/fixtures/codegen/compensated';
+import { TC_CASES } from '../tests/fixtures/codegen/thermocouples';
 
 export async function benchCodegen(): Promise<void> {
   console.log('== codegen: 12-bit junction channel, -40..125 degC (invented parameters: IS 1e-14 A, N 1, BF 200, EG 1.11 eV, XTI 3, TNOM 300.15 K, RS 0; 50 uA; 2.5 V reference)');
@@ -36,6 +40,7 @@ export async function benchCodegen(): Promise<void> {
   console.log(`   (measured in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
   benchVariants(junctionChannel(op));
   benchSamples();
+  benchThermocouples();
 }
 
 /** The same channel at 0.01 °C and 0.1 °C output, and with run-time trims: bytes and cycles. */
@@ -105,4 +110,30 @@ if (require.main === module) {
     console.error(e);
     process.exitCode = 1;
   });
+}
+
+/** Thermocouple channels (code + cold junction -> hot junction): bytes and cycles on the 8-bit target. */
+export function benchThermocouples(): void {
+  console.log('== codegen: thermocouple channels, ADC code + cold-junction temperature -> hot junction (invented channels of tests/fixtures/codegen/thermocouples.ts)');
+  console.log('   channel (type, hot range, ADC)            cold part / hot part         claimed err degC (target)   AVR bytes   AVR cycles mean/max   AVR != TS');
+  const t0 = Date.now();
+  for (const t of TC_CASES) {
+    const label = `${t.channelName} (${t.type}, ${t.hotLowC}..${t.hotHighC} degC, ${t.adcBits}-bit)`.padEnd(42);
+    try {
+      const input = thermocoupleConversionInput(t);
+      const p = planCompensated(input, t.channelName.replace(/\W+/g, '_').toLowerCase());
+      const size = (d: typeof p.hot.plan.design) => `${d.kind} (${d.kind === 'table' ? d.entries.length : d.coefs.length})`;
+      const top = 2 ** t.adcBits - 1;
+      // 12-bit: every code at the middle cold-junction value; 16-bit: every 61st code.
+      const { rows, bytes } = avrRows(input, { plan: p, refs: [Math.round((p.ref.low + p.ref.high) / 2)], stride: t.adcBits > 12 ? 61 : 1 });
+      const cyc = rows.filter((r) => r.status === 0).map((r) => r.cycles!);
+      const mismatches = rows.filter((r) => { const e = simulateCompensated(p, r.code, r.ref); return e.status !== r.status || e.value !== r.value; }).length;
+      const mean = cyc.reduce((a, b) => a + b, 0) / Math.max(1, cyc.length);
+      console.log(`   ${label} ${`${size(p.ref.plan.design)} / ${size(p.hot.plan.design)}`.padEnd(28)} ${`${p.maxErrorC.toFixed(4)} (${t.errorTarget})`.padStart(26)}   ${String(bytes).padStart(9)}   ${`${mean.toFixed(1)}/${Math.max(...cyc)}`.padStart(19)}   ${String(mismatches).padStart(9)}${top > 4095 ? '  (every 61st code)' : ''}`);
+    } catch (e) {
+      console.log(`   ${label} not measured: ${(e as Error).message.split('\n')[0]}`);
+    }
+  }
+  console.log('   AVR bytes = linked .text+.data with one call minus without (library routines included); cycles: simavr, atmega328p, -Os, in-range calls.');
+  console.log(`   (measured in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
 }

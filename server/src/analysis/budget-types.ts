@@ -11,7 +11,7 @@ export interface CalSetting {
 
 export interface Contributor {
   /**
-   * Stable id: IS, N, BF, element-*, bias, bias2, supply, reference, offset, gain, quantisation, inl,
+   * Stable id: IS, N, BF, element-*, a kind's channel contributors (tc-*), bias, bias2, supply, reference, offset, gain, amp-gain, quantisation, inl,
    * and for the calibration readings cal-quantisation, cal-inl, cal-reference.
    */
   id: string;

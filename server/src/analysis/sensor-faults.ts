@@ -61,3 +61,27 @@ export function describeFaults(faults: readonly SensorFault[]): string[] {
   return faults.map((f) =>
     `${f.what}: code ${f.code}${f.distinct ? '' : ' — a temperature of the range reads the same code, so the fault cannot be seen'} (assumes ${f.assumption})`);
 }
+
+/**
+ * Fault tests of the conversion: a value is taken as a fault when it is at least as near a fault's
+ * code as the range end on that side (common practice, no source: the nearer explanation wins, and
+ * a tie goes to the safe side). A fault whose code is in range is left out; one on a saturated end
+ * code that the range also reaches is kept, the safe side (fault-in-range warns of both).
+ */
+export function faultLimits(faults: readonly SensorFault[], codeLow: number, codeHigh: number, n: number): { faultBelow?: number; faultAbove?: number } {
+  let faultBelow: number | undefined;
+  let faultAbove: number | undefined;
+  const w = 2 ** n;
+  for (const f of faults) {
+    const first = f.code * w;
+    const last = (f.code + 1) * w - 1;
+    if (first > codeHigh) {
+      const t = Math.max(codeHigh + 1, Math.ceil((codeHigh + first) / 2));
+      faultAbove = faultAbove === undefined ? t : Math.min(faultAbove, t);
+    } else if (last < codeLow) {
+      const t = Math.min(codeLow - 1, Math.floor((codeLow + last) / 2));
+      faultBelow = faultBelow === undefined ? t : Math.max(faultBelow, t);
+    }
+  }
+  return { ...(faultBelow !== undefined ? { faultBelow } : {}), ...(faultAbove !== undefined ? { faultAbove } : {}) };
+}

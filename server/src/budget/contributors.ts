@@ -15,7 +15,11 @@ export function contributorsOf(c: ChannelDef, effectiveOversamplingBits: number)
   };
   const two = c.secondBias !== undefined;
   // The sensor's own spreads, as its kind states them (sensors/<kind>/).
-  for (const e of kindOf(c.sensor).contributors(c.sensor)) add(e.id, e.label, 'board', e.amount, 'relative');
+  const kind = kindOf(c.sensor);
+  for (const e of kind.contributors(c.sensor)) add(e.id, e.label, 'board', e.amount, 'relative');
+  // The kind's own channel fields (a thermocouple's amplifier offset, cold junction), as it states them.
+  for (const e of kind.channelContributors?.(c) ?? []) add(e.id, e.label, e.scope, e.amount, e.unit);
+  if (c.amplifier?.gainTolerance) add('amp-gain', `amplifier gain ${pct(c.amplifier.gainTolerance)}`, 'board', c.amplifier.gainTolerance, 'relative');
   const biasTol = (b: BiasDef) => (b.kind === 'current' ? b.amps.tolerance : b.ohms.tolerance);
   const biasWord = (b: BiasDef) => (b.kind === 'current' ? 'bias current' : 'bias resistor');
   add('bias', `${biasWord(c.bias)}${two ? ' 1' : ''} ${pct(biasTol(c.bias))}`, 'board', biasTol(c.bias), 'relative');
@@ -54,6 +58,7 @@ export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number
   let b1 = 1;
   let b2 = 1;
   let supply = 1;
+  let ampGain = 1;
   const adc: BoardAdc = { referenceScale: 1, gain: 1, offsetLsb: 0 };
   /** Draws of the sensor's own contributors, by id (its kind perturbs the sensor with them). */
   const element = new Map<string, number>();
@@ -67,15 +72,18 @@ export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number
       case 'reference': adc.referenceScale = 1 + d; break;
       case 'gain': adc.gain = 1 + d; break;
       case 'offset': adc.offsetLsb = d; break;
+      case 'amp-gain': ampGain = 1 + d; break;
       default: element.set(k.id, d);
     }
   }
   const s = c.sensor;
+  const kind = kindOf(s);
   const channel: ChannelDef = {
     ...c,
-    sensor: kindOf(s).perturb(s, element),
+    sensor: kind.perturb(s, element),
     bias: scaleBias(c.bias, b1, supply),
     ...(c.secondBias ? { secondBias: scaleBias(c.secondBias, b2, supply) } : {}),
+    ...(c.amplifier && ampGain !== 1 ? { amplifier: { ...c.amplifier, gain: c.amplifier.gain * ampGain } } : {}),
   };
-  return { channel, adc };
+  return { channel: kind.perturbChannel ? kind.perturbChannel(channel, element) : channel, adc };
 }

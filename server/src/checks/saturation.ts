@@ -2,7 +2,7 @@
 // voltage stays inside 0 .. reference (clip-high and clip-low cover the voltage leaving it). Code 0
 // stands for every voltage below 1 LSB and the full-scale code for every voltage above
 // (2^bits - 1) LSB, so the temperatures beyond read alike and the generated code calls them out
-// of range (sensors/faults.ts usableCodes).
+// of range (analysis/sensor-faults.ts usableCodes).
 import { kelvinAtVolts } from '../analysis/inverse';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import type { CheckContext } from './context';

@@ -1,5 +1,5 @@
 // fault-in-range: an open or shorted sensor gives a code inside the channel's usable range, so the
-// firmware cannot tell the fault from a temperature (sensors/faults.ts computes the codes).
+// firmware cannot tell the fault from a temperature (analysis/sensor-faults.ts computes the codes).
 import { sensorFaults } from '../analysis/sensor-faults';
 import type { CheckContext } from './context';
 import { fieldSpan } from './context';

@@ -14,7 +14,10 @@ import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { ChannelDef } from '../model/types';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { sensorFaults, usableCodes, type SensorFault } from '../analysis/sensor-faults';
+import { faultLimits, sensorFaults, usableCodes, type SensorFault } from '../analysis/sensor-faults';
+export { faultLimits } from '../analysis/sensor-faults';
+import { kindOf } from '../sensors/registry';
+import type { CompensatedInput } from '../sensors/conversion';
 import { CodegenInputError, type ConversionInput } from './types';
 
 /** Defaults when the channel gives no code options: hundredths of a degC, 0.02 degC, auto. */
@@ -96,36 +99,41 @@ export function generatableResults(channels: readonly ChannelResult[], diagnosti
   return channels.filter((r) => conversionBits(r.channel) <= MAX_CODE_BITS && channelError(r.channel, diagnostics) === undefined);
 }
 
-/**
- * Fault tests of the conversion: a value is taken as a fault when it is at least as near a fault's
- * code as the range end on that side (common practice, no source: the nearer explanation wins, and
- * a tie goes to the safe side). A fault whose code is in range is left out; one on a saturated end
- * code that the range also reaches is kept, the safe side (fault-in-range warns of both).
- */
-export function faultLimits(faults: readonly SensorFault[], codeLow: number, codeHigh: number, n: number): { faultBelow?: number; faultAbove?: number } {
-  let faultBelow: number | undefined;
-  let faultAbove: number | undefined;
-  const w = 2 ** n;
-  for (const f of faults) {
-    const first = f.code * w;
-    const last = (f.code + 1) * w - 1;
-    if (first > codeHigh) {
-      const t = Math.max(codeHigh + 1, Math.ceil((codeHigh + first) / 2));
-      faultAbove = faultAbove === undefined ? t : Math.min(faultAbove, t);
-    } else if (last < codeLow) {
-      const t = Math.min(codeLow - 1, Math.floor((codeLow + last) / 2));
-      faultBelow = faultBelow === undefined ? t : Math.max(faultBelow, t);
-    }
-  }
-  return { ...(faultBelow !== undefined ? { faultBelow } : {}), ...(faultAbove !== undefined ? { faultAbove } : {}) };
-}
-
 function faultNotes(faults: readonly SensorFault[]): string[] {
   return faults.map((f) => `${f.what[0]!.toUpperCase()}${f.what.slice(1)}: ADC code ${f.code}${f.distinct ? '' : ' (a temperature of the range gives it too: cannot be told apart)'}; assumes ${f.assumption}.`);
 }
 
+/** A channel's code options as the generator resolves them; `errorC` undefined when the spec states none. */
+function codeOptions(c: ChannelDef) {
+  const o = c.codegen;
+  return {
+    outputScale: o?.outputScale ?? CODE_DEFAULTS.outputScale,
+    errorC: o?.errorC,
+    method: o?.method ?? CODE_DEFAULTS.method,
+    optimise: o?.optimise ?? 'balanced',
+    floatVariant: o?.floatVariant ?? CODE_DEFAULTS.floatVariant,
+  } as const;
+}
+
+/**
+ * The generator input of any channel (what `gen`, the code action and the comparison hand to
+ * generateC): a function of the ADC code (conversionInput), or, for a kind whose conversion takes a
+ * second input (its `conversionInput` member, e.g. a thermocouple's cold-junction temperature), a
+ * two-input conversion (codegen/compensated.ts).
+ */
+export function generatorInput(r: ChannelResult, specPath: string): ConversionInput | CompensatedInput {
+  const c = r.channel;
+  const kind = kindOf(c.sensor);
+  if (kind.conversionInput) {
+    return kind.conversionInput(r, { specHash: channelSpecHash(c), notes: [`Channel ${c.name} of ${path.basename(specPath)}.`], options: codeOptions });
+  }
+  return conversionInput(r, specPath);
+}
+
+/** A channel converted from its ADC code alone; a channel of a two-input kind is refused (generatorInput takes it). */
 export function conversionInput(r: ChannelResult, specPath: string): ConversionInput {
   const c = r.channel;
+  if (kindOf(c.sensor).conversionInput) throw new CodegenInputError(c.name, 'sensor', `${kindOf(c.sensor).a} channel converts the ADC code with a second input; generate it with the others (generatorInput)`);
   const opts = c.codegen ?? CODE_DEFAULTS;
   // Measured points: convert with the model fitted to them (the nominal model when none).
   const model = fittedChannel(c);

@@ -45,7 +45,7 @@ export interface ChannelPlan {
   note?: string;
 }
 
-const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
+export const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
 #define THSC_STATUS_CODES 1
 #define THSC_IN_RANGE      0u /* code inside the designed range */
 #define THSC_CLAMPED_COLD  1u /* colder than the range: output pinned to the coldest end */
@@ -55,7 +55,7 @@ const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
 #define THSC_SENSOR_FAULT  3u /* open or shorted sensor or lead: not a temperature; make the load safe */
 #endif`;
 
-const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
+export const SHARED_IMPL = `#ifndef THSC_IMPL_HELPERS
 #define THSC_IMPL_HELPERS 1
 #ifdef __AVR__
 #include <avr/pgmspace.h> /* tables stay in flash on 8-bit AVR */
@@ -158,7 +158,7 @@ export const CAUTION_LINES = [
   'applicable safety standards, local codes and licensed engineering practice.',
 ];
 
-function lit32(v: number): string {
+export function lit32(v: number): string {
   return v === -2147483648 ? '(-2147483647L - 1)' : `${v}L`;
 }
 
@@ -172,7 +172,7 @@ function rows(values: string[], perRow: number, indent: string): string {
   return out.join(',\n');
 }
 
-function names(p: ChannelPlan) {
+export function names(p: ChannelPlan) {
   const id = p.ident;
   return {
     id,
@@ -346,8 +346,12 @@ function clampCode(p: ChannelPlan, early = false): string[] {
   return out;
 }
 
-/** Statements computing `kernel` (type int16_t or int32_t named by the return) from `code`. */
-function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string[]; body: string[]; wide: boolean } {
+/**
+ * Statements computing `kernel` (type int16_t or int32_t named by the return) from the uint16_t
+ * variable `code` (or the one named by `input`: the kernel is a function of any integer input over
+ * a range, not only of an ADC code).
+ */
+export function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>, input = 'code'): { decl: string[]; body: string[]; wide: boolean } {
   const d = p.design;
   if (d.kind === 'polynomial') {
     const h = 2 ** d.shift;
@@ -355,7 +359,7 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
       wide: true,
       decl: ['    uint16_t off, idx;', '    int32_t x, c1, c2, acc, kernel;'],
       body: [
-        `    off = (uint16_t)(code - ${p.low}u);`,
+        `    off = (uint16_t)(${input} - ${p.low}u);`,
         `    idx = (uint16_t)(off >> ${d.shift});`,
         `    x = (int32_t)(off & ${h - 1}u);`,
         `    c1 = THSC_RD32(&${n.data}[idx][1]);`,
@@ -371,7 +375,7 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
     return {
       wide,
       decl: [`    ${wide ? 'int32_t' : 'int16_t'} kernel;`],
-      body: [`    kernel = ${rd}(&${n.data}[code - ${p.low}u]);`],
+      body: [`    kernel = ${rd}(&${n.data}[${input} - ${p.low}u]);`],
     };
   }
   const h = 2 ** d.shift;
@@ -388,7 +392,7 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
       wide,
       decl: ['    uint16_t w, span, step;', '    uint8_t f;', `    const int16_t *p;`, '    int16_t a, kernel;'],
       body: [
-        up > 0 ? `    w = (uint16_t)(code << ${up});` : '    w = code;',
+        up > 0 ? `    w = (uint16_t)(${input} << ${up});` : `    w = ${input};`,
         '    f = (uint8_t)(w & 0xFFu);',
         `    p = &${n.data}[(w >> 8)${first > 0 ? ` - ${first}u` : ''}];`,
         `    a = ${rd}(p);`,
@@ -409,7 +413,7 @@ function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>): { decl: string
     wide,
     decl: ['    uint16_t off, idx, frac;', `    ${U} span, step;`, `    ${S} a, kernel;`],
     body: [
-      `    off = (uint16_t)(code - ${d.base}u);`,
+      `    off = (uint16_t)(${input} - ${d.base}u);`,
       `    idx = (uint16_t)(off >> ${d.shift});`,
       `    frac = (uint16_t)(off & ${h - 1}u);`,
       `    a = ${rd}(&${n.data}[idx]);`,
@@ -494,7 +498,7 @@ function foldedBias(p: ChannelPlan): number {
   return d.entryBits === 16 && d.spanMax <= 32767 ? 2 ** (p.fracBits - 1) : 0;
 }
 
-function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
+export function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
   const d = p.design;
   if (d.kind === 'table') {
     const t = d.entryBits === 16 ? 'int16_t' : 'int32_t';
@@ -546,7 +550,7 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
  * into uint16 and shifted (no right shift of a negative number, C99 6.5.7p5); the design keeps
  * kernel + 2^(F-1) inside int16.
  */
-function roundFraction(p: ChannelPlan, wide: boolean): string[] {
+export function roundFraction(p: ChannelPlan, wide: boolean): string[] {
   const f = p.fracBits;
   // A two-point trim takes the kernel with its fraction bit and rounds it itself.
   if (f === 0 || p.trim.mode === 'two-point') return [];

@@ -1,297 +1,17 @@
-// generateC: validates each channel, samples its model at every in-range code, picks the smallest
-// design (table or piecewise quadratic) that meets the error target in exact integer simulation,
-// and emits marker-wrapped C blocks.
+// generateC: designs each channel (design.ts for an ADC code alone, compensated.ts for a code
+// plus a reference input) and emits marker-wrapped C blocks.
 
-import { INT16_MAX, INT16_MIN, clamp } from './arith';
-import { GAIN_Q, GAIN_Q_MAX, TWO_POINT_FRAC, applyTrim, trimDesign } from './calibration';
-import { CAUTION_LINES, emitHeaderBody, emitSourceBody, type ChannelPlan } from './emit';
+import { isCompensated, planCompensated, emitCompensatedHeader, emitCompensatedSource, type CompensatedInput } from './compensated';
+import { planOne, prefixProblem, validateInput } from './design';
+import { CAUTION_LINES, emitHeaderBody, emitSourceBody } from './emit';
 import { renderBlock } from './markers';
 import { commentLines, uniqueIdentifiers } from './names';
-import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
-import { finish, makeIdeal, rounded, withFraction, type Samples } from './samples';
-import { designTable, tableKernel, type TableDesign } from './table';
-import { prefixProblem } from '../model/code-prefix';
-import {
-  CodegenInputError,
-  type ConversionInput,
-  type GenerateOptions,
-  type GenerateResult,
-  type GeneratedChannel,
-} from './types';
+import { CodegenInputError, type ConversionInput, type GenerateOptions, type GenerateResult, type GeneratedChannel } from './types';
 
-/**
- * Flash bytes of the code around the data, atmega328p at -Os (avr-gcc 5.4, avr-size of the
- * object; library routines such as the 32-bit multiply not included). Re-measure when the
- * emitted C changes: the figures only rank designs, the tests measure the real sizes.
- */
-const CODE_BYTES = {
-  table16: 136,
-  table32: 190,
-  direct: 52,
-  polynomial: 300,
-  offsetTrim: 8,
-  gainTrim: 50,
-  runtimeTrim: 86,
-  floatVariant: 260,
-} as const;
+export { kernelAt, planChannels, planOne, prefixProblem, validateInput } from './design';
 
-const MAX_CODES = 65536;
-
-function fail(c: ConversionInput, field: string, msg: string): never {
-  throw new CodegenInputError(String(c.channelName), field, msg);
-}
-
-/** Throws CodegenInputError naming the field and the accepted range. */
-export function validateInput(c: ConversionInput): void {
-  if (typeof c.channelName !== 'string') fail(c, 'channelName', 'must be a string');
-  if (!Number.isInteger(c.bits) || c.bits < 1 || c.bits > 16) fail(c, 'bits', `must be an integer 1..16, got ${c.bits}`);
-  if (c.oversamplingBits !== undefined && (!Number.isInteger(c.oversamplingBits) || c.oversamplingBits < 0 || c.oversamplingBits >= c.bits))
-    fail(c, 'oversamplingBits', `must be an integer 0..${c.bits - 1} (below bits), got ${c.oversamplingBits}`);
-  const top = 2 ** c.bits - 1;
-  if (!Number.isInteger(c.codeLow) || c.codeLow < 0 || c.codeLow > top)
-    fail(c, 'codeLow', `must be an integer 0..${top}, got ${c.codeLow}`);
-  if (!Number.isInteger(c.codeHigh) || c.codeHigh < c.codeLow || c.codeHigh > top)
-    fail(c, 'codeHigh', `must be an integer ${c.codeLow}..${top} (codeLow..2^bits-1), got ${c.codeHigh}`);
-  if (!Number.isInteger(c.outputScale) || c.outputScale < 1 || c.outputScale > 10000)
-    fail(c, 'outputScale', `must be an integer 1..10000, got ${c.outputScale}`);
-  if (!Number.isFinite(c.errorTarget) || c.errorTarget <= 0 || c.errorTarget > 100)
-    fail(c, 'errorTarget', `must be a number in (0, 100] degC, got ${c.errorTarget}`);
-  if (c.errorTarget * c.outputScale < 0.5)
-    fail(c, 'errorTarget', `${c.errorTarget} degC is below half an output unit (0.5/${c.outputScale} degC); raise outputScale or the target`);
-  if (c.optimise !== undefined && !['size', 'speed', 'balanced'].includes(c.optimise)) fail(c, 'optimise', `must be size, speed or balanced, got ${String(c.optimise)}`);
-  if (!['auto', 'table', 'polynomial', 'line'].includes(c.method)) fail(c, 'method', `must be auto, table, polynomial or line, got ${String(c.method)}`);
-  const cal = c.calibration;
-  if (!cal || !['none', 'offset', 'two-point'].includes(cal.mode))
-    fail(c, 'calibration.mode', `must be none, offset or two-point, got ${String(cal?.mode)}`);
-  if (cal.offset !== undefined && (!Number.isFinite(cal.offset) || Math.abs(cal.offset * c.outputScale) > 32767))
-    fail(c, 'calibration.offset', `must be finite with |offset| <= ${(32767 / c.outputScale).toFixed(2)} degC, got ${cal.offset}`);
-  if (cal.gain !== undefined && (!Number.isFinite(cal.gain) || cal.gain < 0.5 || cal.gain > GAIN_Q_MAX / 2 ** GAIN_Q))
-    fail(c, 'calibration.gain', `must be in 0.5..${(GAIN_Q_MAX / 2 ** GAIN_Q).toFixed(4)}, got ${cal.gain}`);
-  for (const [field, v, ok] of [
-    ['faultBelow', c.faultBelow, (x: number) => x < c.codeLow],
-    ['faultAbove', c.faultAbove, (x: number) => x > c.codeHigh],
-  ] as const) {
-    if (v !== undefined && (!Number.isInteger(v) || v < 0 || v > top || !ok(v)))
-      fail(c, field, `must be an integer 0..${top} outside the in-range codes ${c.codeLow}..${c.codeHigh}, got ${v}`);
-  }
-  if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
-  const ownPrefix = c.prefix === undefined ? undefined : typeof c.prefix === 'string' ? prefixProblem(c.prefix) : 'must be a string';
-  if (ownPrefix) fail(c, 'prefix', ownPrefix);
-  if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
-}
-
-function sample(c: ConversionInput): Samples {
-  const n = c.codeHigh - c.codeLow + 1;
-  if (n > MAX_CODES) fail(c, 'codeHigh', `range too wide (${n} codes)`);
-  const f = new Float64Array(n);
-  for (let k = 0; k < n; k++) {
-    let v: number;
-    try {
-      v = c.celsiusAtCode(c.codeLow + k);
-    } catch (e) {
-      fail(c, 'celsiusAtCode', `threw at code ${c.codeLow + k}: ${(e as Error).message}`);
-    }
-    if (!Number.isFinite(v) || Math.abs(v) > 10000)
-      fail(c, 'celsiusAtCode', `ADC code ${c.codeLow + k} maps to no temperature the sensor gives within 50 K of the channel's range (a count is too coarse or the reference too far above the sensed voltage); use more bits or a reference nearer the sensed voltage`);
-    f[k] = v * c.outputScale;
-    if (Math.abs(f[k]!) > 2 ** 30) fail(c, 'outputScale', `scaled temperature ${f[k]} at code ${c.codeLow + k} exceeds 2^30`);
-  }
-  const dir: 1 | -1 = n > 1 ? (f[n - 1]! < f[0]! ? -1 : 1) : oneCodeDirection(c);
-  for (let k = 1; k < n; k++) {
-    if ((f[k]! - f[k - 1]!) * dir < 0)
-      fail(c, 'celsiusAtCode', `not monotonic: ${f[k - 1]! / c.outputScale} degC at code ${c.codeLow + k - 1}, ${f[k]! / c.outputScale} degC at code ${c.codeLow + k}`);
-  }
-  const trim = trimDesign(c.calibration, c.outputScale);
-  let fmax = 0;
-  for (const v of f) fmax = Math.max(fmax, Math.abs(v));
-  const outBits: 16 | 32 = fmax * (trim.mode === 'two-point' ? 2 : 1) + Math.abs(trim.offsetScaled) + 2 <= INT16_MAX ? 16 : 32;
-  if (trim.mode === 'two-point' && outBits === 32)
-    fail(c, 'outputScale', `two-point trim needs |temperature x outputScale| < 16384; got up to ${Math.round(fmax)}`);
-  return {
-    low: c.codeLow,
-    high: c.codeHigh,
-    scale: c.outputScale,
-    frac: 0,
-    f,
-    ideal: makeIdeal(f, trim, c.outputScale),
-    dir,
-    trim,
-    outMin: outBits === 16 ? INT16_MIN : -2147483648,
-    outMax: outBits === 16 ? INT16_MAX : 2147483647,
-  };
-}
-
-/**
- * Direction of a one-code range: the model a quarter code either side of the code's centre (still
- * inside its step). Rising when the model cannot say.
- */
-function oneCodeDirection(c: ConversionInput): 1 | -1 {
-  try {
-    const a = c.celsiusAtCode(c.codeLow - 0.25);
-    const b = c.celsiusAtCode(c.codeLow + 0.25);
-    return Number.isFinite(a) && Number.isFinite(b) && b < a ? -1 : 1;
-  } catch {
-    return 1;
-  }
-}
-
-/** Smallest and largest |degC per code step| over the range (one code: across its own step). */
-function perCount(c: ConversionInput, s: Samples): { min: number; max: number } {
-  const n = s.f.length;
-  let min = Infinity;
-  let max = 0;
-  for (let k = 1; k < n; k++) {
-    const d = Math.abs(s.f[k]! - s.f[k - 1]!) / c.outputScale;
-    min = Math.min(min, d);
-    max = Math.max(max, d);
-  }
-  if (n === 1) {
-    try {
-      const d = Math.abs(c.celsiusAtCode(c.codeLow + 0.5) - c.celsiusAtCode(c.codeLow - 0.5));
-      if (Number.isFinite(d)) min = max = d;
-    } catch {
-      // no figure: the header then says nothing of the step
-    }
-  }
-  return Number.isFinite(min) ? { min, max } : { min: NaN, max: NaN };
-}
-
-type Design = TableDesign | PolyDesign;
-
-function codeBytes(d: Design, s: Samples): number {
-  let b: number = d.kind === 'polynomial' ? CODE_BYTES.polynomial : d.shift === 0 ? CODE_BYTES.direct : d.entryBits === 16 && d.spanMax <= 32767 ? CODE_BYTES.table16 : CODE_BYTES.table32;
-  if (s.trim.mode === 'offset') b += CODE_BYTES.offsetTrim;
-  if (s.trim.mode === 'two-point') b += CODE_BYTES.gainTrim;
-  if (s.trim.runtime) b += CODE_BYTES.runtimeTrim;
-  return b;
-}
-
-function dataBytes(d: Design): number {
-  return d.kind === 'table' ? d.entries.length * (d.entryBits / 8) : d.coefs.length * 12;
-}
-
-export function kernelAt(d: Design, s: Samples, code: number): number {
-  return d.kind === 'table' ? tableKernel(d, s.dir, code) : polyKernel(d, s.low, code);
-}
-
-interface Choice {
-  design: Design;
-  maxErr: number;
-  bytes: number;
-  /** The samples the design was made for (with its fraction bits). */
-  s: Samples;
-}
-
-/**
- * Rough cycles of one conversion on an 8-bit AVR (simavr, atmega328p, -Os; `npm run bench` prints
- * the measured figures): they only rank designs for `optimise`.
- */
-function cyclesEstimate(d: Design, s: Samples): number {
-  // Measured: byte-split table 72, kiln's 32-bit-product table 231, kiln's polynomial 540.
-  let base: number;
-  if (d.kind === 'polynomial') base = 540;
-  else if (d.shift === 0) base = 40;
-  else {
-    const narrow = d.entryBits === 16 && d.spanMax <= 32767;
-    base = narrow && d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 72 : narrow && d.mulBits === 16 ? 110 : 231;
-  }
-  const twoPoint = s.trim.mode === 'two-point';
-  return base + (s.frac > 0 && !twoPoint ? 2 * s.frac : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
-}
-
-/** Largest number of internal fraction bits tried. */
-const MAX_FRAC = 4;
-/**
- * Bytes of the final rounding step: one arithmetic shift per fraction bit, its 2^(F-1) carried by
- * the table points (atmega328p, -Os, linked; bench: 160 against 156 bytes for the junction channel).
- */
-const ROUND_BYTES = 4;
-
-/** A straight line: two points, one segment over every in-range code (linear interpolation between them). */
-function chooseLine(c: ConversionInput, s0: Samples): Choice {
-  const s = s0;
-  let shift = 0;
-  while (shift < 15 && Math.floor(s.low / 2 ** shift) !== Math.floor(s.high / 2 ** shift)) shift++;
-  // Start from the line of least maximum error for a curve that bends one way: the chord's slope,
-  // moved halfway between the chord and the farthest point (Chebyshev equioscillation; e.g. any
-  // numerical-analysis text on minimax approximation). The table search then refines it.
-  const n = s.f.length;
-  const slope = n > 1 ? (s.f[n - 1]! - s.f[0]!) / (n - 1) : 0;
-  let dMin = Infinity;
-  let dMax = -Infinity;
-  for (let k = 0; k < n; k++) {
-    const d = s.f[k]! - (s.f[0]! + slope * k);
-    dMin = Math.min(dMin, d);
-    dMax = Math.max(dMax, d);
-  }
-  const line = (code: number) => s.f[0]! + (dMin + dMax) / 2 + slope * (code - s.low);
-  const r = Math.floor(s.low / 2 ** shift) === Math.floor(s.high / 2 ** shift) ? designTable(s, shift, line) : undefined;
-  if (!r) fail(c, 'method', `a straight line over codes ${s.low}..${s.high} cannot be represented (the range crosses code 32768); use a table`);
-  return { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s), s };
-}
-
-function kernelFitsInt16(d: Design, s: Samples): boolean {
-  for (let code = s.low; code <= s.high; code++) {
-    const k = kernelAt(d, s, code);
-    if (k < INT16_MIN || k > INT16_MAX) return false;
-  }
-  return true;
-}
-
-function choose(c: ConversionInput, s0: Samples): Choice {
-  if (c.method === 'line') return chooseLine(c, s0);
-  const target = c.errorTarget * c.outputScale;
-  const n = s0.high - s0.low + 1;
-  const maxShift = Math.min(15, Math.max(0, Math.ceil(Math.log2(Math.max(1, n)))));
-  const candidates: Choice[] = [];
-  let bestMissed: Choice | undefined;
-  let fmax = 0;
-  for (const v of s0.f) fmax = Math.max(fmax, Math.abs(v));
-  // A two-point trim takes the kernel with exactly one fraction bit and rounds it itself
-  // (calibration.ts); other kernels try 0..MAX_FRAC bits and round at the end.
-  const twoPoint = s0.trim.mode === 'two-point';
-  for (let frac = twoPoint ? TWO_POINT_FRAC : 0; frac <= (twoPoint ? TWO_POINT_FRAC : MAX_FRAC); frac++) {
-    // Fraction bits only while the kernel stays well inside int16 (then the rounding is 16-bit).
-    if (!twoPoint && frac > 0 && (fmax + 2) * 2 ** frac * 1.05 > 32000) break;
-    const s = withFraction(s0, frac);
-    const consider = (r: { design: Design; maxErr: number } | undefined) => {
-      if (!r) return;
-      // The two-point trim biases the kernel into uint16: it must be an int16 at every code.
-      if (twoPoint && !kernelFitsInt16(r.design, s)) return;
-      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) + (frac > 0 && !twoPoint ? ROUND_BYTES : 0), s };
-      if (r.maxErr <= target + 1e-9) candidates.push(ch);
-      else if (!bestMissed || r.maxErr < bestMissed.maxErr) bestMissed = ch;
-    };
-    const mine = (kind: Design['kind'], sh: number) => candidates.some((x) => x.s === s && x.design.kind === kind && x.design.shift === sh);
-    if (c.method !== 'polynomial') {
-      // From wide spacing down; stop at the first spacing that meets the target twice in a row
-      // narrower: narrower tables are only bigger. A direct table needs no fraction bits.
-      for (let sh = maxShift; sh >= (frac > 0 ? 1 : 0); sh--) {
-        const before = candidates.length;
-        consider(designTable(s, sh));
-        if (candidates.length > before && mine('table', sh + 1)) break;
-      }
-    }
-    if (c.method !== 'table') {
-      for (let sh = maxShift; sh >= 1; sh--) {
-        const before = candidates.length;
-        consider(designPolynomial(s, sh));
-        if (candidates.length > before && mine('polynomial', sh + 1)) break;
-      }
-    }
-  }
-  if (candidates.length === 0) {
-    const best = bestMissed ? ` (best reached: ${(bestMissed.maxErr / c.outputScale).toFixed(4)} degC)` : '';
-    fail(c, 'errorTarget', `${c.errorTarget} degC cannot be met by the ${c.method} method${best}; raise the target or outputScale`);
-  }
-  // size: fewest bytes; speed: fewest estimated cycles, then bytes; balanced: bytes plus cycles
-  // (on an 8-bit MCU both run to a few hundred). Ties: fewer fraction bits (fewer cycles), smaller
-  // error, then table before polynomial, then wider spacing.
-  const opt = c.optimise ?? 'balanced';
-  const cost = (x: Choice) => (opt === 'size' ? x.bytes : opt === 'speed' ? cyclesEstimate(x.design, x.s) * 1e6 + x.bytes : x.bytes + cyclesEstimate(x.design, x.s));
-  candidates.sort((a, b) => cost(a) - cost(b) || a.s.frac - b.s.frac || a.maxErr - b.maxErr || (a.design.kind === 'table' ? -1 : 1) - (b.design.kind === 'table' ? -1 : 1) || b.design.shift - a.design.shift);
-  return candidates[0]!;
-}
+/** What generateC takes: a one-input channel or a compensated (two-input) one. */
+export type AnyConversionInput = ConversionInput | CompensatedInput;
 
 const FILE_HEADER = (stem: string, header: boolean) => {
   const lines = [
@@ -319,89 +39,45 @@ function ownHeader(stem: string): string | undefined {
   return /^[A-Za-z0-9_+-][A-Za-z0-9_.+-]*$/.test(stem) ? `${stem}.h` : undefined;
 }
 
-/** Plans (validated and designed) for each input, in order; shared by generateC and the tests. */
-export function planChannels(inputs: readonly ConversionInput[], prefix = ''): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
-  for (const c of inputs) validateInput(c);
+export function generateC(inputs: readonly AnyConversionInput[], options: GenerateOptions): GenerateResult {
+  for (const c of inputs) if (!isCompensated(c)) validateInput(c);
+  const prefix = options.prefix ?? '';
   const badPrefix = prefixProblem(prefix);
-  if (badPrefix && inputs[0]) fail(inputs[0], 'prefix', badPrefix);
+  if (badPrefix && inputs[0]) throw new CodegenInputError(String(inputs[0].channelName), 'prefix', badPrefix);
   const seen = new Set<string>();
   for (const c of inputs) {
-    if (seen.has(c.channelName)) fail(c, 'channelName', 'two channels have this name; markers need unique names');
+    if (seen.has(c.channelName)) throw new CodegenInputError(String(c.channelName), 'channelName', 'two channels have this name; markers need unique names');
     seen.add(c.channelName);
   }
   // A channel's own prefix (the spec's `code_prefix`) before the file-wide one.
-  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id, i) => (inputs[i]!.prefix ?? prefix) + id);
-  const plans: ChannelPlan[] = [];
-  const samples: Samples[] = [];
-  const bytes: number[] = [];
-  inputs.forEach((c, i) => {
-    const ch = choose(c, sample(c));
-    const s = ch.s;
-    let lo = Infinity;
-    let hi = -Infinity;
-    let worst = 0;
-    let kLo = Infinity;
-    let kHi = -Infinity;
-    for (let code = s.low; code <= s.high; code++) {
-      const k = rounded(s, kernelAt(ch.design, s, code));
-      kLo = Math.min(kLo, k);
-      kHi = Math.max(kHi, k);
-      const t = applyTrim(s.trim, k);
-      lo = Math.min(lo, t);
-      hi = Math.max(hi, t);
-      worst = Math.max(worst, Math.abs(clamp(applyTrim(s.trim, k), s.outMin, s.outMax) - s.ideal[code - s.low]!));
-    }
-    const outBits: 16 | 32 = s.outMax === INT16_MAX ? 16 : 32;
-    plans.push({
-      name: c.channelName,
-      ident: ids[i]!,
-      bits: c.bits,
-      ...(c.oversamplingBits ? { oversamplingBits: c.oversamplingBits } : {}),
-      low: c.codeLow,
-      high: c.codeHigh,
-      scale: c.outputScale,
-      dir: s.dir,
-      design: ch.design,
-      trim: s.trim,
-      outBits,
-      // Run-time trims: the setter holds them so that no output leaves the type (emit.ts).
-      needClamp: !s.trim.runtime && (lo - 1 < s.outMin || hi + 1 > s.outMax),
-      kernelMin: kLo,
-      kernelMax: kHi,
-      kernelAtLow: rounded(s, kernelAt(ch.design, s, s.low)),
-      kernelAtHigh: rounded(s, kernelAt(ch.design, s, s.high)),
-      fracBits: s.frac,
-      floatVariant: c.floatVariant,
-      outAtLow: finish(s, kernelAt(ch.design, s, s.low)),
-      outAtHigh: finish(s, kernelAt(ch.design, s, s.high)),
-      ...(c.faultBelow !== undefined ? { faultBelow: c.faultBelow } : {}),
-      ...(c.faultAbove !== undefined ? { faultAbove: c.faultAbove } : {}),
-      perCountC: perCount(c, s),
-      maxErrorC: worst / c.outputScale,
-      errorTarget: c.errorTarget,
-      ...(c.method === 'line' ? { line: true } : {}),
-      note: c.note,
-    });
-    samples.push(s);
-    bytes.push(ch.bytes + (c.floatVariant ? CODE_BYTES.floatVariant : 0));
-  });
-  return { plans, samples, bytes };
-}
-
-/** Why `prefix` cannot start a generated identifier (the rule lives with the spec's `code_prefix`). */
-export { prefixProblem };
-
-export function generateC(inputs: ConversionInput[], options: GenerateOptions): GenerateResult {
-  const { plans, bytes } = planChannels(inputs, options.prefix);
+  const ids = uniqueIdentifiers(inputs.map((c) => c.channelName)).map((id, i) => ((inputs[i] as { prefix?: string }).prefix ?? prefix) + id);
   const header = options.header === true;
-  const channels: GeneratedChannel[] = plans.map((p, i) => ({
-    identifier: p.ident,
-    code: header ? emitHeaderBody(p) : emitSourceBody(p, options.selfContained ? undefined : ownHeader(options.fileStem)),
-    bytesEstimate: bytes[i]!,
-    maxErrorC: p.maxErrorC,
-    method: p.design.kind,
-    entries: p.design.kind === 'table' ? p.design.entries.length : p.design.coefs.length,
-  }));
+  const own = options.selfContained ? undefined : ownHeader(options.fileStem);
+  const channels: GeneratedChannel[] = inputs.map((c, i) => {
+    if (isCompensated(c)) {
+      const p = planCompensated(c, ids[i]!);
+      const d = p.hot.plan.design;
+      return {
+        identifier: p.ident,
+        code: header ? emitCompensatedHeader(p) : emitCompensatedSource(p, own),
+        bytesEstimate: p.bytes,
+        maxErrorC: p.maxErrorC,
+        method: d.kind,
+        entries: d.kind === 'table' ? d.entries.length : d.coefs.length,
+        rangeText: `codes ${p.codeLow}..${p.codeHigh} and ${p.ref.param} ${p.ref.low}..${p.ref.high}`,
+      };
+    }
+    const { plan: p, bytes } = planOne(c, ids[i]!);
+    return {
+      identifier: p.ident,
+      code: header ? emitHeaderBody(p) : emitSourceBody(p, own),
+      bytesEstimate: bytes,
+      maxErrorC: p.maxErrorC,
+      method: p.design.kind,
+      entries: p.design.kind === 'table' ? p.design.entries.length : p.design.coefs.length,
+      rangeText: `codes ${p.low}..${p.high}`,
+    };
+  });
   const blocks = channels.map((ch, i) => renderBlock({ channel: inputs[i]!.channelName, hash: inputs[i]!.specHash, text: ch.code }));
   let text = FILE_HEADER(options.fileStem, header);
   if (header) {

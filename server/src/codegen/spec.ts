@@ -3,10 +3,10 @@
 import type { ChannelResult } from '../analysis/types';
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { DocumentNode } from '../syntax/ast';
-import { channelError, conversionInput, generatableResults, tooWideMessage } from './channel-input';
-import { generateC } from './generate';
+import { channelError, generatorInput, generatableResults, tooWideMessage } from './channel-input';
+import { generateC, type AnyConversionInput } from './generate';
 import { renderBlock } from './markers';
-import { CodegenInputError, type ConversionInput, type GenerateResult } from './types';
+import { CodegenInputError, type GenerateResult } from './types';
 
 export interface SpecLike {
   path: string;
@@ -20,7 +20,7 @@ export interface LeftOut {
 }
 
 export type SpecGeneration =
-  | { ok: true; inputs: ConversionInput[]; source: GenerateResult; header: GenerateResult; leftOut: LeftOut[] }
+  | { ok: true; inputs: AnyConversionInput[]; source: GenerateResult; header: GenerateResult; leftOut: LeftOut[] }
   | { ok: false; message: string; leftOut: LeftOut[] };
 
 /**
@@ -89,7 +89,7 @@ export function generateForSpec(a: SpecLike, opts: { channel?: string; fileStem:
   const leftOut: LeftOut[] = [];
   for (;;) {
     try {
-      const inputs = pool.map((r) => conversionInput(r, a.path));
+      const inputs = pool.map((r) => generatorInput(r, a.path));
       const source = generateC(inputs, { fileStem: opts.fileStem, prefix: opts.prefix });
       const header = generateC(inputs, { fileStem: opts.fileStem, header: true, prefix: opts.prefix });
       return { ok: true, inputs, source, header, leftOut };
@@ -109,7 +109,7 @@ export function conversionBlock(a: SpecLike, channel: string, eol = '\n'): { ok:
   const chosen = pick(a, channel);
   if (typeof chosen === 'string') return { ok: false, message: chosen };
   try {
-    const input = conversionInput(chosen[0]!, a.path);
+    const input = generatorInput(chosen[0]!, a.path);
     const ch = generateC([input], { fileStem: 'conversion', selfContained: true }).channels[0]!;
     return { ok: true, text: renderBlock({ channel, hash: input.specHash, text: ch.code }, eol), maxErrorC: ch.maxErrorC, method: ch.method };
   } catch (err) {

@@ -62,6 +62,8 @@ export interface GeneratedChannel {
   method: string;
   /** Table entries (table) or segments (polynomial). */
   entries: number;
+  /** The in-range inputs in words: "codes 36..3379" (and the second input's range for a two-input conversion). */
+  rangeText: string;
 }
 
 export interface GenerateOptions {
@@ -110,30 +112,4 @@ export interface FoundBlock {
   bodyEnd: number;
 }
 
-/** Thrown by generateC for input outside the documented ranges; `field` names the offending input. */
-/** The spec's words for a generator input: messages speak of the spec, not of the generator's fields. */
-const SPEC_WORDS: Record<string, string> = {
-  celsiusAtCode: 'conversion',
-  bits: 'ADC bits',
-  oversamplingBits: 'oversampling',
-  outputScale: 'output',
-  errorTarget: 'code_error',
-  method: 'code_method',
-  'calibration.mode': 'calibration',
-  'calibration.offset': 'calibration',
-  'calibration.gain': 'calibration',
-  codeLow: 'ADC code range',
-  codeHigh: 'ADC code range',
-  prefix: 'code_prefix',
-};
-
-export class CodegenInputError extends Error {
-  constructor(
-    readonly channel: string,
-    readonly field: string,
-    message: string,
-  ) {
-    super(`channel '${channel}': ${SPEC_WORDS[field] ?? field}: ${message}`);
-    this.name = 'CodegenInputError';
-  }
-}
+export { CodegenInputError } from '../sensors/conversion';

@@ -7,7 +7,7 @@
 import type { Analysis } from '../analysis/result';
 import type { ChannelResult } from '../analysis/types';
 import type { ModeBudget } from '../analysis/budget-types';
-import { conversionInput, generatableResults } from '../codegen/channel-input';
+import { generatorInput, generatableResults } from '../codegen/channel-input';
 import { generateC } from '../codegen';
 import { kindOf } from '../sensors/registry';
 import { pairedDifference, type PairedDifference } from '../budget/paired';
@@ -105,7 +105,7 @@ export function compareRow(r: ChannelResult, generatable: boolean, specPath: str
   let codeMethod: string | null = null;
   if (generatable) {
     try {
-      const g = generateC([conversionInput(r, specPath)], { fileStem: 'compare' }).channels[0]!;
+      const g = generateC([generatorInput(r, specPath)], { fileStem: 'compare' }).channels[0]!;
       codeBytes = g.bytesEstimate;
       codeMethod = `${g.method}, ${g.entries} ${g.method === 'table' ? 'entries' : 'segments'}`;
     } catch (err) {

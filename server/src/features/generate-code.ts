@@ -6,7 +6,7 @@
 import * as path from 'node:path';
 import type { Analysis } from '../analysis/result';
 import { generateC, spliceGenerated } from '../codegen/index';
-import { conversionFilePath, conversionInput, tooWideMessage } from '../codegen/channel-input';
+import { conversionFilePath, generatorInput, tooWideMessage } from '../codegen/channel-input';
 import { symbolClash } from '../codegen/clash';
 
 export interface GeneratedFile {
@@ -38,7 +38,7 @@ export function generateForChannel(a: Analysis, channel: string, existing: strin
   const file = conversionFilePath(a.path);
   const stem = path.basename(file, '.c');
   try {
-    const input = conversionInput(r, a.path);
+    const input = generatorInput(r, a.path);
     // Only the .c is written here (no header beside it): the block declares its own types.
     const gen = generateC([input], { fileStem: stem, selfContained: true });
     const ch = gen.channels[0]!;

@@ -131,6 +131,7 @@ export function channelHover(r: ChannelResult): string {
     `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
     ...(r.budget ? [budgetHoverSection(r.budget)] : []),
     SHORT_CAUTION,
+    ...(kindOf(c.sensor).cautions ?? []),
   ].join('\n\n');
 }
 

@@ -19,7 +19,7 @@ function outOfDomain(ctx: ReadContext, span: Span, message: string): null {
 }
 
 /** The quantity of `± q` or of a bare `q` (taken as its magnitude). */
-function boundTerm(terms: Term[]): QuantityTerm | null {
+export function boundTerm(terms: Term[]): QuantityTerm | null {
   const t = terms[0];
   if (!t) return null;
   if (t.kind === 'tolerance') return t.amount;

@@ -4,7 +4,7 @@
 // report with precise ranges and never throw.
 import type { QuantityTerm, Term } from '../syntax/ast';
 import type { BlockReader, Resolution } from './block-reader';
-import type { AdcDef, BiasDef, SensorDef, WiringDef } from './types';
+import type { AdcDef, BiasDef, ChannelDef, SensorDef, WiringDef } from './types';
 import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
 import { kindWithArticle, PART_DOMAINS } from './schema';
 import { closest } from './suggest';
@@ -100,13 +100,14 @@ function readWiring(r: BlockReader): WiringDef | null | undefined {
 
 export interface ChannelExtras {
   ratiometric?: boolean;
-  amplifier?: { gain: number; offsetVolts: number };
+  amplifier?: { gain: number; offsetVolts: number; gainTolerance?: number };
   wiring?: WiringDef;
   compareGroup?: string;
+  kindFields?: object;
 }
 
 /** The channel fields that depend on the sensor's kind, checked against its sensor, bias and ADC. */
-export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias: BiasDef | null, adc: AdcDef | null, range?: { low: number; high: number } | null): ChannelExtras {
+export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias: BiasDef | null, adc: AdcDef | null, range?: { low: number; high: number } | null, channel: (field: string) => ChannelDef | null = () => null): ChannelExtras {
   const out: ChannelExtras = {};
   const file = r.ref.file;
   const kind = sensor ? kindOf(sensor) : null;
@@ -147,13 +148,20 @@ export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias
       const g = r.quantity('gain', 1);
       const o = r.quantity('offset', 0);
       // Domains (schema.ts) are checked as they are read.
-      if (g && o) out.amplifier = { gain: g.value, offsetVolts: o.value };
+      if (g && o) out.amplifier = { gain: g.value, offsetVolts: o.value, ...(g.tolerance > 0 ? { gainTolerance: g.tolerance } : {}) };
     }
   }
   const wiring = readWiring(r);
   if (wiring) {
     if (!takes('wiring')) notTaken('wiring');
     else out.wiring = wiring;
+  }
+  // The fields only some kinds take (sensors/kind.ts `channelBlockFields`), then the kind's own reading of them.
+  for (const k of sensorKinds()) for (const f of k.channelBlockFields ?? []) if (r.terms(f.name) && !takes(f.name)) notTaken(f.name);
+  if (sensor && kind!.readChannel) {
+    const own = kind!.readChannel(r, { sensor, bias, range: range ?? null, channel });
+    if (own) out.kindFields = own;
+    else r.ok = false;
   }
   const g = r.terms('compare_group');
   if (g) {

@@ -42,13 +42,33 @@ export function resolveModel(files: LoadedFile[], sink: DiagnosticSink, kept?: K
       if (a) res.adcs.set(a.name, a);
     }
   }
+  // Channels are read on demand, so a channel naming another (a thermocouple's cold junction) reads
+  // that one first; each is read once, and a channel met again while it is being read is a cycle.
+  const read = new Map<string, ChannelDef | null>();
+  const reading = new Set<string>();
+  const channels: ChannelReader = (name) => {
+    const done = read.get(name);
+    if (done !== undefined) return done;
+    if (reading.has(name)) return 'cycle';
+    const ref = blocks.get(name);
+    // Only the entry file's channels are read (a kept channel may name one renamed or moved away since).
+    if (!ref || ref.kind !== 'channel' || ref.file !== entry.path) return null;
+    reading.add(name);
+    const c = kept ? rememberedChannel(ref, res, sink, kept, channels) : readChannel(ref, res, sink, channels);
+    reading.delete(name);
+    read.set(name, c);
+    return c;
+  };
   for (const ref of blocks.values()) {
     if (ref.kind !== 'channel' || ref.file !== entry.path) continue;
-    const c = kept ? rememberedChannel(ref, res, sink, kept) : readChannel(ref, res, sink);
-    if (c) res.channels.push(c);
+    const c = channels(ref.node.name.text);
+    if (c && c !== 'cycle') res.channels.push(c);
   }
   return res;
 }
+
+/** A channel of the spec by name, read once: null when it has errors, 'cycle' while it is being read. */
+type ChannelReader = (name: string) => ChannelDef | null | 'cycle';
 
 /**
  * Every named block of the files by name, of every kind in the schema; the first definition of a
@@ -123,32 +143,75 @@ function remembered<T>(ref: BlockRef, sink: DiagnosticSink, kept: KeptDefinition
 }
 
 /** A channel is kept while its block is the same text and the sensor and ADC it names have the same content. */
-function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, kept: KeptDefinitions): ChannelDef | null {
+function rememberedChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, kept: KeptDefinitions, channels: ChannelReader): ChannelDef | null {
   const sensorOf = (c: ChannelDef) => res.sensors.get(c.sensor.name);
   const adcOf = (c: ChannelDef) => res.adcs.get(c.adc.name);
-  const same = (a: object | undefined, b: object) => a !== undefined && contentToken(a) === contentToken(b);
+  const linkedOf = (c: ChannelDef) => Object.fromEntries(Object.entries(c.linked ?? {}).map(([field, l]) => [field, channels(l.name)]));
+  const same = (a: unknown, b: object) => typeof a === 'object' && a !== null && contentToken(a) === contentToken(b);
   const hit = recall(
     ref,
     sink,
     kept,
-    (h) => h.def !== null && same(sensorOf(h.def as ChannelDef), (h.def as ChannelDef).sensor) && same(adcOf(h.def as ChannelDef), (h.def as ChannelDef).adc),
+    (h) => {
+      const c = h.def as ChannelDef | null;
+      if (c === null || !same(sensorOf(c), c.sensor) || !same(adcOf(c), c.adc)) return false;
+      const now = linkedOf(c);
+      return Object.entries(c.linked ?? {}).every(([field, l]) => same(now[field], l));
+    },
     (h, delta) => {
-      // Its own spans move; the sensor and ADC are set to their current definitions below.
+      // Its own spans move; the sensor, ADC and linked channels are set to their current definitions below.
       const c = h.def as ChannelDef;
-      const moved: ChannelDef = { ...shiftOffsets({ ...c, sensor: null, adc: null }, delta), sensor: c.sensor, adc: c.adc };
+      const moved: ChannelDef = { ...shiftOffsets({ ...c, sensor: null, adc: null, linked: undefined }, delta), sensor: c.sensor, adc: c.adc, ...(c.linked ? { linked: c.linked } : {}) };
       sameContent(moved, c);
       return moved;
     },
   ) as ChannelDef | undefined;
-  if (hit === undefined) return remember(ref, sink, kept, (into) => readChannel(ref, res, into));
+  if (hit === undefined) return remember(ref, sink, kept, (into) => readChannel(ref, res, into, channels));
   const sensor = sensorOf(hit)!;
   const adc = adcOf(hit)!;
-  if (hit.sensor === sensor && hit.adc === adc) return hit;
-  // The sensor or ADC moved: the same channel, pointing at their current definitions.
-  const current: ChannelDef = { ...hit, sensor, adc };
+  const linked = hit.linked ? (linkedOf(hit) as Record<string, ChannelDef>) : undefined;
+  const linkedSame = !linked || Object.entries(linked).every(([field, l]) => hit.linked![field] === l);
+  if (hit.sensor === sensor && hit.adc === adc && linkedSame) return hit;
+  // The sensor, ADC or a linked channel moved: the same channel, pointing at their current definitions.
+  const current: ChannelDef = { ...hit, sensor, adc, ...(linked ? { linked } : {}) };
   sameContent(current, hit);
   kept.get(pieceOrigin(ref.node).base)!.def = current;
   return current;
+}
+
+/**
+ * A channel field naming another channel of the spec (sensors/kind.ts `readChannel`): that
+ * channel, read first; null, reported at the name, when it is not a channel of this file, has
+ * errors of its own, or leads back to the channel being read.
+ */
+function readChannelRef(r: BlockReader, field: string, res: Resolution, channels: ChannelReader): ChannelDef | null {
+  const terms = r.terms(field);
+  if (!terms) {
+    r.missing(field);
+    return null;
+  }
+  const t = terms[0]!;
+  const fail = (code: 'bad-value' | 'unknown-name' | 'wrong-kind', message: string, span = spanOf(terms)) => {
+    r.sink.report(code, r.ref.file, span, message);
+    r.ok = false;
+    return null;
+  };
+  if (t.kind !== 'word') return fail('bad-value', `${field} takes the name of another channel of this file`);
+  if (!noExtra(terms, 1, r.ctx(field))) r.ok = false;
+  const block = res.blocks.get(t.text);
+  if (!block) {
+    const pool = [...res.blocks.values()].filter((b) => b.kind === 'channel' && b.node !== r.ref.node).map((b) => b.node.name.text);
+    const near = closest(t.text, pool);
+    return fail('unknown-name', `no channel named '${shown(t.text)}' is defined${near ? ` (did you mean '${near}'?)` : pool.length ? `; defined: ${pool.join(', ')}` : ''}`, t.span);
+  }
+  if (block.kind !== 'channel') return fail('wrong-kind', `'${shown(t.text)}' is ${kindWithArticle(block.kind)}, but ${field} needs a channel`, t.span);
+  if (block.node === r.ref.node) return fail('bad-value', `${field}: channel '${shown(t.text)}' cannot name itself (a cycle); name the channel that measures it`, t.span);
+  if (block.file !== r.ref.file) return fail('bad-value', `${field}: channel '${shown(t.text)}' is in ${block.file}; name a channel of this file (only this file's channels are analysed)`, t.span);
+  const c = channels(t.text);
+  if (c === 'cycle') return fail('bad-value', `${field}: channel '${shown(t.text)}' leads back to '${shown(r.ref.node.name.text)}' through the channels it names (a cycle); name a channel that measures the temperature itself`, t.span);
+  // The channel exists but has its own errors (reported there): skip this one quietly.
+  if (!c) r.ok = false;
+  return c;
 }
 
 function base(ref: BlockRef, r: BlockReader): DefBase {
@@ -348,8 +411,14 @@ function readCodePrefix(r: BlockReader): string | null | undefined {
   return null;
 }
 
-function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): ChannelDef | null {
+function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, channels: ChannelReader): ChannelDef | null {
   const r = new BlockReader(ref, blockSpec('channel')!, sink);
+  const linked: Record<string, ChannelDef> = {};
+  const channelRef = (field: string) => {
+    const c = readChannelRef(r, field, res, channels);
+    if (c) linked[field] = c;
+    return c;
+  };
   const sensor = readSensorRef(r, res);
   const adc = readAdcRef(r, 'adc', res);
   const biasTerms = r.terms('bias');
@@ -384,7 +453,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
   // Resistive-sensor fields (read-sensors.ts).
-  const extras = readChannelExtras(r, sensor, bias, adc, range);
+  const extras = readChannelExtras(r, sensor, bias, adc, range, channelRef);
   if (twin && sensor && !kindOf(sensor).twoCurrent) {
     sink.report('bad-value', ref.file, r.fieldSpans['bias'] ?? ref.node.name.span, `the two-current bias is for ${kindsInWords(sensorKinds().filter((k) => k.twoCurrent))}; '${sensor.name}' is a ${sensor.kind}`);
     r.ok = false;
@@ -392,6 +461,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   if (!r.ok || !sensor || !adc || !bias || !range || !step || !window) return null;
   return {
     ...extras,
+    ...(Object.keys(linked).length ? { linked } : {}),
     ...(twin ? { secondBias: twin.second } : {}),
     ...(calibration ? { calibration } : {}),
     ...(measured ? { measured } : {}),

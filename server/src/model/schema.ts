@@ -87,7 +87,7 @@ const channel = (): BlockSpec => ({
   fields: [
     sensorField(),
     { name: 'adc', form: { form: 'ref', target: 'adc' }, doc: 'Name of the ADC definition that reads the channel.', example: 'adc = mcu_adc' },
-    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance).', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %', words: ['resistor', 'resistors', 'current', 'currents', 'divider', 'above', 'below', 'from', 'and'] },
+    { name: 'bias', form: { form: 'bias' }, doc: 'How the junction is biased: `resistor R from V` (a resistor from a supply, each with an optional tolerance) or `current I` (a constant current). For the two-current (delta-VBE) method: `currents I1 and I2` or `resistors R1 and R2 from V` (switched in turn); the channel then reads the difference of the two voltages. A thermistor or an RTD sits in a divider, `divider R above from V` (the fixed resistor R between the supply V and the ADC node, the sensor from the node to ground) or `divider R below from V` (the sensor on the supply side, R to ground), or takes a constant current `current I` (the ADC reads I times its resistance). On a thermocouple channel the bias is how an open thermocouple is detected: `resistor R from V` (a pull-up) or `current I` (a burnout current); either flows through the thermocouple loop.', example: 'bias = resistor 47k ± 1 % from 3.3 V ± 2 %', words: ['resistor', 'resistors', 'current', 'currents', 'divider', 'above', 'below', 'from', 'and'] },
     { name: 'range', form: { form: 'range', dimension: 'temperature' }, doc: 'Temperature range of interest.', example: 'range = -40 °C .. 125 °C' },
     { name: 'step', form: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-4, minInclusive: true, max: 1000 }, defaultText: '1 K', doc: 'Sweep step over the range.', example: 'step = 0.5 K' },
     { name: 'resolution', form: { form: 'resolution' }, doc: 'Required resolution: `0.1 °C per count` or `10 counts per °C`. Unchecked when absent.', example: 'resolution = 0.1 °C per count', optional: true, words: ['per'] },
@@ -108,10 +108,12 @@ const channel = (): BlockSpec => ({
     { name: 'float_variant', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes to generate, beside the integer function, one returning a float in °C (no maths library needed).', example: 'float_variant = yes' },
     { name: 'oversampling', form: { form: 'phrase', syntax: 'n bits' }, defaultText: '0 bits', doc: 'Extra bits by oversampling and decimation: 4^n readings summed and shifted right by n (Atmel application note AVR121). Works only with at least 0.5 LSB rms of noise at the input (see the adc `noise`). Generated conversion code then takes the decimated value (bits + n bits, 0 .. 2^(bits+n) - 1) instead of one reading.', example: 'oversampling = 2 bits', words: ['bits', 'bit'] },
     { name: 'ratiometric', form: { form: 'choice', options: ['yes', 'no'] }, defaultText: 'no', doc: 'yes when the ADC reference is the divider\'s own supply: the code then follows the divider ratio and the supply cancels. The divider supply must equal the ADC reference.', example: 'ratiometric = yes' },
-    { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', min: 1e-3, minInclusive: true, max: 1e4 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between a thermistor or RTD and the ADC: V_adc = gain × V + offset.', example: 'gain = 20' },
+    { name: 'gain', form: { form: 'quantity', dimension: 'dimensionless', tolerance: true, min: 1e-3, minInclusive: true, max: 1e4 }, defaultText: '1 (no amplifier)', doc: 'Gain of an amplifier between the sensor and the ADC: V_adc = gain × V + offset, with an optional tolerance (`gain = 101 ± 0.5 %`) that the error budget draws.', example: 'gain = 20' },
     { name: 'offset', form: { form: 'quantity', dimension: 'voltage', min: -1000, minInclusive: true, max: 1000 }, defaultText: '0 V', doc: 'Output offset of that amplifier, V (may be negative).', example: 'offset = -0.1 V' },
     { name: 'wiring', form: { form: 'phrase', syntax: 'n wires [R per lead]' }, defaultText: 'leads not modelled', doc: 'Lead wiring of a resistive sensor: `2 wires 0.5 ohm` (both leads in series with the sensor), `3 wires 0.5 ohm` (the third lead cancels them when the leads match) or `4 wires` (no lead error).', example: 'wiring = 3 wires 0.5 ohm', words: ['wires', 'wire'] },
     { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge', optional: true },
+    // The fields only one sensor kind takes, from its folder (sensors/kind.ts `channelBlockFields`).
+    ...sensorKinds().flatMap((k) => k.channelBlockFields ?? []),
   ],
 });
 
@@ -131,8 +133,8 @@ export const PART_DOMAINS = {
   supply: { form: 'quantity', dimension: 'voltage', min: 1e-3, minInclusive: true, max: 1000 },
   /** A measured point's resistance: 1 mΩ to 1 GΩ. */
   pointResistance: { form: 'quantity', dimension: 'resistance', min: 1e-3, minInclusive: true, max: 1e9 },
-  /** Any temperature in a spec: 1 K to 1273.15 K (1000 °C; the IEC 60751 equation ends at 850 °C). */
-  temperature: { form: 'quantity', dimension: 'temperature', min: 1, minInclusive: true, max: 1273.15 },
+  /** Any temperature in a spec: 1 K to 2273.15 K (2000 °C; the highest ITS-90 thermocouple table, type B, ends at 1820 °C). */
+  temperature: { form: 'quantity', dimension: 'temperature', min: 1, minInclusive: true, max: 2273.15 },
   /** A resolution, kelvin per count: 1 µK to 1000 K. */
   resolution: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-6, minInclusive: true, max: 1000 },
   /** An accuracy target: 1 mK to 1000 K. */

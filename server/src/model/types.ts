@@ -101,12 +101,19 @@ export interface ChannelDef extends DefBase {
   oversamplingBits?: number;
   /** The ADC reference is the divider's supply: codes follow the divider ratio (absent: no). */
   ratiometric?: boolean;
-  /** An amplifier before the ADC, V_adc = gain V + offset (absent: none). */
-  amplifier?: { gain: number; offsetVolts: number };
+  /** An amplifier before the ADC, V_adc = gain V + offset (absent: none); `gainTolerance` relative, present only when stated. */
+  amplifier?: { gain: number; offsetVolts: number; gainTolerance?: number };
   /** Lead wiring of a resistive sensor (absent: leads not modelled). */
   wiring?: WiringDef;
   /** Channels with the same group are alternatives for one measurement (`thermoscribe compare`). */
   compareGroup?: string;
+  /**
+   * Other channels of the spec this channel reads, by the field naming each (a thermocouple's cold
+   * junction): their content is part of this channel's, so what is kept for it follows them.
+   */
+  linked?: Record<string, ChannelDef>;
+  /** The sensor kind's own channel fields, read by its `readChannel` (sensors/<kind>/types.ts says what). */
+  kindFields?: object;
 }
 
 /** Fields `output`, `code_error`, `code_method`, `float_variant` of a channel. */

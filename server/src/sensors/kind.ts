@@ -20,9 +20,11 @@ import type { SensedPoint } from '../analysis/sense';
 import type { CheckContext } from '../checks/context';
 import type { FitResult } from '../calibration/fit';
 import type { BlockReader } from '../model/block-reader';
-import type { BlockSpec } from '../model/schema';
+import type { BlockSpec, FieldSpec } from '../model/schema';
+import type { Contributor } from '../analysis/budget-types';
 import type { BiasDef, ChannelDef, DefBase, SensorDef } from '../model/types';
 import type { FaultVolts } from '../analysis/sensor-faults';
+import type { CompensatedInput, ConversionContext } from './conversion';
 
 /** A board-to-board spread of the element, as an error-budget contributor (relative half-width). */
 export interface ElementContributor {
@@ -64,6 +66,15 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   biasProblem(s: S, bias: BiasDef): string | null;
   /** Why the channel's range is beyond what the model handles (reported at the range), or null. */
   rangeProblem?(s: S, lowK: number, highK: number): string | null;
+  /** Channel fields only this kind takes, added to the channel block (model/schema.ts); their names are in `channelFields` too. */
+  readonly channelBlockFields?: readonly FieldSpec[];
+  /**
+   * Reads the kind's own channel fields (model/read-sensors.ts `readChannelExtras`): the object
+   * becomes `ChannelDef.kindFields`; null when they have errors (reported with precise ranges).
+   * `at.channel(field)` reads a field naming another channel of the spec (model/resolve.ts: cycles
+   * refused); what it gives is kept in `ChannelDef.linked` under the field's name.
+   */
+  readChannel?(r: BlockReader, at: KindChannelReading<S>): object | null;
 
   // ---- the model (analysis/)
   /** What the ADC sees at one temperature: the forward model of the whole channel. */
@@ -78,13 +89,17 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   contributors(s: S): ElementContributor[];
   /** The element with drawn relative errors by contributor id (absent ids stay nominal). */
   perturb(s: S, draws: ReadonlyMap<string, number>): S;
+  /** Board contributors of the kind's own channel fields (ids unique to the kind; budget/contributors.ts). */
+  channelContributors?(c: ChannelDef): Contributor[];
+  /** The channel with those contributors' draws (d = draw × amount) applied (budget/contributors.ts `perturb`). */
+  perturbChannel?(c: ChannelDef, draws: ReadonlyMap<string, number>): ChannelDef;
   /** Element-only error for the comparison when the budget is not available; absent: none. */
   sensorSpread?(c: ChannelDef): SensorSpread | null;
   /** Largest tolerance of the element's stated class over the range, K, for the comparison. */
   classToleranceK?(c: ChannelDef): number | null;
   /** Kind-specific inputs of the JSON report (base SI units). */
   reportInputs?(c: ChannelDef): Record<string, unknown>;
-  /** The ADC pin's voltage with the sensor open and shorted (sensors/faults.ts turns them into codes). */
+  /** The ADC pin's voltage with the sensor open and shorted (analysis/sensor-faults.ts turns them into codes). */
   faults(c: ChannelDef): FaultVolts[];
   /** Fit of the channel's `measured` points, or null when there are none (calibration/fit.ts); absent: the points are not used. */
   fit?(c: ChannelDef): FitResult | null;
@@ -101,4 +116,23 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   channelHoverLines?(r: ChannelResult): string[];
   /** One line for completion of a `sensor = ` value. */
   summary(s: S): string;
+  // ---- generated code (codegen/channel-input.ts)
+  /**
+   * The generator's input for a channel whose conversion takes a second input besides the ADC
+   * code (a thermocouple's cold-junction temperature from another channel's generated function;
+   * codegen/compensated.ts designs it); absent: a function of the code alone. Throws
+   * CodegenInputError (sensors/conversion.ts) naming the field and the range it takes.
+   */
+  conversionInput?(r: ChannelResult, ctx: ConversionContext): CompensatedInput;
+  /** Safety cautions of the kind, shown in its hovers and under reports of its channels (report/caution.ts). */
+  readonly cautions?: readonly string[];
+}
+
+/** What a kind's `readChannel` is given besides the channel block's reader. */
+export interface KindChannelReading<S extends SensorDef = SensorDef> {
+  sensor: S;
+  bias: BiasDef | null;
+  range: { low: number; high: number } | null;
+  /** The channel a field names, read first; null (reported) when it is missing, wrong or in a cycle. */
+  channel(field: string): ChannelDef | null;
 }

@@ -7,9 +7,11 @@ import { registerSensorKinds } from './registry';
 import { junction } from './junction';
 import { thermistor } from './thermistor';
 import { rtd } from './rtd';
+import { thermocouple } from './thermocouple';
 
 registerSensorKinds([
   junction,
   thermistor,
   rtd,
+  thermocouple,
 ] as unknown as SensorKind[]);

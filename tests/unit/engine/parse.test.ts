@@ -67,7 +67,7 @@ describe('tolerances and ranges', () => {
   it('refuses temperatures at or below 0 K with the figure', () => {
     const a = analyse({ path: '/x/r.tsense', text: 'junction q {\n IS = 1 fA\n rated = -300 °C .. 125 °C\n}\n' });
     expect(a.diagnostics[0]!.code).toBe('out-of-domain');
-    expect(a.diagnostics[0]!.message).toMatch(/from 1 to 1273\.15 K \(found -300 °C = -26\.85 K\)/);
+    expect(a.diagnostics[0]!.message).toMatch(/from 1 to 2273\.15 K \(found -300 °C = -26\.85 K\)/);
   });
 });
 
