@@ -242,7 +242,7 @@ function quantityMeaning(kind: BlockKind, key: string, field: FieldNode, index: 
 
 const BASE_UNIT: Record<Dimension, string> = {
   voltage: 'V', current: 'A', resistance: 'Ω', capacitance: 'F', temperature: 'K', energy: 'eV', power: 'W',
-  'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
+  'thermal-resistance': 'K/W', ratio: '', count: 'counts', time: 's', 'temperature-rate': 'K/s', dimensionless: '',
 };
 
 function valueText(q: QuantityTerm, m: Meaning): string | null {

@@ -13,6 +13,7 @@ import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
+import { readDynamics } from './read-dynamics';
 import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
 import { shown } from '../diagnostics/shown';
 
@@ -467,6 +468,8 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
   const calReference = phrase('cal_reference', (t) => readCalReference(t, r.ctx('cal_reference')));
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
+  const dynamics = readDynamics((n) => r.terms(n), (n) => r.ctx(n), (n) => r.quantity(n));
+  if (dynamics === null) r.ok = false;
   // Resistive-sensor fields (read-sensors.ts).
   const extras = readChannelExtras(r, sensor, bias, adc, range);
   if (twin && sensor && !kindOf(sensor).twoCurrent) {
@@ -482,6 +485,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink): Chan
     ...(monteCarlo ? { monteCarlo } : {}),
     ...(calReference !== undefined ? { calReferenceK: calReference } : {}),
     ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),
+    ...(dynamics ? { dynamics } : {}),
     ...(codegen ? { codegen } : {}),
     kind: 'channel',
     ...base(ref, r),
