@@ -3,6 +3,7 @@
 // and emits marker-wrapped C blocks.
 
 import { INT16_MAX, INT16_MIN, clamp } from './arith';
+import { MAX_AVERAGE_LOG2, MAX_RECURSIVE_SHIFT } from '../analysis/dynamics';
 import { GAIN_Q, GAIN_Q_MAX, applyTrim, trimDesign } from './calibration';
 import { CAUTION_LINES, emitHeaderBody, emitSourceBody, type ChannelPlan } from './emit';
 import { renderBlock } from './markers';
@@ -74,6 +75,13 @@ export function validateInput(c: ConversionInput): void {
       fail(c, field, `must be an integer 0..${top} outside the in-range codes ${c.codeLow}..${c.codeHigh}, got ${v}`);
   }
   if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
+  const fl = c.filter;
+  if (fl !== undefined) {
+    const ok =
+      fl.kind === 'recursive' ? Number.isInteger(fl.shift) && fl.shift >= 1 && fl.shift <= MAX_RECURSIVE_SHIFT
+        : fl.kind === 'average' ? Number.isInteger(fl.log2n) && fl.log2n >= 1 && fl.log2n <= MAX_AVERAGE_LOG2 : false;
+    if (!ok) fail(c, 'filter', `must be a recursive filter of shift 1..${MAX_RECURSIVE_SHIFT} or an average of 2^1..2^${MAX_AVERAGE_LOG2} values, got ${JSON.stringify(fl)}`);
+  }
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
 
@@ -359,6 +367,7 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
       maxErrorC: worst / c.outputScale,
       errorTarget: c.errorTarget,
       ...(c.method === 'line' ? { line: true } : {}),
+      ...(c.filter ? { filter: c.filter, ...(c.samplePeriodS !== undefined ? { samplePeriodS: c.samplePeriodS } : {}) } : {}),
       note: c.note,
     });
     samples.push(s);

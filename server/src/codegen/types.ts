@@ -45,6 +45,10 @@ export interface ConversionInput {
   specHash: string;
   /** Free text from the spec, written into a comment after sanitising. */
   note?: string;
+  /** A firmware filter to emit beside the conversion (codegen/filter.ts); absent: none. */
+  filter?: import('./filter').CodeFilter;
+  /** Time between the values the filter takes, s (for its comment). */
+  samplePeriodS?: number;
 }
 
 export interface GeneratedChannel {
@@ -122,6 +126,7 @@ const SPEC_WORDS: Record<string, string> = {
   'calibration.gain': 'calibration',
   codeLow: 'ADC code range',
   codeHigh: 'ADC code range',
+  filter: 'noise_limit',
 };
 
 export class CodegenInputError extends Error {
