@@ -11,6 +11,7 @@ import { conversionInput, generatableResults } from '../server/src/codegen/chann
 import { junctionChannel, loadOperatingPoint } from '../tests/fixtures/codegen/channels';
 import { compareOnTargets, formatComparison } from '../tests/fixtures/codegen/measure';
 import { toolVersion } from '../tests/fixtures/codegen/toolchain';
+import { benchFilters } from './filter';
 import type { ConversionInput } from '../server/src/codegen/types';
 
 export async function benchCodegen(): Promise<void> {
@@ -36,6 +37,7 @@ export async function benchCodegen(): Promise<void> {
   console.log(`   (measured in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
   benchVariants(junctionChannel(op));
   benchSamples();
+  benchFilters();
 }
 
 /** The same channel at 0.01 °C and 0.1 °C output, and with run-time trims: bytes and cycles. */
