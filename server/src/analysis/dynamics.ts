@@ -316,3 +316,15 @@ function responseShortfall(none: FilterFigures, spec: DynamicsSpec, tauWorstS: n
   }
   return `${parts.join('; ')}; no firmware filter can make the reading faster`;
 }
+
+/** The channel hover's one line on the response: lag, settling, the chosen filter and its noise. */
+export function dynamicsLine(d: DynamicsResult): string {
+  if (d.missing.length > 0 || !d.spec.timeConstant) return `Response: not worked out; it also needs ${d.missing.join('; ')}`;
+  const c = d.chosen;
+  const parts: string[] = [];
+  if (d.spec.rampLag && c.lagK !== null) parts.push(`lag **${fmt(c.lagK)} K** at ${fmt(d.spec.rampLag.rampKPerS * 60)} K/min (ramp_lag ${fmt(d.spec.rampLag.lagK)} K)`);
+  if (d.spec.settling && c.settleS !== null && d.epsK !== null) parts.push(`within ±${fmt(d.epsK)} K **${fmt(c.settleS)} s** after a ${fmt(d.stepK)} K step (settling ${fmt(d.spec.settling.seconds)} s)`);
+  const noise = c.noiseK === null ? '' : `, noise ${fmt(c.noiseK)} K rms${d.spec.noiseLimitK !== undefined ? ` (noise_limit ${fmt(d.spec.noiseLimitK)} K)` : ''}`;
+  parts.push(`filter: ${filterWords(c.filter)}${noise}`);
+  return `Response (time constant ${fmt(d.tauWorstS)} s at its slowest${d.samplePeriodS !== null ? `, sampled every ${fmt(d.samplePeriodS)} s` : ''}): ${parts.join('; ')}${d.shortfall ? ' — misses a target (see the problems list)' : ''}`;
+}

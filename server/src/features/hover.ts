@@ -16,6 +16,7 @@ import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from '../analysis/figures';
 import { budgetHoverSection } from './budget-hover';
+import { channelDynamics, dynamicsLine } from '../analysis/dynamics';
 import { kindOf, sensorKind } from '../sensors/registry';
 
 export interface HoverResult {
@@ -128,6 +129,7 @@ export function channelHover(r: ChannelResult): string {
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)} (θJA ${f.trimNumber(c.thetaJA, 4)} K/W)`,
     `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
     ...(r.budget ? [budgetHoverSection(r.budget)] : []),
+    ...(c.dynamics ? [dynamicsLine(channelDynamics(r)!)] : []),
     SHORT_CAUTION,
   ].join('\n\n');
 }

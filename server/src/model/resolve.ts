@@ -13,8 +13,7 @@ import { readUnit } from './units';
 import { closest } from './suggest';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
-import { readDynamics } from './read-dynamics';
-import { isTwoCurrentBias, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
+import { isTwoCurrentBias, readDynamics, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
 import { shown } from '../diagnostics/shown';
 
 export interface BlockRef {

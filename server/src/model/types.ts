@@ -103,7 +103,7 @@ export interface ChannelDef extends DefBase {
   wiring?: WiringDef;
   /** Channels with the same group are alternatives for one measurement (`thermoscribe compare`). */
   compareGroup?: string;
-  /** How fast the channel follows and what it needs (read-dynamics.ts); absent when no such field is given. */
+  /** How fast the channel follows and what it needs (read-budget-spec.ts); absent when no such field is given. */
   dynamics?: DynamicsSpec;
 }
 
