@@ -88,12 +88,17 @@ export function firstOrderSettling(tauS: number, stepK: number, epsK: number): n
   return epsK >= stepK ? 0 : tauS * Math.log(stepK / epsK);
 }
 
-/** (e^(na) − e^(nb)) / (e^a − e^b), for a, b < 0; its limit n·e^((n−1)a) when a = b. */
+/**
+ * (e^(na) − e^(nb)) / (e^a − e^b) for a, b < 0 (a sum of n terms e^(ja + (n−1−j)b)), symmetric in a
+ * and b: with h the larger and d = min − max <= 0 it is e^((n−1)h)·expm1(n d)/expm1(d), free of the
+ * cancellation of the plain difference when a and b are close; n·e^((n−1)a) when they are equal.
+ */
 function powerDifference(a: number, b: number, n: number): number {
-  const d = a - b;
-  if (Math.abs(d) < 1e-9 * Math.max(Math.abs(a), Math.abs(b), 1e-300)) return n * Math.exp((n - 1) * (a + b) / 2);
-  const den = Math.exp(a) - Math.exp(b);
-  return (Math.exp(n * a) - Math.exp(n * b)) / den;
+  const h = Math.max(a, b);
+  const d = Math.min(a, b) - h;
+  if (n === 0) return 0;
+  if (d === 0) return n * Math.exp((n - 1) * h);
+  return Math.exp((n - 1) * h) * (Math.expm1(n * d) / Math.expm1(d));
 }
 
 /**
