@@ -11,7 +11,8 @@ import { filterReset, filterUpdate, filterZero, type CodeFilter } from '../../..
 import { recursiveTimeConstant, stepRemainder } from '../../../server/src/analysis/dynamics';
 import { Xoshiro128 } from '../../../server/src/budget/prng';
 import { syntheticDiodeChannel } from '../../fixtures/codegen/channels';
-import { WorkDir, hasTool, run } from '../../fixtures/codegen/toolchain';
+import { WorkDir, hasTool, missingTools, run } from '../../fixtures/codegen/toolchain';
+import { filterOnAvr } from '../../fixtures/codegen/filter-avr';
 
 const STRICT = ['-std=c99', '-pedantic', '-Wall', '-Wextra', '-Wconversion', '-Wsign-conversion', '-Werror', '-O1'];
 const SANITIZE = ['-fsanitize=address,undefined', '-fno-sanitize-recover=all', '-fno-omit-frame-pointer'];
@@ -109,5 +110,18 @@ describe.skipIf(!haveGcc)('generated filter on the host compiler, strict warning
         expect(Math.abs(y - 40000 * (1 - stepRemainder(f, 20, 1, n))), `${JSON.stringify(f)} at ${n}`).toBeLessThanOrEqual(1.5);
       });
     });
+  });
+});
+
+const avrMissing = missingTools(['avr-gcc', 'avr-size', 'simavr']);
+if (avrMissing.length > 0) console.log(`filter-compile: AVR run skipped, missing ${avrMissing.join(', ')}`);
+
+describe.skipIf(avrMissing.length > 0)('generated filter on the 8-bit target (avr-gcc, simavr)', () => {
+  it('gives exactly the outputs of the TypeScript simulation (bytes and cycles: npm run bench)', () => {
+    for (const f of [{ kind: 'recursive', shift: 5 }, { kind: 'recursive', shift: 16 }, { kind: 'average', log2n: 4 }] as CodeFilter[]) {
+      const m = filterOnAvr(f);
+      expect(m.outputs, JSON.stringify(f)).toEqual(m.expected);
+      expect(m.flashBytes).toBeGreaterThan(0);
+    }
   });
 });
