@@ -6,6 +6,7 @@ import { defineConfig } from 'vitest/config';
 // runs both projects.
 const TOOLCHAIN_TESTS = [
   'tests/unit/codegen/faults-edges.test.ts',
+  'tests/unit/codegen/filter-compile.test.ts',
   'tests/unit/codegen/host-compile.test.ts',
   'tests/unit/codegen/hostile-text.test.ts',
   'tests/unit/codegen/measured-oversampling.test.ts',

@@ -11,6 +11,7 @@ import { conversionInput, generatableResults } from '../server/src/codegen/chann
 import { junctionChannel, loadOperatingPoint } from '../tests/fixtures/codegen/channels';
 import { compareOnTargets, formatComparison } from '../tests/fixtures/codegen/measure';
 import { toolVersion } from '../tests/fixtures/codegen/toolchain';
+import { benchFilters } from './filter';
 import type { ConversionInput } from '../server/src/codegen/types';
 import { planCompensated, simulateCompensated } from '../server/src/codegen/compensated';
 import { thermocoupleConversionInput } from '../server/src/sensors/thermocouple/codegen';
@@ -41,6 +42,7 @@ export async function benchCodegen(): Promise<void> {
   benchVariants(junctionChannel(op));
   benchSamples();
   benchThermocouples();
+  benchFilters();
 }
 
 /** The same channel at 0.01 °C and 0.1 °C output, and with run-time trims: bytes and cycles. */

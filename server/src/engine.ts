@@ -271,6 +271,7 @@ export { fixedNumber, formatSI, trimNumber } from './model/read-value';
 export { isInside } from './model/workspace';
 export { plotData, plotProblem, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
+export { filterWords } from './analysis/dynamics';
 export { plotSpec, type ChartKind } from './plot/spec';
 export { CAUTION } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';

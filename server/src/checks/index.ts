@@ -13,6 +13,7 @@ import { checkAccuracy } from './accuracy';
 import { checkCalibrationFit } from './calibration-fit';
 import { checkSaturation } from './saturation';
 import { checkSensorFault } from './sensor-fault';
+import { checkDynamics } from './dynamics';
 import type { ChannelDef } from '../model/types';
 import { kindOf } from '../sensors/registry';
 
@@ -30,6 +31,7 @@ const COMMON: readonly Check[] = [
   checkOversampling,
   checkAccuracy,
   checkCalibrationFit,
+  checkDynamics,
 ];
 
 const byKind = new Map<string, readonly Check[]>();

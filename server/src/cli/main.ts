@@ -17,7 +17,7 @@ usage:
   ${BUDGET_USAGE}
                                     error budget: worst case, Monte Carlo, calibration
   ${PLOT_USAGE}
-                                    one channel's transfer curve and error bands as SVG
+                                    one channel's transfer curve, error bands and response as SVG
   ${GEN_USAGE}
                                     write the channels' C conversion code and header
   ${COMPARE_USAGE}

@@ -8,6 +8,7 @@
 import * as path from 'node:path';
 import { channelKey } from '../analysis/cache';
 import { kelvinAtVolts } from '../analysis/inverse';
+import { channelDynamics } from '../analysis/dynamics';
 import { sense } from '../analysis/sense';
 import { fitMeasured, fittedChannel } from '../calibration/fit';
 import type { ChannelResult } from '../analysis/types';
@@ -186,6 +187,9 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     );
   }
   notes.push(...faultNotes(faults));
+  // The firmware filter chosen for the channel's noise limit (analysis/dynamics.ts), when there is one.
+  const dynamics = channelDynamics(r);
+  const filter = dynamics && dynamics.chosen.filter.kind !== 'none' ? dynamics.chosen.filter : undefined;
   return {
     channelName: c.name,
     bits,
@@ -204,5 +208,6 @@ export function conversionInput(r: ChannelResult, specPath: string): ConversionI
     specHash: channelSpecHash(c),
     note: notes.join(' '),
     ...('prefix' in opts && opts.prefix ? { prefix: opts.prefix } : {}),
+    ...(filter ? { filter, ...(dynamics!.samplePeriodS !== null ? { samplePeriodS: dynamics!.samplePeriodS } : {}) } : {}),
   };
 }

@@ -3,6 +3,7 @@
 // the error target in exact integer simulation, and plans its C (generate.ts writes it).
 
 import { INT16_MAX, INT16_MIN, clamp } from './arith';
+import { MAX_AVERAGE_LOG2, MAX_RECURSIVE_SHIFT } from '../analysis/dynamics';
 import { GAIN_Q, GAIN_Q_MAX, TWO_POINT_FRAC, applyTrim, trimDesign } from './calibration';
 import type { ChannelPlan } from './emit';
 import { uniqueIdentifiers } from './names';
@@ -70,6 +71,13 @@ export function validateInput(c: ConversionInput): void {
   if (typeof c.specHash !== 'string') fail(c, 'specHash', 'must be a string');
   const ownPrefix = c.prefix === undefined ? undefined : typeof c.prefix === 'string' ? prefixProblem(c.prefix) : 'must be a string';
   if (ownPrefix) fail(c, 'prefix', ownPrefix);
+  const fl = c.filter;
+  if (fl !== undefined) {
+    const ok =
+      fl.kind === 'recursive' ? Number.isInteger(fl.shift) && fl.shift >= 1 && fl.shift <= MAX_RECURSIVE_SHIFT
+        : fl.kind === 'average' ? Number.isInteger(fl.log2n) && fl.log2n >= 1 && fl.log2n <= MAX_AVERAGE_LOG2 : false;
+    if (!ok) fail(c, 'filter', `must be a recursive filter of shift 1..${MAX_RECURSIVE_SHIFT} or an average of 2^1..2^${MAX_AVERAGE_LOG2} values, got ${JSON.stringify(fl)}`);
+  }
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
 
@@ -362,6 +370,7 @@ export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan;
       maxErrorC: worst / c.outputScale,
       errorTarget: c.errorTarget,
       ...(c.method === 'line' ? { line: true } : {}),
+      ...(c.filter ? { filter: c.filter, ...(c.samplePeriodS !== undefined ? { samplePeriodS: c.samplePeriodS } : {}) } : {}),
       note: c.note,
     };
     return { plan, samples: s, bytes: ch.bytes + (c.floatVariant ? CODE_BYTES.floatVariant : 0) };

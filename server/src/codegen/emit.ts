@@ -3,6 +3,7 @@
 
 import { GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, type TrimDesign } from './calibration';
 import { commentLines } from './names';
+import { filterDeclarations, filterDefinitions, type CodeFilter } from './filter';
 import type { PolyDesign } from './polynomial';
 import type { TableDesign } from './table';
 
@@ -42,6 +43,9 @@ export interface ChannelPlan {
   errorTarget: number;
   /** A straight line asked for by the spec (`conversion = line`): its error is not held to the target. */
   line?: boolean;
+  /** A firmware filter emitted beside the conversion (codegen/filter.ts). */
+  filter?: CodeFilter;
+  samplePeriodS?: number;
   note?: string;
 }
 
@@ -292,6 +296,7 @@ function declarations(p: ChannelPlan): string {
     );
   }
   if (p.floatVariant) out.push(`uint8_t ${n.fnF}(uint16_t code, float *celsius);`);
+  if (p.filter) out.push(filterDeclarations(p.ident, p.filter, p.samplePeriodS));
   // Guarded: a self-contained block and the header may meet in one translation unit, and a
   // typedef given twice is an error before C11.
   return [`#ifndef ${n.up}_DECLARED`, `#define ${n.up}_DECLARED 1`, ...out, '#endif'].join('\n');
@@ -542,6 +547,7 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
     parts.push(conversionFunction(p, n, k, `uint8_t ${n.fn}(uint16_t code, ${n.type} *out)`));
   }
   if (p.floatVariant) parts.push(floatVariant(p, n));
+  if (p.filter) parts.push(filterDefinitions(p.ident, p.filter));
   return `${parts.join('\n')}\n`;
 }
 

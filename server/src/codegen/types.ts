@@ -47,6 +47,10 @@ export interface ConversionInput {
   note?: string;
   /** Put before every identifier of this channel (the spec's `code_prefix`); wins over GenerateOptions.prefix. */
   prefix?: string;
+  /** A firmware filter to emit beside the conversion (codegen/filter.ts); absent: none. */
+  filter?: import('./filter').CodeFilter;
+  /** Time between the values the filter takes, s (for its comment). */
+  samplePeriodS?: number;
 }
 
 export interface GeneratedChannel {

@@ -16,6 +16,7 @@ import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from '../analysis/figures';
 import { budgetHoverSection } from './budget-hover';
+import { channelDynamics, dynamicsLine } from '../analysis/dynamics';
 import { kindOf, sensorKind } from '../sensors/registry';
 import { OUTLIER_RULE, residualRows } from '../calibration/fit';
 import { escapeControls, shown } from '../diagnostics/shown';
@@ -130,6 +131,7 @@ export function channelHover(r: ChannelResult): string {
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)} (θJA ${f.trimNumber(c.thetaJA, 4)} K/W)`,
     `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
     ...(r.budget ? [budgetHoverSection(r.budget)] : []),
+    ...(c.dynamics ? [dynamicsLine(channelDynamics(r)!)] : []),
     SHORT_CAUTION,
     ...(kindOf(c.sensor).cautions ?? []),
   ].join('\n\n');
@@ -246,7 +248,7 @@ function quantityMeaning(kind: BlockKind, key: string, field: FieldNode, index: 
 
 const BASE_UNIT: Record<Dimension, string> = {
   voltage: 'V', current: 'A', resistance: 'Ω', capacitance: 'F', temperature: 'K', energy: 'eV', power: 'W',
-  'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
+  'thermal-resistance': 'K/W', ratio: '', count: 'counts', time: 's', 'temperature-rate': 'K/s', dimensionless: '',
 };
 
 function valueText(q: QuantityTerm, m: Meaning): string | null {

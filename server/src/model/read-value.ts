@@ -75,7 +75,7 @@ export function scaleBy(value: number, scale: number): number {
 function exampleUnit(d: Dimension): string {
   const ex: Record<Dimension, string> = {
     voltage: '3.3 V', current: '100 uA', resistance: '4k7', capacitance: '100 nF', temperature: '25 °C', energy: '1.11 eV',
-    power: '10 mW', 'thermal-resistance': '350 K/W', ratio: '1 %', count: '8 counts', dimensionless: '3',
+    power: '10 mW', 'thermal-resistance': '350 K/W', ratio: '1 %', count: '8 counts', time: '10 s', 'temperature-rate': '2 K/min', dimensionless: '3',
   };
   return ex[d];
 }
@@ -108,7 +108,7 @@ export function readTolerance(tol: QuantityTerm, nominal: number, dimension: Dim
 
 const BASE_UNIT: Record<Dimension, string> = {
   voltage: 'V', current: 'A', resistance: 'Ω', capacitance: 'F', temperature: 'K', energy: 'eV', power: 'W',
-  'thermal-resistance': 'K/W', ratio: '', count: 'counts', dimensionless: '',
+  'thermal-resistance': 'K/W', ratio: '', count: 'counts', time: 's', 'temperature-rate': 'K/s', dimensionless: '',
 };
 
 /** A quantity's domain in words: "from 1 to 1000000 Ω", "above 0 and at most 1". */

@@ -15,7 +15,7 @@ import { prefixProblem } from './code-prefix';
 import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
 import { BlockReader, type BlockRef, type Resolution } from './block-reader';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
-import { isTwoCurrentBias, readBenchRef, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
+import { isTwoCurrentBias, readBenchRef, readDynamics, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
 import { shown } from '../diagnostics/shown';
 
 const ZERO_C = 273.15;
@@ -452,6 +452,8 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, chann
   const calReference = phrase('cal_reference', (t) => readCalReference(t, r.ctx('cal_reference')));
   const monteCarlo = phrase('monte_carlo', (t) => readMonteCarlo(t, r.ctx('monte_carlo')));
   const oversampling = phrase('oversampling', (t) => readOversampling(t, r.ctx('oversampling')));
+  const dynamics = readDynamics((n) => r.terms(n), (n) => r.ctx(n), (n) => r.quantity(n));
+  if (dynamics === null) r.ok = false;
   // Resistive-sensor fields (read-sensors.ts).
   const extras = readChannelExtras(r, sensor, bias, adc, range, channelRef);
   if (twin && sensor && !kindOf(sensor).twoCurrent) {
@@ -469,6 +471,7 @@ function readChannel(ref: BlockRef, res: Resolution, sink: DiagnosticSink, chann
     ...(monteCarlo ? { monteCarlo } : {}),
     ...(calReference !== undefined ? { calReferenceK: calReference } : {}),
     ...(oversampling !== undefined ? { oversamplingBits: oversampling } : {}),
+    ...(dynamics ? { dynamics } : {}),
     ...(codegen ? { codegen } : {}),
     kind: 'channel',
     ...base(ref, r),

@@ -114,6 +114,12 @@ const channel = (): BlockSpec => ({
     { name: 'compare_group', form: { form: 'phrase', syntax: 'name' }, doc: 'Channels with the same group name are alternative designs of one measurement; `thermoscribe compare` lays them out side by side.', example: 'compare_group = fridge', optional: true },
     // The fields only one sensor kind takes, from its folder (sensors/kind.ts `channelBlockFields`).
     ...sensorKinds().flatMap((k) => k.channelBlockFields ?? []),
+    // Dynamics and the firmware filter (model/read-budget-spec.ts, analysis/dynamics.ts).
+    { name: 'time_constant', form: { form: 'quantity', dimension: 'time', tolerance: true, min: 1e-3, minInclusive: true, max: 1e5 }, doc: 'Thermal time constant of the sensor in its mounting (the time to 63 % of a step of the medium), with an optional tolerance: `8 s ± 25 %`. The lag, the settling and the filter are worked out with the slowest value. From a datasheet for the stated mounting, or measured by plunging the mounted sensor into a stirred bath.', example: 'time_constant = 8 s ± 25 %', optional: true },
+    { name: 'sample_period', form: { form: 'quantity', dimension: 'time', min: 1e-6, minInclusive: true, max: 3600 }, doc: 'Time between the values the firmware filter takes (with oversampling, between decimated values). Needed to choose a filter for `noise_limit`.', example: 'sample_period = 100 ms', optional: true },
+    { name: 'settling', form: { form: 'phrase', syntax: 't [for d step]' }, doc: 'Response needed after a step of the medium: the filtered reading within the `accuracy` of the new temperature within t, for a step of d (default: the whole range).', example: 'settling = 30 s for 20 K step', optional: true, words: ['for', 'step'] },
+    { name: 'ramp_lag', form: { form: 'phrase', syntax: 'x at r' }, doc: 'Response needed while the medium ramps: the filtered reading behind the medium by at most x at a ramp of r (K/min or K/s), in steady state at the sample instants.', example: 'ramp_lag = 0.5 K at 2 K/min', optional: true, words: ['at'] },
+    { name: 'noise_limit', form: { form: 'phrase', syntax: 'n [rms]' }, doc: 'Largest noise of the filtered reading, rms, from the adc `noise` (through the channel\'s coarsest °C per count) and the rounding of the readings. The tool chooses the firmware filter that meets it without missing `settling` or `ramp_lag`; without it no filter is chosen.', example: 'noise_limit = 0.05 °C rms', optional: true, words: ['rms'] },
   ],
 });
 
@@ -141,6 +147,16 @@ export const PART_DOMAINS = {
   accuracy: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-3, minInclusive: true, max: 1000 },
   /** The bounds of a current window: 1 pA to 1 A. */
   currentBound: { form: 'quantity', dimension: 'current', min: 1e-12, minInclusive: true, max: 1 },
+  /** A settling time: 1 ms to 1e6 s (about 11 days). */
+  settleTime: { form: 'quantity', dimension: 'time', min: 1e-3, minInclusive: true, max: 1e6 },
+  /** A step of the medium for `settling`: 1 mK to 1000 K. */
+  settleStep: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-3, minInclusive: true, max: 1000 },
+  /** A lag allowed at a ramp: 0.1 mK to 100 K. */
+  rampLag: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-4, minInclusive: true, max: 100 },
+  /** A ramp of the medium: 1e-6 K/s (0.06 mK/min) to 100 K/s. */
+  ramp: { form: 'quantity', dimension: 'temperature-rate', min: 1e-6, minInclusive: true, max: 100 },
+  /** A noise limit, rms: 1 µK to 100 K. */
+  noiseLimit: { form: 'quantity', dimension: 'temperature', difference: true, min: 1e-6, minInclusive: true, max: 100 },
 } as const satisfies Record<string, QuantityDomain>;
 
 let blocks: Map<string, BlockSpec> | undefined;

@@ -114,6 +114,26 @@ export interface ChannelDef extends DefBase {
   linked?: Record<string, ChannelDef>;
   /** The sensor kind's own channel fields, read by its `readChannel` (sensors/<kind>/types.ts says what). */
   kindFields?: object;
+  /** How fast the channel follows and what it needs (read-budget-spec.ts); absent when no such field is given. */
+  dynamics?: DynamicsSpec;
+}
+
+/**
+ * The dynamics fields of a channel (`time_constant`, `sample_period`, `settling`, `ramp_lag`,
+ * `noise_limit`), in SI units. Each is absent when not given; analysis/dynamics.ts says what is
+ * missing for a figure.
+ */
+export interface DynamicsSpec {
+  /** Thermal time constant of the sensor in its mounting, s, with its relative tolerance. */
+  timeConstant?: { seconds: number; tolerance: number };
+  /** Time between the values the firmware filter takes, s. */
+  samplePeriodS?: number;
+  /** Settle to within the accuracy within `seconds` after a step of `stepK` (absent: the whole range). */
+  settling?: { seconds: number; stepK?: number };
+  /** Lag of at most `lagK` while the medium ramps at `rampKPerS`. */
+  rampLag?: { lagK: number; rampKPerS: number };
+  /** Noise of the filtered reading, K rms, at most. */
+  noiseLimitK?: number;
 }
 
 /** Fields `output`, `code_error`, `code_method`, `float_variant` of a channel. */

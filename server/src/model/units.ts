@@ -13,6 +13,8 @@ export type Dimension =
   | 'thermal-resistance'
   | 'ratio'
   | 'count'
+  | 'time'
+  | 'temperature-rate'
   | 'dimensionless';
 
 export const DIMENSION_WORDS: Record<Dimension, string> = {
@@ -26,6 +28,8 @@ export const DIMENSION_WORDS: Record<Dimension, string> = {
   'thermal-resistance': 'a thermal resistance (K/W)',
   ratio: 'a ratio (% or ppm)',
   count: 'a count of ADC codes',
+  time: 'a time (s, ms or min)',
+  'temperature-rate': 'a rate of temperature change (K/min or K/s)',
   dimensionless: 'a plain number',
 };
 
@@ -69,7 +73,8 @@ const CORE: Record<string, Core> = {
   count: { dimension: 'count', scale: 1, offset: 0, prefixable: false },
   counts: { dimension: 'count', scale: 1, offset: 0, prefixable: false },
   LSB: { dimension: 'count', scale: 1, offset: 0, prefixable: false },
-  s: { dimension: 'dimensionless', scale: 1, offset: 0, prefixable: true },
+  s: { dimension: 'time', scale: 1, offset: 0, prefixable: true },
+  min: { dimension: 'time', scale: 60, offset: 0, prefixable: false },
   Hz: { dimension: 'dimensionless', scale: 1, offset: 0, prefixable: true },
 };
 
@@ -92,6 +97,8 @@ export const SUGGESTED_UNITS: Record<Dimension, [string, string][]> = {
   'thermal-resistance': [['K/W', 'kelvin per watt']],
   ratio: [['%', 'percent, 1e-2'], ['ppm', 'parts per million, 1e-6']],
   count: [['counts', 'ADC counts']],
+  time: [['s', 'second'], ['ms', 'millisecond, 1e-3 s'], ['min', 'minute, 60 s']],
+  'temperature-rate': [['K/min', 'kelvin per minute'], ['K/s', 'kelvin per second']],
   dimensionless: [],
 };
 
@@ -106,7 +113,11 @@ export function readUnit(text: string): UnitInfo | string {
     if (num.dimension === 'temperature' && den.dimension === 'power') {
       return { dimension: 'thermal-resistance', scale: num.scale / den.scale, offset: 0, prefixOnly: false };
     }
-    return `unit '${text}' is not one the spec language knows; for a thermal resistance write K/W`;
+    // A temperature change per time (a ramp): °C/min reads as K/min, the offset of °C drops out.
+    if (num.dimension === 'temperature' && den.dimension === 'time') {
+      return { dimension: 'temperature-rate', scale: num.scale / den.scale, offset: 0, prefixOnly: false };
+    }
+    return `unit '${text}' is not one the spec language knows; for a thermal resistance write K/W, for a ramp K/min`;
   }
   return readSimple(text);
 }

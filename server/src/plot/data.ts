@@ -6,6 +6,8 @@ import type { ChannelResult } from '../analysis/types';
 import type { BudgetResult, CalMode } from '../analysis/budget-types';
 import { describeSetting } from '../budget/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
+import { channelDynamics, filterWords, rampLagAt, stepRemainder } from '../analysis/dynamics';
+import { trimNumber } from '../diagnostics/numbers';
 
 export interface TransferSeries {
   celsius: number[];
@@ -44,11 +46,43 @@ export interface ErrorSeries {
   seed: number | null;
 }
 
+/** The channel's response to a step and a ramp of the medium (analysis/dynamics.ts), slowest sensor. */
+export interface DynamicsSeries {
+  /** What was assumed, in words: the time constant, the sample period and the filter. */
+  label: string;
+  step: {
+    /** Time after the step, s. */
+    t: number[];
+    /** The sensor (first order, continuous) and the filtered reading at the sample instants, K above the old temperature. */
+    sensor: number[];
+    reading: number[];
+    stepK: number;
+    /** Settle to within this of the new temperature, K (the accuracy); null when none is stated. */
+    epsK: number | null;
+    /** When the reading stays within it, s, and the target, s (null when not stated). */
+    settleS: number | null;
+    targetS: number | null;
+  };
+  /** Null when no ramp is stated. */
+  ramp: {
+    t: number[];
+    /** Lag behind the medium, K: the sensor, and the filtered reading at the sample instants. */
+    sensorLag: number[];
+    readingLag: number[];
+    rampKPerMin: number;
+    /** Steady-state lag of the reading and the target, K. */
+    lagK: number;
+    targetK: number;
+  } | null;
+}
+
 export interface PlotData {
   channel: string;
   transfer: TransferSeries;
   /** Null when the budget could not be computed (the diagnostics say why). */
   error: ErrorSeries | null;
+  /** Null when the channel states no time constant (or lacks what its figures need). */
+  dynamics?: DynamicsSeries | null;
   notes: string[];
 }
 
@@ -65,7 +99,55 @@ export function plotData(result: ChannelResult, budget: BudgetResult | null | un
     bits: c.adc.bits,
     referenceVolts: c.adc.reference.value,
   };
-  return { channel: c.name, transfer, error: budget ? errorSeries(budget, notes) : null, notes };
+  const dynamics = dynamicsSeries(result);
+  return { channel: c.name, transfer, error: budget ? errorSeries(budget, notes) : null, ...(dynamics ? { dynamics } : {}), notes };
+}
+
+/** Points drawn per curve, at most. */
+const CURVE_POINTS = 240;
+
+/** The step and ramp responses of the chosen filter behind the slowest sensor; null without the figures. */
+export function dynamicsSeries(result: ChannelResult): DynamicsSeries | null {
+  const d = channelDynamics(result);
+  if (!d || d.missing.length > 0 || !d.spec.timeConstant) return null;
+  const tau = d.tauWorstS;
+  const T = d.samplePeriodS;
+  const f = d.chosen.filter;
+  const target = d.spec.settling?.seconds ?? null;
+  // Long enough to show the settling and five time constants, and the filter's own length.
+  const tEnd = Math.max(5 * tau, 1.2 * (d.chosen.settleS ?? 0), 1.2 * (target ?? 0), T === null ? 0 : 40 * T);
+  // Sample instants when a period is given (every k-th one), else an even grid.
+  const times: number[] = [];
+  const samples: number[] = [];
+  if (T === null) for (let i = 0; i <= CURVE_POINTS; i++) times.push((tEnd * i) / CURVE_POINTS);
+  else {
+    const nEnd = Math.ceil(tEnd / T);
+    const stride = Math.max(1, Math.ceil(nEnd / CURVE_POINTS));
+    for (let n = 0; n <= nEnd; n += stride) (samples.push(n), times.push(n * T));
+  }
+  const sensorAt = (t: number) => d.stepK * -Math.expm1(-t / tau);
+  const step = {
+    t: times,
+    sensor: times.map(sensorAt),
+    reading: T === null ? times.map(sensorAt) : samples.map((n) => d.stepK * (1 - stepRemainder(f, tau, T, n))),
+    stepK: d.stepK,
+    epsK: d.epsK,
+    settleS: d.chosen.settleS,
+    targetS: target,
+  };
+  const r = d.spec.rampLag;
+  const ramp = r
+    ? {
+        t: times,
+        sensorLag: times.map((t) => r.rampKPerS * tau * -Math.expm1(-t / tau)),
+        readingLag: T === null ? times.map((t) => r.rampKPerS * tau * -Math.expm1(-t / tau)) : samples.map((n) => r.rampKPerS * rampLagAt(f, tau, T, n)),
+        rampKPerMin: r.rampKPerS * 60,
+        lagK: d.chosen.lagK ?? r.rampKPerS * tau,
+        targetK: r.lagK,
+      }
+    : null;
+  const label = `sensor time constant ${trimNumber(tau, 3)} s (slowest)${T === null ? ', read continuously' : `, sampled every ${trimNumber(T, 3)} s`}; filter: ${filterWords(f)}`;
+  return { label, step, ramp };
 }
 
 /** Beyond this magnitude a figure is not drawn (chart scales and labels stay readable and finite). */
@@ -75,14 +157,20 @@ const DRAWABLE = 1e12;
  * Why the data cannot be drawn as asked (fewer than two finite points, or a figure too large for a
  * chart), in the spec's words; null when it can. Checked before drawing, so nothing half-drawn is written.
  */
-export function plotProblem(d: PlotData, chart: 'both' | 'transfer' | 'error'): string | null {
+export function plotProblem(d: PlotData, chart: 'both' | 'transfer' | 'error' | 'dynamics'): string | null {
   const ok = (a: number[]) => a.every((x) => Number.isFinite(x) && Math.abs(x) <= DRAWABLE);
   const t = d.transfer;
-  if (chart !== 'error') {
+  if (chart === 'dynamics' || (chart === 'both' && d.dynamics)) {
+    const y = d.dynamics;
+    if (!y) return `channel '${d.channel}' states no time_constant (or its dynamics lack a field, see the problems list): there is no response to draw`;
+    if (!ok(y.step.t) || !ok(y.step.sensor) || !ok(y.step.reading) || (y.ramp && (!ok(y.ramp.readingLag) || !ok(y.ramp.sensorLag)))) return `channel '${d.channel}': the response leaves the drawable range; check time_constant, sample_period and the step`;
+    if (chart === 'dynamics') return null;
+  }
+  if (chart === 'both' || chart === 'transfer') {
     if (t.celsius.length < 2) return `channel '${d.channel}' has fewer than two sweep points with a finite voltage to draw`;
     if (!ok(t.volts) || !ok(t.celsius)) return `channel '${d.channel}': the sensed voltage leaves the drawable range (±${DRAWABLE} V); check the bias and gain`;
   }
-  if (chart !== 'transfer') {
+  if (chart === 'both' || chart === 'error') {
     const e = d.error;
     if (!e || e.celsius.length < 2) return `channel '${d.channel}': the error budget has fewer than two temperatures with a finite error to draw`;
     for (const m of e.modes) {

@@ -6,10 +6,11 @@
 // strict content security policy (with vega-interpreter) as well as in Node.
 import { trimNumber } from '../diagnostics/numbers';
 import type { CalMode } from '../analysis/budget-types';
-import type { ErrorSeries, ModeBand, PlotData } from './data';
+import type { DynamicsSeries, ErrorSeries, ModeBand, PlotData } from './data';
 import { NEUTRAL_THEME, type PlotTheme } from './theme';
 
-export type ChartKind = 'both' | 'transfer' | 'error';
+/** `both`: every chart the data has (transfer, error, and the response when the channel states its dynamics). */
+export type ChartKind = 'both' | 'transfer' | 'error' | 'dynamics';
 export type VegaSpec = Record<string, unknown>;
 
 /** Series labels as they appear in the charts (tests look for them). */
@@ -22,6 +23,10 @@ export const LABELS = {
   median: 'Monte Carlo median',
   target: 'accuracy target',
   calibration: 'calibration point',
+  sensor: 'sensor alone',
+  reading: 'filtered reading',
+  settleBand: 'within the accuracy',
+  lagTarget: 'ramp_lag target',
 } as const;
 
 // Two lines: Vega measures text without a canvas in Node by a rough estimate, and one long line widens the SVG.
@@ -61,7 +66,7 @@ export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {
     y += TITLE_GAP + (sub ? theme.fontSize : 0) + PANEL_TITLE;
   };
 
-  if (chart !== 'error') {
+  if (chart === 'both' || chart === 'transfer') {
     const t = data.transfer;
     heading(`Channel ${data.channel}: transfer curve`, `${t.bits}-bit ADC on a ${k3(t.referenceVolts)} V reference`);
     datasets.push({ name: 'transfer', values: t.celsius.map((c, i) => ({ t: r6(c), v: r6(t.volts[i]!), code: t.code[i]! })) });
@@ -76,7 +81,7 @@ export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {
     y += H_TRANSFER + GAP;
   }
 
-  if (chart !== 'transfer') {
+  if (chart === 'error' || chart === 'both') {
     const e = data.error;
     if (!e || e.celsius.length === 0) {
       heading(`Channel ${data.channel}: error budget`);
@@ -95,6 +100,26 @@ export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {
         y += H_ERROR + GAP;
       }
     }
+  }
+  if ((chart === 'both' || chart === 'dynamics') && data.dynamics) {
+    const d = data.dynamics;
+    heading(`Channel ${data.channel}: response to the medium`, d.label);
+    const key = legendOf(y - PANEL_TITLE, W, [
+      { label: LABELS.sensor, kind: 'line', colour: theme.volts },
+      { label: LABELS.reading, kind: 'line', colour: theme.code },
+      ...(d.step.epsK !== null ? [{ label: LABELS.settleBand, kind: 'line' as const, colour: theme.target, dash: [6, 4] }] : []),
+      ...(d.ramp ? [{ label: LABELS.lagTarget, kind: 'line' as const, colour: theme.worst, dash: [6, 4] }] : []),
+    ], theme, 'legend-dynamics');
+    marks.push(key.mark);
+    y += 24 + (key.rows - 1) * LEGEND_ROW;
+    for (const p of dynamicsPanels(d, y, W, theme, datasets)) {
+      marks.push(p);
+      y += H_ERROR + GAP;
+    }
+  } else if (chart === 'dynamics') {
+    heading(`Channel ${data.channel}: response to the medium`);
+    marks.push(textMark('No response figures: the channel states no time_constant, or its dynamics lack a field (see the problems list).', 0, y, theme, { name: 'no-dynamics' }));
+    y += 30 + GAP;
   }
   marks.push(textMark(CAUTION, 0, y - GAP + 40, theme, { fill: theme.muted, fontStyle: 'italic', name: 'caution' }));
   y += 24;
@@ -161,9 +186,34 @@ function errorPanel(m: ModeBand, e: ErrorSeries, y: number, W: number, theme: Pl
   return panel(`error-${m.mode}`, y, W, H_ERROR, title, xDomain, pad([lo, hi]), 'error, K', theme, inner);
 }
 
+/** The step-response panel and, when a ramp is stated, the ramp-lag panel (time on the x axis). */
+function dynamicsPanels(d: DynamicsSeries, y: number, W: number, theme: PlotTheme, datasets: VegaSpec[]): VegaSpec[] {
+  const out: VegaSpec[] = [];
+  const s = d.step;
+  datasets.push({ name: 'dyn-step', values: s.t.map((t, i) => ({ t: r6(t), s: r6(s.sensor[i]!), r: r6(s.reading[i]!) })) });
+  const xDomain = extent(s.t);
+  const hRule = (name: string, v: number, colour: string) => ({ type: 'rule', name, encode: { enter: { x: { value: 0 }, x2: { value: W }, y: { scale: 'y', value: r6(v) }, stroke: { value: colour }, strokeWidth: { value: 1.5 }, strokeDash: { value: [6, 4] } } } });
+  const vRule = (name: string, t: number, colour: string) => ({ type: 'rule', name, encode: { enter: { x: { scale: 'x', value: r6(t) }, y: { value: 0 }, y2: { value: H_ERROR }, stroke: { value: colour }, strokeDash: { value: [2, 3] } } } });
+  const inner: VegaSpec[] = [lineMark('step-sensor', 'dyn-step', 't', 's', theme.volts, 1.5), lineMark('step-reading', 'dyn-step', 't', 'r', theme.code, 2)];
+  if (s.epsK !== null) inner.push(hRule('settle-low', s.stepK - s.epsK, theme.target), hRule('settle-high', s.stepK + s.epsK, theme.target));
+  if (s.settleS !== null && s.settleS >= xDomain[0] && s.settleS <= xDomain[1]) inner.push(vRule('settled', s.settleS, theme.code));
+  if (s.targetS !== null && s.targetS >= xDomain[0] && s.targetS <= xDomain[1]) inner.push(vRule('settling-target', s.targetS, theme.target));
+  const settled = s.settleS !== null ? `; within ±${k3(s.epsK ?? 0)} K after ${k3(s.settleS)} s` + (s.targetS !== null ? ` (settling asks ${k3(s.targetS)} s)` : '') : '';
+  out.push(panel('dynamics-step', y, W, H_ERROR, `Reading after a step of ${k3(s.stepK)} K${settled}`, xDomain, pad([0, s.stepK + (s.epsK ?? 0)]), 'rise, K', theme, inner, 'time after the step, s'));
+  const r = d.ramp;
+  if (r) {
+    datasets.push({ name: 'dyn-ramp', values: r.t.map((t, i) => ({ t: r6(t), s: r6(r.sensorLag[i]!), r: r6(r.readingLag[i]!) })) });
+    const ramp: VegaSpec[] = [lineMark('ramp-sensor', 'dyn-ramp', 't', 's', theme.volts, 1.5), lineMark('ramp-reading', 'dyn-ramp', 't', 'r', theme.code, 2), hRule('lag-target', r.targetK, theme.worst)];
+    out.push(panel('dynamics-ramp', y + H_ERROR + GAP, W, H_ERROR, `Ramp of ${k3(r.rampKPerMin)} K/min: the reading lags ${k3(r.lagK)} K in steady state (ramp_lag allows ${k3(r.targetK)} K)`, extent(r.t), pad([0, Math.max(r.targetK, ...r.readingLag, ...r.sensorLag)]), 'lag, K', theme, ramp, 'time after the ramp starts, s'));
+  }
+  return out;
+}
+
+type LegendItem = { label: string; kind: 'band' | 'line'; colour: string; opacity?: number; dash?: number[] };
+
 /** A legend drawn as marks (swatch + label per series) above the error panels. */
 function legend(y: number, W: number, e: ErrorSeries, theme: PlotTheme): { mark: VegaSpec; rows: number } {
-  const items: { label: string; kind: 'band' | 'line'; colour: string; opacity?: number; dash?: number[] }[] = [
+  const items: LegendItem[] = [
     { label: LABELS.worst, kind: 'band', colour: theme.worst, opacity: theme.worstOpacity },
   ];
   if (e.runs > 0) {
@@ -173,6 +223,10 @@ function legend(y: number, W: number, e: ErrorSeries, theme: PlotTheme): { mark:
   }
   if (e.targetK !== null) items.push({ label: `${LABELS.target} ±${k3(e.targetK)} K`, kind: 'line', colour: theme.target, dash: [6, 4] });
   if (e.modes.some((m) => m.calibrationCelsius.length > 0)) items.push({ label: LABELS.calibration, kind: 'line', colour: theme.calibration, dash: [2, 3] });
+  return legendOf(y, W, items, theme);
+}
+
+function legendOf(y: number, W: number, items: LegendItem[], theme: PlotTheme, name = 'legend'): { mark: VegaSpec; rows: number } {
   const marks: VegaSpec[] = [];
   let x = 0;
   let row = 0;
@@ -187,10 +241,10 @@ function legend(y: number, W: number, e: ErrorSeries, theme: PlotTheme): { mark:
     marks.push(textMark(it.label, x + 21, r + 1, theme, { name: `legend-${marks.length}` }));
     x += w;
   }
-  return { mark: { type: 'group', name: 'legend', encode: { enter: { x: { value: 0 }, y: { value: y } } }, marks }, rows: row + 1 };
+  return { mark: { type: 'group', name, encode: { enter: { x: { value: 0 }, y: { value: y } } }, marks }, rows: row + 1 };
 }
 
-function panel(name: string, y: number, W: number, H: number, title: string, xDomain: [number, number], yDomain: [number, number], yTitle: string, theme: PlotTheme, marks: VegaSpec[]): VegaSpec {
+function panel(name: string, y: number, W: number, H: number, title: string, xDomain: [number, number], yDomain: [number, number], yTitle: string, theme: PlotTheme, marks: VegaSpec[], xTitle = 'temperature, °C'): VegaSpec {
   return {
     type: 'group',
     name,
@@ -202,7 +256,7 @@ function panel(name: string, y: number, W: number, H: number, title: string, xDo
     ],
     axes: [
       // gridScale: grid lines span the other scale's range (else they take the root's height).
-      { orient: 'bottom', scale: 'x', title: 'temperature, °C', grid: true, gridScale: 'y', tickCount: 8 },
+      { orient: 'bottom', scale: 'x', title: xTitle, grid: true, gridScale: 'y', tickCount: 8 },
       { orient: 'left', scale: 'y', title: yTitle, grid: true, gridScale: 'x', tickCount: 6 },
     ],
     marks,

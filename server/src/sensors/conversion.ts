@@ -81,6 +81,7 @@ const SPEC_WORDS: Record<string, string> = {
   codeLow: 'ADC code range',
   codeHigh: 'ADC code range',
   prefix: 'code_prefix',
+  filter: 'noise_limit',
 };
 
 export class CodegenInputError extends Error {

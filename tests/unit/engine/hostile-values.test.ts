@@ -34,6 +34,7 @@ const SLOTS: Record<string, string> = {
   bits: '12', ref: '3.3', tolRef: '0.5', maxsrc: '50', cap: '8', off: '2', gerr: '0.1', inl: '1', noise: '0.8',
   rb: '100', vs: '3.3', lo: '-10', hi: '50', step: '1', res: '0.5', acc: '1', rd: '10', gain: '1', offs: '0', ib: '100', lead: '0.5', os: '0',
   outU: '0.01', cerr: '0.05',
+  tau: '8', tolTau: '25', ts: '100', settle: '30', sstep: '20', lag: '0.5', ramp: '2', nlim: '0.05',
 };
 
 function spec(v: Record<string, string>): string {
@@ -92,6 +93,12 @@ channel ct {
   offset = ${v.offs} V
   oversampling = ${v.os} bits
   compare_group = g
+  accuracy = ± ${v.acc} °C
+  time_constant = ${v.tau} s ± ${v.tolTau} %
+  sample_period = ${v.ts} ms
+  settling = ${v.settle} s for ${v.sstep} K step
+  ramp_lag = ${v.lag} K at ${v.ramp} K/min
+  noise_limit = ${v.nlim} °C rms
 }
 channel cr {
   sensor = p

@@ -1,6 +1,7 @@
-// thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error] [--runs N] [--seed S] [--root DIR]
-// Writes one channel's charts as an SVG file (atomically): the transfer curve and the error against
-// temperature per calibration mode. Exit status: the one rule of cli/verb.ts (a failed drawing or write is 1).
+// thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error|dynamics] [--runs N] [--seed S] [--root DIR]
+// Writes one channel's charts as an SVG file (atomically): the transfer curve, the error against
+// temperature per calibration mode, and (when the channel states its dynamics) the step response
+// and the ramp lag with the chosen firmware filter. Exit status: the one rule of cli/verb.ts (a failed drawing or write is 1).
 import * as path from 'node:path';
 import { DiskHost } from '../io';
 import { writeFilesTogether } from '../write-files';
@@ -11,7 +12,7 @@ import { plotData, plotProblem } from '../../engine';
 import { plotSpec, type ChartKind } from '../../engine';
 import { renderSvg } from '../../engine';
 
-const CHARTS: readonly ChartKind[] = ['both', 'transfer', 'error'];
+const CHARTS: readonly ChartKind[] = ['both', 'transfer', 'error', 'dynamics'];
 
 export const PLOT: VerbSpec = {
   name: 'plot',
@@ -48,7 +49,7 @@ export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
   if (!result) return { ...spec, failed: `channel ${shown(channel)} cannot be analysed; run \`thermoscribe check\` for the reason (nothing was written)` };
 
   let budget = null;
-  if (chart !== 'transfer') {
+  if (chart === 'both' || chart === 'error') {
     const token = { isCancellationRequested: false };
     const onSigint = () => (token.isCancellationRequested = true);
     process.once('SIGINT', onSigint);
@@ -75,6 +76,6 @@ export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
   }
   const failed = writeFilesTogether([{ file: outAbs, text: svg.endsWith('\n') ? svg : svg + '\n' }]);
   if (failed) return { ...spec, failed: `cannot write ${out}: ${failed}` };
-  io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${chart === 'both' ? 'transfer curve and error budget' : chart === 'transfer' ? 'transfer curve' : 'error budget'} of channel ${channel})\n`);
+  io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${chart === 'both' ? `transfer curve and error budget${data.dynamics ? ' and response' : ''}` : chart === 'transfer' ? 'transfer curve' : chart === 'dynamics' ? 'step response and ramp lag' : 'error budget'} of channel ${channel})\n`);
   return spec;
 });
