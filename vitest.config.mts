@@ -5,6 +5,7 @@ import { defineConfig } from 'vitest/config';
 // the host or in simavr: `npm run test:slow`, which then runs the editor suite). `npx vitest run`
 // runs both projects.
 const TOOLCHAIN_TESTS = [
+  'tests/unit/codegen/board-trims.test.ts',
   'tests/unit/codegen/faults-edges.test.ts',
   'tests/unit/codegen/filter-compile.test.ts',
   'tests/unit/codegen/host-compile.test.ts',

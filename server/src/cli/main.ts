@@ -5,6 +5,7 @@ import { runBudget, BUDGET_USAGE } from './commands/budget';
 import { runPlot, PLOT_USAGE } from './commands/plot';
 import { runGen, GEN_USAGE } from './commands/gen';
 import { runCompare, COMPARE_USAGE } from './commands/compare';
+import { runTrimBoards, TRIM_BOARDS_USAGE } from './commands/trim-boards';
 import { EXIT, type CliIO } from './io';
 import { VERSION } from './version';
 import { startServer } from '../lsp/start';
@@ -22,6 +23,8 @@ usage:
                                     write the channels' C conversion code and header
   ${COMPARE_USAGE}
                                     alternative sensor designs of one measurement side by side
+  ${TRIM_BOARDS_USAGE}
+                                    each board's trims for the generated set_trim, from its calibration readings
   thermoscribe serve --stdio        start the language server on stdin/stdout
   thermoscribe --version
 `;
@@ -49,6 +52,8 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
       return 'serving';
     case 'gen':
       return runGen(rest, io);
+    case 'trim-boards':
+      return runTrimBoards(rest, io);
     case 'serve': {
       const code = startServer();
       return code === 0 ? 'serving' : code;

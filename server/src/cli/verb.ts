@@ -25,6 +25,8 @@ export type OptionSpec =
   | { kind: 'folder'; meta: string }
   /** A file to write: its folder must exist; `suffix`, when given, is required. */
   | { kind: 'output'; meta: string; suffix?: string; required?: boolean }
+  /** A file to read: it must exist. */
+  | { kind: 'input'; meta: string; required?: boolean }
   /** A switch that takes no value. */
   | { kind: 'flag' };
 
@@ -74,7 +76,7 @@ export function usageLine(spec: VerbSpec): string {
       continue;
     }
     const meta = o.kind === 'choice' ? o.values.join('|') : o.meta;
-    const required = (o.kind === 'name' || o.kind === 'output') && o.required;
+    const required = (o.kind === 'name' || o.kind === 'output' || o.kind === 'input') && o.required;
     parts.push(required ? `--${name} ${meta}` : `[--${name} ${meta}]`);
   }
   return parts.join(' ');
@@ -104,7 +106,7 @@ export function readVerbArgs(spec: VerbSpec, argv: string[], cwd: string): VerbA
     values.set(t.name, v);
   }
   for (const [name, o] of Object.entries(spec.options)) {
-    if ((o.kind === 'name' || o.kind === 'output') && o.required && !values.has(name)) return `--${name} ${o.meta} is required`;
+    if ((o.kind === 'name' || o.kind === 'output' || o.kind === 'input') && o.required && !values.has(name)) return `--${name} ${o.meta} is required`;
   }
   if (spec.files === 'one' && files.length !== 1) return 'name exactly one .tsense file';
   if (files.length === 0) return 'name at least one .tsense file';
@@ -138,6 +140,8 @@ function describe(o: OptionSpec): string {
       return 'an existing folder';
     case 'output':
       return `a file in an existing folder${o.suffix ? `, ending in ${o.suffix}` : ''}`;
+    case 'input':
+      return 'an existing file';
     case 'flag':
       return 'no value';
   }
@@ -166,6 +170,14 @@ function checkValue(name: string, o: OptionSpec, raw: string, cwd: string): stri
     }
     case 'flag':
       return bad();
+    case 'input': {
+      if (raw === '') return bad();
+      try {
+        return fs.statSync(path.resolve(cwd, raw)).isFile() ? raw : bad(': that is not a file');
+      } catch {
+        return bad(': no such file');
+      }
+    }
     case 'output': {
       if (raw === '' || /[\\/]$/.test(raw)) return bad();
       if (o.suffix && !raw.endsWith(o.suffix)) return bad();

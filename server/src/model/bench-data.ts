@@ -25,7 +25,7 @@ interface Problem {
   message: string;
 }
 
-interface Parsed {
+export interface Parsed {
   points: { row: number; kelvin: number; code: number; board?: string }[];
   problems: Problem[];
   rows: number;
@@ -48,8 +48,11 @@ const HEADER_WORDS = Object.keys(HEADERS).join(', ');
 /** A decimal number as a CSV cell holds it (no units, no thousands separators). */
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
-/** The rows of a bench CSV as points, and its problems; never throws. `bits`: the channel's converter. */
-export function parseBenchCsv(text: string, bits: number, board?: string): Parsed {
+/**
+ * The rows of a bench CSV as points, and its problems; never throws. `bits`: the channel's converter;
+ * `board`: keep that board's rows; `maxPoints`: more usable rows than this is a file problem.
+ */
+export function parseBenchCsv(text: string, bits: number, board?: string, maxPoints = BENCH_MAX_POINTS): Parsed {
   const out: Parsed = { points: [], problems: [], rows: 0, skipped: 0, otherBoards: 0 };
   const fatal = (message: string) => out.problems.push({ fatal: true, message });
   const rowProblem = (message: string) => {
@@ -134,8 +137,8 @@ export function parseBenchCsv(text: string, bits: number, board?: string): Parse
   }
   if (out.points.length === 0) {
     fatal(board !== undefined && out.otherBoards === out.rows ? `no row is of board '${shown(board)}'` : out.rows === 0 ? 'the file has a header but no readings' : 'no row could be used (see the other problems)');
-  } else if (out.points.length > BENCH_MAX_POINTS) {
-    fatal(`${out.points.length} readings; at most ${BENCH_MAX_POINTS} are fitted: keep one board's rows (\`board ID\` after the path) or thin the log`);
+  } else if (out.points.length > maxPoints) {
+    fatal(`${out.points.length} readings; at most ${maxPoints} are fitted: keep one board's rows (\`board ID\` after the path) or thin the log`);
   }
   return out;
 }
