@@ -200,3 +200,27 @@ describe('thermocouple error budget', () => {
     expect(codesOf(a).filter((c) => c.startsWith('tc-'))).toEqual([]);
   });
 });
+
+describe('thermocouple block, cautions and code generation', () => {
+  it('refuses a class the type does not have (IEC 60584-1 gives type B classes 2 and 3 only, from memory)', () => {
+    const a = analyseText('thermocouple b {\n  type = B\n  class = 1\n}\n');
+    expect(a.diagnostics.map((d) => `${d.code}: ${d.message}`)).toEqual(['out-of-domain: class: IEC 60584-1 gives type B classes 2 and 3 only (found 1)']);
+  });
+
+  it('puts the kind\'s cautions (mains isolation, independent cut-out) under reports of its channels only', async () => {
+    const { cautionFor, CAUTION } = await import('../../../server/src/engine');
+    const a = analyseText(spec(HOT));
+    const text = cautionFor(a.channels.map((r) => r.channel));
+    expect(text.startsWith(CAUTION)).toBe(true);
+    expect(text).toMatch(/isolate the measuring circuit from mains/);
+    expect(text).toMatch(/independent over-temperature cut-out/);
+    expect(cautionFor(a.channels.filter((r) => r.channel.name === 'board').map((r) => r.channel))).toBe(CAUTION);
+  });
+
+  it('leaves a thermocouple channel out of one-input code generation, with the reason', async () => {
+    const { generatableResults, tooWideMessage } = await import('../../../server/src/codegen/channel-input');
+    const a = analyseText(spec(HOT));
+    expect(generatableResults(a.channels, a.diagnostics).map((r) => r.channel.name)).toEqual(['board']);
+    expect(tooWideMessage(a.channels.find((r) => r.channel.name === 'hot')!.channel)).toMatch(/reading of channel 'board' \(cold_junction\) as a second input/);
+  });
+});

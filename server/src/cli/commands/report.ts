@@ -6,7 +6,7 @@ import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
 import type { ChannelResult } from '../../engine';
 import { fixedNumber, formatSI, trimNumber } from '../../engine';
-import { CAUTION } from '../../engine';
+import { cautionFor } from '../../engine';
 import { describeBias, describeSensor } from '../../engine';
 
 export const REPORT: VerbSpec = { name: 'report', files: 'one', options: { channel: CHANNEL_OPTION, root: ROOT_OPTION } };
@@ -28,7 +28,7 @@ export const runReport = defineVerb(REPORT, (args, io) => {
     for (const d of diags) io.out('  ' + formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
     io.out('\n');
   }
-  io.out(CAUTION + '\n');
+  io.out(cautionFor(a.channels.map((r) => r.channel)) + '\n');
   return { diagnostics: diags };
 });
 
