@@ -275,7 +275,7 @@ export { plotData, plotProblem, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
 export { filterWords } from './analysis/dynamics';
 export { plotSpec, type ChartKind } from './plot/spec';
-export { CAUTION } from './report/caution';
+export { CAUTION, cautionFor, kindCautions } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';
 export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';
 export { sarifLog } from './report/sarif';

@@ -138,7 +138,7 @@ describe('renaming from the definition and across files', () => {
     const u = client.open(file, t);
     try {
       const at = { textDocument: { uri: u }, position: posOf(t, 'nav_missing', 2) };
-      await expect(client.request('textDocument/prepareRename', at)).rejects.toThrow(/No junction, thermistor or rtd named 'nav_missing' is defined/);
+      await expect(client.request('textDocument/prepareRename', at)).rejects.toThrow(/No junction, thermistor, rtd or thermocouple named 'nav_missing' is defined/);
       expect(await client.request('textDocument/definition', at)).toBeNull();
     } finally {
       client.close(u);

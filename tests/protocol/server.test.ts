@@ -141,7 +141,7 @@ describe('completion', () => {
   };
 
   it('offers block keywords at top level', async () => {
-    expect((await complete('use "parts.tsense"\n\nch|')).map((i) => i.label)).toEqual(['junction', 'thermistor', 'rtd', 'adc', 'channel', 'use']);
+    expect((await complete('use "parts.tsense"\n\nch|')).map((i) => i.label)).toEqual(['junction', 'thermistor', 'rtd', 'thermocouple', 'adc', 'channel', 'use']);
   });
 
   it('offers the fields not yet given, with docs', async () => {

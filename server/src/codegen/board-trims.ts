@@ -10,7 +10,7 @@
 // would cut, is listed as suspect with the reason and given no trim.
 import { planChannels, kernelAt } from './generate';
 import { rounded } from './samples';
-import { applyTrim, GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, type TrimDesign } from './calibration';
+import { applyTrim, integerTrim, GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, TWO_POINT_FRAC, type TrimDesign } from './calibration';
 import { asr } from './arith';
 import type { ConversionInput } from './types';
 import type { BudgetResult } from '../analysis/budget-types';
@@ -93,7 +93,10 @@ export function boardTrims(c: ChannelDef, input: ConversionInput, budget: Budget
   const plan = plans[0]!;
   const s = samples[0]!;
   const scale = input.outputScale;
-  const untrimmed = (code: number) => rounded(s, kernelAt(plan.design, s, code));
+  // The value the trim takes (calibration.ts): output units, or for a two-point trim half units.
+  const raw = (code: number) => rounded(s, kernelAt(plan.design, s, code));
+  const per = mode === 'two-point' ? 2 ** TWO_POINT_FRAC : 1;
+  const untrimmed = (code: number) => raw(code) / per;
   const none = budget.modes.find((m) => m.setting.mode === 'none')!;
   const stated = budget.modes.find((m) => m.setting.mode === mode) ?? budget.stated;
   const refK = c.calReferenceK ?? 0;
@@ -139,23 +142,24 @@ export function boardTrims(c: ChannelDef, input: ConversionInput, budget: Budget
       const target = pts.map((p) => p.celsius * scale);
       const ys = pts.map((p) => p.untrimmedUnits);
       if (mode === 'one-point') {
-        trim = { mode: 'offset', runtime: true, offsetScaled: Math.round(target[0]! - ys[0]!), gainQ: 1 << GAIN_Q, gainD: 0, offsetC: 0, gain: 1 };
+        trim = integerTrim('offset', Math.round(target[0]! - ys[0]!), 1 << GAIN_Q);
       } else {
         const gain = (target[1]! - target[0]!) / (ys[1]! - ys[0]!);
         const gainQ = Math.round(gain * 2 ** GAIN_Q);
         if (!(gainQ >= GAIN_Q_MIN && gainQ <= GAIN_Q_MAX)) reasons.push(`its gain would be ${+gain.toFixed(4)}, outside the 0.5 .. 1.5 the generated setter holds`);
         else {
-          const gainD = 4 * gainQ - 65536;
-          const corr = (y: number) => y + asr(y * gainD + 32768, 16);
+          const bare = integerTrim('two-point', 0, gainQ);
+          const corr = (y: number) => applyTrim(bare, y * per);
           const offset = Math.round((target[0]! - corr(ys[0]!) + target[1]! - corr(ys[1]!)) / 2);
-          trim = { mode: 'two-point', runtime: true, offsetScaled: offset, gainQ, gainD, offsetC: 0, gain };
+          trim = integerTrim('two-point', offset, gainQ);
         }
       }
     }
     if (trim && plan.outBits === 16) {
       // The setter's bounds (emit.ts trimRuntimeSetter): no in-range output may leave int16_t.
-      const lo = trim.mode === 'offset' ? plan.kernelMin : plan.kernelMin + asr(plan.kernelMin * trim.gainD + 32768, 16);
-      const hi = trim.mode === 'offset' ? plan.kernelMax : plan.kernelMax + asr(plan.kernelMax * trim.gainD + 32768, 16);
+      const bare = integerTrim(trim.mode === 'offset' ? 'offset' : 'two-point', 0, trim.gainQ);
+      const lo = applyTrim(bare, plan.kernelMin);
+      const hi = applyTrim(bare, plan.kernelMax);
       if (trim.offsetScaled > 32767 - hi || trim.offsetScaled < -32768 - lo || Math.abs(trim.offsetScaled) > 32767) {
         reasons.push(`its offset ${trim.offsetScaled} units would be cut by the setter (allowed ${-32768 - lo} .. ${32767 - hi})`);
         trim = null;
@@ -167,7 +171,7 @@ export function boardTrims(c: ChannelDef, input: ConversionInput, budget: Budget
       const t = trim;
       worstAtPointsK = 0;
       for (const p of pts) {
-        p.correctedC = applyTrim(t, p.untrimmedUnits) / scale;
+        p.correctedC = applyTrim(t, p.untrimmedUnits * per) / scale;
         worstAtPointsK = Math.max(worstAtPointsK, Math.abs(p.correctedC - p.celsius));
       }
     }

@@ -59,6 +59,22 @@ export function trimDesign(
   };
 }
 
+/** A run-time trim as its setter stores it, from the integers the firmware passes (offset in output units, gain in Q14). */
+export function integerTrim(mode: 'offset' | 'two-point', offsetScaled: number, gainQ: number): TrimDesign {
+  const gain = mode === 'two-point' ? gainQ / 2 ** GAIN_Q : 1;
+  return {
+    mode,
+    runtime: true,
+    offsetScaled,
+    gainQ,
+    gainD: 4 * gainQ - 65536,
+    gainG: 2 * gainQ,
+    addC: offsetScaled - gainQ,
+    offsetC: 0,
+    gain,
+  };
+}
+
 /** floor((u * g + 2^15) / 2^16) for unsigned 16-bit u and g: the C's THSC_MUL_HI16. */
 export function mulHi16(u: number, g: number): number {
   return Math.floor((u * g + 32768) / 65536);

@@ -45,6 +45,10 @@ export function conversionBits(c: ChannelDef): number {
 
 /** Why a channel's code cannot be generated because its value is too wide (null when it fits). */
 export function tooWideMessage(c: ChannelDef): string | null {
+  // A channel that reads another (a thermocouple's cold junction) needs that reading as a second
+  // input of its conversion; until its kind gives the generator that input, no one-input code is made.
+  const linked = Object.entries(c.linked ?? {})[0];
+  if (linked) return `its conversion takes the reading of channel '${linked[1].name}' (${linked[0]}) as a second input, which this generator does not make yet`;
   const bits = conversionBits(c);
   if (bits <= MAX_CODE_BITS) return null;
   const n = c.oversamplingBits ?? 0;
@@ -97,7 +101,7 @@ export function channelError(c: ChannelDef, diagnostics: readonly Diagnostic[]):
  * (a clipping ADC, a junction that is not biased) has no sound inverse over its codes.
  */
 export function generatableResults(channels: readonly ChannelResult[], diagnostics: readonly Diagnostic[] = []): ChannelResult[] {
-  return channels.filter((r) => conversionBits(r.channel) <= MAX_CODE_BITS && channelError(r.channel, diagnostics) === undefined);
+  return channels.filter((r) => tooWideMessage(r.channel) === null && channelError(r.channel, diagnostics) === undefined);
 }
 
 function faultNotes(faults: readonly SensorFault[]): string[] {

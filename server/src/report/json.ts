@@ -8,6 +8,7 @@ import type { ChannelResult } from '../analysis/types';
 import { LineIndex } from '../syntax/line-index';
 import { kindOf } from '../sensors/registry';
 import { budgetSummaryJson } from '../budget/json';
+import { kindCautions } from './caution';
 
 export const REPORT_VERSION = 1;
 
@@ -84,5 +85,7 @@ export function analysisJson(a: Analysis, indexOf: (file: string) => LineIndex) 
     path: a.path,
     diagnostics: a.diagnostics.map((d) => diagnosticJson(d, indexOf(d.file))),
     channels: a.channels.map(channelJson),
+    // The safety cautions of the sensor kinds in use, when they have any (report/caution.ts).
+    ...((cautions) => (cautions.length ? { cautions } : {}))(kindCautions(a.channels.map((r) => r.channel))),
   };
 }

@@ -5,15 +5,10 @@
 // modules call it and add what the rest of the engine asks of a sensor.
 //
 // A kind that needs more is given an optional member here and its one caller, not a branch on its
-// name. A thermocouple, for one, maps onto this interface as: its block and `read` (type letter,
-// class); `channelFields` for the amplifier fields it takes; `sense` (EMF of the hot junction minus
-// that of the cold junction, amplified); `kelvinAtVolts` (the inverse polynomial); `contributors` /
-// `perturb` (its tolerance class, the amplifier, the cold-junction error); its `checks` (type
-// range, clipping, open-circuit detection). What it adds: an optional `readChannel` member reading
-// its own channel fields, among them the cold junction as a reference to another channel of the
-// spec (resolve.ts then keeps a channel with the content of the channels it names, as it does its
-// sensor and ADC today), and an optional `conversionInput` member giving the code generator its
-// second input (the cold-junction temperature from that channel's generated function).
+// name. The thermocouple (sensors/thermocouple/) added `channelBlockFields` and `readChannel` (its
+// own channel fields, among them the cold junction as a reference to another channel of the spec,
+// read by resolve.ts and kept in ChannelDef.linked), `channelContributors` / `perturbChannel` (its
+// amplifier, isothermal and cold-junction spreads) and `cautions`.
 import type { Analysis } from '../analysis/result';
 import type { ChannelResult } from '../analysis/types';
 import type { SensedPoint } from '../analysis/sense';

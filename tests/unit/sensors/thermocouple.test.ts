@@ -9,6 +9,7 @@ import { analyse, DocumentState } from '../../../server/src/engine';
 import { definition, references } from '../../../server/src/features/navigation';
 import { hover } from '../../../server/src/features/hover';
 import { completion } from '../../../server/src/features/completion';
+import { quickFixes } from '../../../server/src/features/quickfix';
 import { channelJson } from '../../../server/src/report/json';
 import { analyseText, channelOf, codesOf } from '../../fixtures/sensors/analyse';
 
@@ -161,6 +162,13 @@ describe('the cold junction as another channel', () => {
     expect(references(a, use, true).map((r) => r.span.start).sort((x, y) => x - y)).toEqual([def, use]);
   });
 
+  it('offers the did-you-mean fix on a misspelt cold-junction channel', () => {
+    const text = spec(HOT.replace('cold_junction = board', 'cold_junction = bord'));
+    const a = analyseText(text);
+    const fixes = quickFixes({ analysis: a, range: { start: 0, end: text.length }, reanalyse: (o) => analyse({ path: a.path, text: o.get(a.path) ?? text }) });
+    expect(fixes.map((f) => f.title)).toContain("Change 'bord' to 'board'");
+  });
+
   it('offers the thermocouple fields and the channels for cold_junction in completion', () => {
     const text = spec(HOT).replace('  cold_junction = board\n', '  cold_junction = \n');
     const a = analyseText(text);
@@ -197,6 +205,39 @@ describe('thermocouple error budget', () => {
     const a = analyseText(spec(HOT));
     const j = channelJson(a.channels.find((r) => r.channel.name === 'hot')!) as unknown as { inputs: { thermocouple: Record<string, unknown> } };
     expect(j.inputs.thermocouple).toMatchObject({ type: 'K', toleranceClass: 2, coldJunctionChannel: 'board', nominalColdJunctionK: K(25), gain: 50, gainTolerance: 0.002 });
+    // 2.5 V / 4096 / 50 (ideal code width, IEEE Std 1241-2010, 3.1).
+    expect(j.inputs.thermocouple['inputVoltsPerCount']).toBeCloseTo(2.5 / 4096 / 50, 12);
     expect(codesOf(a).filter((c) => c.startsWith('tc-'))).toEqual([]);
+  });
+});
+
+describe('thermocouple block, cautions and code generation', () => {
+  it('refuses a range beyond the type\'s reference function (type K: -270 °C .. 1372 °C, NIST Monograph 175)', () => {
+    const a = analyseText(spec(HOT.replace('range         = 100 °C .. 1000 °C', 'range         = 100 °C .. 1400 °C')));
+    expect(a.diagnostics.filter((d) => d.severity === 'error').map((d) => `${d.code}: ${d.message}`)).toEqual([
+      expect.stringMatching(/^out-of-domain: the range leaves the type K reference function of 'probe_k', -270 °C .. 1372 °C/),
+    ]);
+  });
+
+  it('refuses a class the type does not have (IEC 60584-1 gives type B classes 2 and 3 only, from memory)', () => {
+    const a = analyseText('thermocouple b {\n  type = B\n  class = 1\n}\n');
+    expect(a.diagnostics.map((d) => `${d.code}: ${d.message}`)).toEqual(['out-of-domain: class: IEC 60584-1 gives type B classes 2 and 3 only (found 1)']);
+  });
+
+  it('puts the kind\'s cautions (mains isolation, independent cut-out) under reports of its channels only', async () => {
+    const { cautionFor, CAUTION } = await import('../../../server/src/engine');
+    const a = analyseText(spec(HOT));
+    const text = cautionFor(a.channels.map((r) => r.channel));
+    expect(text.startsWith(CAUTION)).toBe(true);
+    expect(text).toMatch(/isolate the measuring circuit from mains/);
+    expect(text).toMatch(/independent over-temperature cut-out/);
+    expect(cautionFor(a.channels.filter((r) => r.channel.name === 'board').map((r) => r.channel))).toBe(CAUTION);
+  });
+
+  it('leaves a thermocouple channel out of one-input code generation, with the reason', async () => {
+    const { generatableResults, tooWideMessage } = await import('../../../server/src/codegen/channel-input');
+    const a = analyseText(spec(HOT));
+    expect(generatableResults(a.channels, a.diagnostics).map((r) => r.channel.name)).toEqual(['board']);
+    expect(tooWideMessage(a.channels.find((r) => r.channel.name === 'hot')!.channel)).toMatch(/reading of channel 'board' \(cold_junction\) as a second input/);
   });
 });

@@ -13,7 +13,7 @@ import type { BudgetResult } from '../../engine';
 import { trimNumber } from '../../engine';
 import { fitMeasured } from '../../engine';
 import type { ChannelDef } from '../../engine';
-import { CAUTION } from '../../engine';
+import { cautionFor } from '../../engine';
 
 export const BUDGET: VerbSpec = {
   name: 'budget',
@@ -60,7 +60,7 @@ export const runBudget = defineVerb(BUDGET, async (args, io): Promise<Outcome> =
   }
   if (format === 'json') io.out(JSON.stringify({ channels: results.map((r) => ({ ...budgetJson(r.budget), fit: fitJson(r.channel) })) }, null, 2) + '\n');
   else for (const r of results) io.out(budgetText(r.budget, r.channel) + '\n\n');
-  if (format === 'text') io.out(CAUTION + '\n');
+  if (format === 'text') io.out(cautionFor(results.map((r) => r.channel)) + '\n');
   return spec;
 });
 

@@ -6,7 +6,7 @@ import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
 import type { ChannelResult } from '../../engine';
 import { fixedNumber, formatSI, trimNumber } from '../../engine';
-import { CAUTION } from '../../engine';
+import { cautionFor } from '../../engine';
 import { describeBias, describeSensor } from '../../engine';
 import { residualReport } from '../residuals';
 
@@ -29,7 +29,7 @@ export const runReport = defineVerb(REPORT, (args, io) => {
     for (const d of diags) io.out('  ' + formatDiagnostic(d, host.index(d.file), io.cwd) + '\n');
     io.out('\n');
   }
-  io.out(CAUTION + '\n');
+  io.out(cautionFor(a.channels.map((r) => r.channel)) + '\n');
   return { diagnostics: diags };
 });
 

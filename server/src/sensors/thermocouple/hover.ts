@@ -17,7 +17,7 @@ export const TC_CAUTIONS = [
   'Caution (thermocouple): the heater needs an independent over-temperature cut-out with its own sensor, acting on the supply directly; a failed thermocouple reads low or drifts and this channel must not be the only protection.',
 ] as const;
 
-const uv = (v: number) => `${f.trimNumber(v * 1e6, 4)} µV`;
+const uv = (v: number) => f.formatSI(v, 'V');
 
 export function tcHover(a: Analysis, s: ThermocoupleDef): string {
   const t = s.params.type;
@@ -52,7 +52,7 @@ export function tcChannelLines(r: ChannelResult): string[] {
   const uvPerCount = lsb / g;
   const seebeckMin = Math.min(seebeck(s.params.type, c.lowK), seebeck(s.params.type, c.highK), seebeck(s.params.type, (c.lowK + c.highK) / 2));
   const out = [
-    `Thermocouple input: **${uv(uvPerCount)} per count** at the thermocouple (1 LSB ${f.volts(lsb)} / gain ${f.trimNumber(g, 4)}); the EMF over the range is ${uv(r.summary.voltsMin / g)} .. ${uv(r.summary.voltsMax / g)} referred to the input`,
+    `Thermocouple input: **${f.trimNumber(uvPerCount * 1e6, 4)} µV per count** at the thermocouple (1 LSB ${f.volts(lsb)} / gain ${f.trimNumber(g, 4)}); the EMF over the range is ${uv(r.summary.voltsMin / g)} .. ${uv(r.summary.voltsMax / g)} referred to the input`,
     `Cold junction: channel \`${cj.name}\` (${cj.sensor.kind} \`${cj.sensor.name}\`, ${f.kelvinToCelsius(cj.lowK)} .. ${f.kelvinToCelsius(cj.highK)}), taken at ${f.kelvinToCelsius(nominalColdJunctionK(c))} for these figures; its own worst case ±${f.kelvinDelta(coldJunctionErrorK(c))} and the isothermal difference ±${f.kelvinDelta(t.isothermalK)} enter the budget`,
     `Amplifier: V_adc = ${f.trimNumber(g, 4)}${c.amplifier?.gainTolerance ? ` (± ${f.percent(c.amplifier.gainTolerance)})` : ''} × (E(T) − E(T_cj) + V_detect)${c.amplifier?.offsetVolts ? ` ${c.amplifier.offsetVolts < 0 ? '−' : '+'} ${f.volts(Math.abs(c.amplifier.offsetVolts))}` : ''}; input offset ±${uv(t.inputOffsetVolts)}, drift ±${uv(t.offsetDriftVoltsPerK)}/K over ±${f.kelvinDelta(boardSpanK(c))} of board${t.swing ? `; output swing ${f.volts(t.swing.lowV)} .. ${f.volts(t.swing.highV)}` : ''}`,
     `Open detection: ${c.bias.kind === 'current' ? 'burnout current' : 'pull-up'} of ${f.amps(detectAmps(c))} through the ${f.ohms(t.loopOhms)} loop adds ${uv(detectVolts(c))} (${f.kelvinDelta(detectVolts(c) / seebeckMin)} at the least sensitive point; the conversion takes it off)`,

@@ -179,6 +179,7 @@ export function tcReportInputs(c: ChannelDef): Record<string, unknown> {
       toleranceClass: s.toleranceClass,
       coldJunctionChannel: coldJunctionChannel(c).name,
       nominalColdJunctionK: nominalColdJunctionK(c),
+      inputVoltsPerCount: c.adc.reference.value / 2 ** c.adc.bits / gainOf(c),
       gain: gainOf(c),
       gainTolerance: c.amplifier?.gainTolerance ?? 0,
       outputOffsetVolts: offsetOf(c),

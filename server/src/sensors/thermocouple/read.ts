@@ -9,7 +9,7 @@ import { formatSI, noExtra, readPart, readRange, spanOf, trimNumber } from '../.
 import { boundTerm } from '../../model/read-budget-spec';
 import { shown } from '../../diagnostics/shown';
 import { referenceRange, type TcType } from './its90';
-import type { TcClass } from './tolerance';
+import { classesOf, type TcClass } from './tolerance';
 import { DOMAINS } from './block';
 import { COLD_JUNCTION, type TcChannel, type ThermocoupleDef } from './types';
 
@@ -27,8 +27,12 @@ export function readThermocouple(r: BlockReader, base: DefBase): ThermocoupleDef
       `thermocouple '${shown(r.ref.node.name.text)}': rated ${trimNumber(rated.low - ZERO_C, 5)} °C .. ${trimNumber(rated.high - ZERO_C, 5)} °C leaves the range of the type ${type} reference function, ${trimNumber(table.lowK - ZERO_C, 5)} °C .. ${trimNumber(table.highK - ZERO_C, 5)} °C (NIST Monograph 175)`);
     return null;
   }
+  if (cls && !classesOf(type).includes(cls.value as TcClass)) {
+    r.sink.report('out-of-domain', r.ref.file, r.fieldSpans['class']!, `class: IEC 60584-1 gives type ${type} class${classesOf(type).length > 1 ? 'es' : ''} ${classesOf(type).join(' and ')} only (found ${trimNumber(cls.value, 3)})`);
+    return null;
+  }
   return {
-    kind: 'thermocouple', ...base, params: { kind: 'thermocouple', type },
+    kind: 'thermocouple', ...base, params: { kind: `type ${type}`, type },
     toleranceClass: cls ? (cls.value as TcClass) : null,
     ratedLowK: rated.low, ratedHighK: rated.high,
     // A thermocouple carries no measuring current of its own: no self-heating.

@@ -18,7 +18,8 @@ import type { TcClass } from './tolerance';
 /** A thermocouple of one of the IEC 60584-1 letter types. */
 export interface ThermocoupleDef extends SensorDefBase {
   kind: 'thermocouple';
-  params: { kind: 'thermocouple'; type: TcType };
+  /** `kind`: "type K" and so on (the model family, as messages and the report show it). */
+  params: { kind: string; type: TcType };
   /** IEC 60584-1 tolerance class, or null when not stated. */
   toleranceClass: TcClass | null;
   /** A simulated board's draw of the class tolerance, -1 .. 1 (absent: the reference function). */
