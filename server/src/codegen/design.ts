@@ -14,20 +14,21 @@ import { CodegenInputError, type ConversionInput } from './types';
 import { prefixProblem } from '../model/code-prefix';
 
 /**
- * Flash bytes of the code around the data, atmega328p at -Os (avr-gcc 5.4, avr-size of the
- * object; library routines such as the 32-bit multiply not included). Re-measure when the
- * emitted C changes: the figures only rank designs, the tests measure the real sizes.
+ * Linked flash bytes of one channel's code around its data, per target, at -Os with
+ * -ffunction-sections and --gc-sections: the ELF's .text + .data with the channel's functions
+ * called (conversion, setter, float variant) minus without, library routines included
+ * (atmega328p: avr-gcc 5.4; Cortex-M0: arm-none-eabi-gcc, newlib-nano). Fitted by least squares
+ * (non-negative, weighted to the relative error) to 150 measured builds of the sample channels and
+ * the test channels under auto, table, polynomial, 0.1 degC output, trims and float variants.
+ * Re-measure when the emitted C changes; tests/unit/codegen/size-estimate.test.ts links the real
+ * sizes and holds the estimate to them.
  */
-const CODE_BYTES = {
-  table16: 136,
-  table32: 190,
-  direct: 52,
-  polynomial: 300,
-  offsetTrim: 8,
-  gainTrim: 50,
-  runtimeTrim: 86,
-  floatVariant: 260,
+const SIZE_MODEL = {
+  avr: { direct: 81, polynomial: 354, split: 134, table16: 184, table32: 251, polyMulti: 28, fraction: 3, offsetTrim: 8, gainTrim: 55, runtimeOffset: 45, runtimeTwoPoint: 355, floatSplit: 1255, floatOther: 1230, faultSide: 16, out32: 29 },
+  m0: { direct: 64, polynomial: 104, split: 111, table16: 113, table32: 70, polyMulti: 39, fraction: 9, offsetTrim: 8, gainTrim: 40, runtimeOffset: 68, runtimeTwoPoint: 191, floatSplit: 3435, floatOther: 2742, faultSide: 14, out32: 14 },
 } as const;
+
+export type SizeTarget = keyof typeof SIZE_MODEL;
 
 const MAX_CODES = 65536;
 
@@ -159,11 +160,31 @@ function perCount(c: ConversionInput, s: Samples): { min: number; max: number } 
 
 type Design = TableDesign | PolyDesign;
 
-function codeBytes(d: Design, s: Samples): number {
-  let b: number = d.kind === 'polynomial' ? CODE_BYTES.polynomial : d.shift === 0 ? CODE_BYTES.direct : d.entryBits === 16 && d.spanMax <= 32767 ? CODE_BYTES.table16 : CODE_BYTES.table32;
-  if (s.trim.mode === 'offset') b += CODE_BYTES.offsetTrim;
-  if (s.trim.mode === 'two-point') b += CODE_BYTES.gainTrim;
-  if (s.trim.runtime) b += CODE_BYTES.runtimeTrim;
+/** The emitted form of a design, as the size model tells them apart. */
+function formOf(d: Design, s: Samples): 'direct' | 'polynomial' | 'split' | 'table16' | 'table32' {
+  if (d.kind === 'polynomial') return 'polynomial';
+  if (d.shift === 0) return 'direct';
+  if (d.entryBits !== 16 || d.spanMax > 32767) return 'table32';
+  return d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 'split' : 'table16';
+}
+
+/**
+ * Estimated linked bytes of the code around the data on a target (SIZE_MODEL); `extra` adds what
+ * only a finished plan knows (fault tests, a 32-bit output, the float variant).
+ */
+function codeBytes(d: Design, s: Samples, target: SizeTarget = 'avr', extra?: { faultSides: number; out32: boolean; floatVariant: boolean }): number {
+  const m = SIZE_MODEL[target];
+  const form = formOf(d, s);
+  let b: number = m[form];
+  if (d.kind === 'polynomial' && d.coefs.length > 1) b += m.polyMulti;
+  const twoPoint = s.trim.mode === 'two-point';
+  if (s.frac > 0 && !twoPoint) b += m.fraction;
+  if (s.trim.mode === 'offset') b += s.trim.runtime ? m.runtimeOffset : m.offsetTrim;
+  if (twoPoint) b += s.trim.runtime ? m.runtimeTwoPoint : m.gainTrim;
+  if (extra) {
+    b += extra.faultSides * m.faultSide + (extra.out32 ? m.out32 : 0);
+    if (extra.floatVariant) b += form === 'split' ? m.floatSplit : m.floatOther;
+  }
   return b;
 }
 
@@ -202,11 +223,6 @@ function cyclesEstimate(d: Design, s: Samples): number {
 
 /** Largest number of internal fraction bits tried. */
 const MAX_FRAC = 4;
-/**
- * Bytes of the final rounding step: one arithmetic shift per fraction bit, its 2^(F-1) carried by
- * the table points (atmega328p, -Os, linked; bench: 160 against 156 bytes for the junction channel).
- */
-const ROUND_BYTES = 4;
 
 /** A straight line: two points, one segment over every in-range code (linear interpolation between them). */
 function chooseLine(c: ConversionInput, s0: Samples): Choice {
@@ -259,7 +275,7 @@ function choose(c: ConversionInput, s0: Samples): Choice {
       if (!r) return;
       // The two-point trim biases the kernel into uint16: it must be an int16 at every code.
       if (twoPoint && !kernelFitsInt16(r.design, s)) return;
-      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s) + (frac > 0 && !twoPoint ? ROUND_BYTES : 0), s };
+      const ch = { ...r, bytes: dataBytes(r.design) + codeBytes(r.design, s), s };
       if (r.maxErr <= target + 1e-9) candidates.push(ch);
       else if (!bestMissed || r.maxErr < bestMissed.maxErr) bestMissed = ch;
     };
@@ -295,7 +311,7 @@ function choose(c: ConversionInput, s0: Samples): Choice {
 }
 
 /** Plans (validated and designed) for each input, in order; shared by generateC and the tests. */
-export function planChannels(inputs: readonly ConversionInput[], prefix = ''): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[] } {
+export function planChannels(inputs: readonly ConversionInput[], prefix = ''): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[]; bytesM0: number[] } {
   for (const c of inputs) validateInput(c);
   const badPrefix = prefixProblem(prefix);
   if (badPrefix && inputs[0]) fail(inputs[0], 'prefix', badPrefix);
@@ -309,13 +325,15 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
   const plans: ChannelPlan[] = [];
   const samples: Samples[] = [];
   const bytes: number[] = [];
+  const bytesM0: number[] = [];
   inputs.forEach((c, i) => {
     const one = planOne(c, ids[i]!);
     plans.push(one.plan);
     samples.push(one.samples);
     bytes.push(one.bytes);
+    bytesM0.push(one.bytesM0);
   });
-  return { plans, samples, bytes };
+  return { plans, samples, bytes, bytesM0 };
 }
 
 /**
@@ -323,7 +341,7 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
  * integer input over a range (0..65535), not only an ADC code: compensated.ts designs the two
  * one-dimensional functions of a two-input conversion with it.
  */
-export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan; samples: Samples; bytes: number } {
+export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan; samples: Samples; bytes: number; bytesM0: number } {
   {
     const ch = choose(c, sample(c));
     const s = ch.s;
@@ -373,7 +391,8 @@ export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan;
       ...(c.filter ? { filter: c.filter, ...(c.samplePeriodS !== undefined ? { samplePeriodS: c.samplePeriodS } : {}) } : {}),
       note: c.note,
     };
-    return { plan, samples: s, bytes: ch.bytes + (c.floatVariant ? CODE_BYTES.floatVariant : 0) };
+    const extra = { faultSides: (c.faultBelow !== undefined ? 1 : 0) + (c.faultAbove !== undefined ? 1 : 0), out32: outBits === 32, floatVariant: c.floatVariant };
+    return { plan, samples: s, bytes: dataBytes(ch.design) + codeBytes(ch.design, s, 'avr', extra), bytesM0: dataBytes(ch.design) + codeBytes(ch.design, s, 'm0', extra) };
   }
 }
 

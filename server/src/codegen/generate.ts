@@ -61,17 +61,19 @@ export function generateC(inputs: readonly AnyConversionInput[], options: Genera
         identifier: p.ident,
         code: header ? emitCompensatedHeader(p) : emitCompensatedSource(p, own),
         bytesEstimate: p.bytes,
+        bytesEstimateM0: p.bytesM0,
         maxErrorC: p.maxErrorC,
         method: d.kind,
         entries: d.kind === 'table' ? d.entries.length : d.coefs.length,
         rangeText: `codes ${p.codeLow}..${p.codeHigh} and ${p.ref.param} ${p.ref.low}..${p.ref.high}`,
       };
     }
-    const { plan: p, bytes } = planOne(c, ids[i]!);
+    const { plan: p, bytes, bytesM0 } = planOne(c, ids[i]!);
     return {
       identifier: p.ident,
       code: header ? emitHeaderBody(p) : emitSourceBody(p, own),
       bytesEstimate: bytes,
+      bytesEstimateM0: bytesM0,
       maxErrorC: p.maxErrorC,
       method: p.design.kind,
       entries: p.design.kind === 'table' ? p.design.entries.length : p.design.coefs.length,

@@ -58,8 +58,10 @@ export interface GeneratedChannel {
   identifier: string;
   /** The block body (text between the channel's markers), as given to spliceGenerated. */
   code: string;
-  /** Estimated flash bytes (table + code) on an 8-bit AVR at -Os. */
+  /** Estimated linked flash bytes (data, code and library routines) on an 8-bit AVR (atmega328p) at -Os. */
   bytesEstimate: number;
+  /** The same on a Cortex-M0 (arm-none-eabi-gcc, newlib-nano) at -Os. */
+  bytesEstimateM0: number;
   /** Max |output - model| over every in-range code, degC, from simulating the exact C integer arithmetic. */
   maxErrorC: number;
   /** 'table' or 'polynomial' (the one chosen). */

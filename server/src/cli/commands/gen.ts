@@ -92,7 +92,7 @@ export const runGen = defineVerb(GEN, (args, io): Outcome => {
   if (failed) return { ...spec, failed: `${failed} (nothing was changed)` };
   for (const [i, ch] of gen.source.channels.entries()) {
     const input = gen.inputs[i]!;
-    io.out(`${input.channelName}: ${ch.method}, ${ch.entries} ${ch.method === 'table' ? 'points' : 'segments'}, max error ${ch.maxErrorC.toFixed(4)} °C over ${ch.rangeText} (${input.method === 'line' ? 'straight line: conversion = line, not held to code_error' : `target ${input.errorTarget} °C`}), about ${ch.bytesEstimate} bytes on an 8-bit AVR${'filter' in input && input.filter ? `; firmware filter: ${filterWords(input.filter)} (${ch.identifier}_filter_update)` : ''}\n`);
+    io.out(`${input.channelName}: ${ch.method}, ${ch.entries} ${ch.method === 'table' ? 'points' : 'segments'}, max error ${ch.maxErrorC.toFixed(4)} °C over ${ch.rangeText} (${input.method === 'line' ? 'straight line: conversion = line, not held to code_error' : `target ${input.errorTarget} °C`}), about ${ch.bytesEstimate} bytes linked on an 8-bit AVR, ${ch.bytesEstimateM0} on a Cortex-M0${'filter' in input && input.filter ? `; firmware filter: ${filterWords(input.filter)} (${ch.identifier}_filter_update)` : ''}\n`);
   }
   for (const p of plans) io.out(`${p.changed ? (p.created ? 'created' : 'updated') : 'unchanged'} ${rel(io, p.file)}\n`);
   for (const o of orphans) io.out(prune ? `removed ${o}\n` : `orphan ${o}: no channel of this name in the spec; remove it with --prune\n`);
