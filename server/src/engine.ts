@@ -44,8 +44,9 @@ export interface AnalyseInput {
   /**
    * Compute each channel's worst-case error budget, which the accuracy check needs (default true).
    * Without it every other check runs and `accuracy-unmet` is not reported. A number n: the budgets
-   * kept in `state` are used and at most n missing ones computed; the channels left without one
-   * are listed in `budgetsPending`, and their budget checks wait (the language server computes them
+   * kept in `state` are used and at most n missing ones computed, of channels whose content the
+   * state has not seen (a channel kept without a budget waits for the work already computing it);
+   * the channels left without one are listed in `budgetsPending`, and their budget checks wait (the language server computes them
    * after its first publish, a few at a time: `keepWorstCaseBudget`, lsp/diagnostics.ts).
    */
   errorBudget?: boolean | number;
@@ -146,6 +147,9 @@ function capPerFile(sorted: Diagnostic[]): Diagnostic[] {
  */
 function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | undefined, record: boolean, wantBudget: boolean, budgets: BudgetAllowance): ChannelResult {
   let kept = state?.find(c, record);
+  // Content no earlier analysis of the state has seen (the channel just edited): its missing budget
+  // comes first; a channel kept without one is left to the work already computing it.
+  const isNew = kept === undefined;
   const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : analyseChannel(c);
   if (!kept) {
     // The key is only needed to find the entry again (and a miss in `find` has already made it).
@@ -155,7 +159,7 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | 
   }
   // A budget kept, or one the allowance still covers; else the channel's budget checks wait.
   const known = kept.worstCaseBudget ?? kept.budget?.value;
-  const withBudget = wantBudget && (known !== undefined || budgets.left > 0);
+  const withBudget = wantBudget && (known !== undefined || budgets.left === Infinity || (isNew && budgets.left > 0));
   if (wantBudget && !withBudget) budgets.pending.push(result);
   if (withBudget && known === undefined) budgets.left--;
   if (withBudget) try {

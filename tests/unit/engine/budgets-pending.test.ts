@@ -41,4 +41,16 @@ describe('worst-case budgets left pending', () => {
     const a = analyse({ path: FILE, text: edited, state, errorBudget: 0 });
     expect(a.budgetsPending.map((r) => r.channel.name)).toEqual(['probe_0']);
   });
+
+  it('an edit while budgets are pending: the edited channel\'s budget first, the pending ones stay pending', () => {
+    const state = new DocumentState();
+    const first = analyse({ path: FILE, text: TEXT, state, errorBudget: 2 });
+    expect(first.budgetsPending.map((r) => r.channel.name)).toEqual(['probe_2', 'probe_3', 'probe_4', 'probe_5']);
+    const at = TEXT.lastIndexOf('.. 125 °C') + 3;
+    const edited = TEXT.slice(0, at) + '120' + TEXT.slice(at + 3);
+    const a = analyse({ path: FILE, text: edited, state, errorBudget: 2 });
+    expect(a.budgetsPending.map((r) => r.channel.name)).toEqual(['probe_2', 'probe_3', 'probe_4']);
+    // A full analysis computes every one.
+    expect(analyse({ path: FILE, text: edited, state }).budgetsPending).toEqual([]);
+  });
 });
