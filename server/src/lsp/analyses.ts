@@ -62,11 +62,11 @@ export class AnalysisCache {
     return entry.parsed.file;
   }
 
-  /** Analyses `doc` with some files replaced (to try out a fix): reads the document's state, changes nothing. */
+  /** Analyses `doc` with some files replaced (to try out a fix): reads the document's state, changes nothing; budgets as a keystroke gets them (a code action never waits for the budgets an open left pending). */
   run(doc: TextDocument, overrides?: Map<string, string>): Analysis {
     const p = uriToPath(doc.uri, this.docs.roots);
     const text = overrides?.get(p) ?? doc.getText();
-    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), state: this.entries.get(doc.uri)?.state, trial: true });
+    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), state: this.entries.get(doc.uri)?.state, trial: true, errorBudget: INLINE_BUDGETS });
   }
 
   /** The last analysis of a document, whatever its version (for finding dependants). */
