@@ -24,6 +24,7 @@ const SLICE_MS = 20;
 
 export class DiagnosticScheduler {
   private readonly timers = new Map<string, NodeJS.Timeout>();
+  /** A check about to run at once, or the budget slices under way (lsp/diagnostics.ts `soon`, `follow`). */
   private readonly followers = new Map<string, NodeJS.Immediate>();
   /** How long the last analysis of each open document took, ms (the adaptive debounce's measure). */
   private readonly costs = new Map<string, number>();
@@ -72,8 +73,21 @@ export class DiagnosticScheduler {
     this.cancel(uri);
     const debounce = this.ctx.settings.debounceMs;
     const cost = this.costs.get(uri);
-    const delay = cost === undefined || cost < debounce ? 0 : debounce;
-    this.timers.set(uri, setTimeout(() => this.run(uri), delay));
+    if (cost === undefined || cost < debounce) this.soon(uri, 2);
+    else this.timers.set(uri, setTimeout(() => this.run(uri), debounce));
+  }
+
+  /**
+   * Checks at once, but after the messages already received: the JSON-RPC connection handles one
+   * message per turn of the event loop (vscode-jsonrpc's queue), so a change queued behind this one
+   * reschedules, and cancels this, before the second turn.
+   */
+  private soon(uri: string, turns: number): void {
+    this.followers.set(uri, setImmediate(() => {
+      this.followers.delete(uri);
+      if (turns > 1) this.soon(uri, turns - 1);
+      else this.run(uri);
+    }));
   }
 
   private run(uri: string): void {
