@@ -9,16 +9,21 @@ import * as path from 'node:path';
 import { ensureBuilt, ROOT, TestClient, type Position } from '../tests/protocol/client';
 import { generateSpec } from './generate';
 import { percentile, verdict } from './stats';
+import { analyse } from '../server/src/engine';
 
 const TARGET_DIAGNOSTICS_P95_MS = 30;
 const TARGET_HOVER_P95_MS = 5;
+/** What the user feels with default settings (issue 15): keystroke at 400 channels, open at 1,600. */
+const TARGET_FELT_KEYSTROKE_P95_MS = 100;
+const TARGET_FELT_OPEN_MS = 300;
+const TARGET_MEMORY_GROWTH = 0.2;
 
 function ms(t0: bigint): number {
   return Number(process.hrtime.bigint() - t0) / 1e6;
 }
 
 function positionOf(text: string, needle: string, shift: number): Position {
-  const at = text.indexOf(needle);
+  const at = needle === '' ? 0 : text.indexOf(needle);
   const before = text.slice(0, at + shift).split('\n');
   return { line: before.length - 1, character: before[before.length - 1]!.length };
 }
@@ -101,4 +106,107 @@ export async function benchLsp(): Promise<void> {
   }
 }
 
-if (require.main === module) void benchLsp();
+/** Retypes the upper end of the middle channel's range `count` times, each a value no version had; resolves with each edit's time to its diagnostics. */
+async function retype(client: TestClient, uri: string, text: string, count: number, onEdit?: (i: number) => Promise<void>): Promise<number[]> {
+  const at = text.indexOf('.. 125 °C', Math.floor(text.length / 2)) + 3;
+  const start = positionOf(text, '', at);
+  let current = '125';
+  const times: number[] = [];
+  for (let i = 1; i <= count; i++) {
+    const next = (125 - i / 1000).toFixed(3);
+    const t0 = process.hrtime.bigint();
+    const v = client.edit(uri, { start, end: { line: start.line, character: start.character + current.length } }, next);
+    await client.diagnostics(uri, v);
+    times.push(ms(t0));
+    current = next;
+    if (onEdit) await onEdit(i);
+  }
+  return times;
+}
+
+/**
+ * Felt latency (issue 15, item 2): keystroke -> diagnostics at 400 channels and open -> first
+ * diagnostics at 1,600 channels, with the default settings (adaptive debounce) beside debounce 0;
+ * after the open, a hover sent at the first publish and the time until the budget diagnostics follow.
+ */
+export async function benchFelt(dir: string): Promise<void> {
+  const MID = 400;
+  const BIG = 1600;
+  console.log(`\nLanguage server, what the user feels (default settings = adaptive debounce, ${200} ms setting; beside debounce 0):`);
+  for (const [label, settings] of [['default settings', {}], ['debounce 0', { debounceMs: 0 }]] as const) {
+    const client = await TestClient.start({ rootDir: dir, initializationOptions: settings, settings });
+    try {
+      const midText = generateSpec(MID);
+      const mid = path.join(dir, `felt-${MID}.tsense`);
+      const uri = client.open(mid, midText);
+      // Typing starts once the opened spec's diagnostics are complete (budgets included), as the
+      // engine gives them: what a keystroke costs, not what the open still does.
+      const codes = (d: { code?: string | number }[]) => d.map((x) => x.code).join();
+      const full = codes(analyse({ path: mid, text: midText }).diagnostics);
+      await client.diagnosticsWhere(uri, (d) => codes(d) === full);
+      const keys = await retype(client, uri, midText, 40);
+      console.log(line(`${label}: keystroke, ${MID} ch`, keys, TARGET_FELT_KEYSTROKE_P95_MS));
+      client.close(uri);
+      const bigText = generateSpec(BIG, 7);
+      const big = path.join(dir, `felt-${BIG}.tsense`);
+      const t0 = process.hrtime.bigint();
+      const bigUri = client.open(big, bigText);
+      const first = await client.diagnostics(bigUri, 1);
+      const tFirst = ms(t0);
+      const hoverAt = positionOf(bigText, 'channel probe_5 ', 'channel '.length + 1);
+      const th = process.hrtime.bigint();
+      await client.request('textDocument/hover', { textDocument: { uri: bigUri }, position: hoverAt });
+      const tHover = ms(th);
+      // The publication after the first: the budget checks of every channel.
+      const all = await client.diagnosticsWhere(bigUri, () => true, 1);
+      const tAll = ms(t0);
+      const budgeted = (d: { code?: string | number }[]) => d.filter((x) => x.code === 'accuracy-unmet').length;
+      console.log(`  ${`${label}: open, ${BIG} ch`.padEnd(34)} first diagnostics ${tFirst.toFixed(0)} ms (${first.length} diagnostics, ${budgeted(first)} accuracy-unmet)   target <= ${TARGET_FELT_OPEN_MS} ms: ${verdict(tFirst <= TARGET_FELT_OPEN_MS)}`);
+      console.log(`  ${''.padEnd(34)} hover sent at the first publish answered in ${tHover.toFixed(0)} ms; every budget check published at ${tAll.toFixed(0)} ms (${all.length} diagnostics, ${budgeted(all)} accuracy-unmet)`);
+      client.close(bigUri);
+    } finally {
+      await client.stop();
+    }
+  }
+}
+
+interface Memory { rss: number; heapUsed: number; collected: boolean }
+
+/** Resident memory of the server after 100 and after 10,000 edits of the 200-channel spec (issue 15, item 3). */
+export async function benchMemory(dir: string): Promise<void> {
+  const EDITS = Math.max(200, Number(process.env.BENCH_MEMORY_EDITS) || 10_000);
+  const client = await TestClient.start({ rootDir: dir, nodeArgs: ['--expose-gc'], initializationOptions: { debounceMs: 0 }, settings: { debounceMs: 0 } });
+  try {
+    const text = generateSpec(200, 3);
+    const uri = client.open(path.join(dir, 'memory-200.tsense'), text);
+    await client.diagnostics(uri, 1);
+    const at: Record<number, Memory> = {};
+    const t0 = process.hrtime.bigint();
+    await retype(client, uri, text, EDITS, async (i) => {
+      if (i === 100 || i === EDITS) at[i] = await client.request<Memory>('thermoscribe/memory', {});
+    });
+    const mb = (b: number) => `${(b / 2 ** 20).toFixed(1)} MB`;
+    const a = at[100]!;
+    const b = at[EDITS]!;
+    const growth = b.rss / a.rss - 1;
+    console.log(`\nLanguage server memory, 200-channel spec, one edit -> diagnostics at a time (debounce 0), after a full collection: ${a.collected ? 'yes' : 'no'}; ${EDITS} edits took ${(ms(t0) / 1000).toFixed(0)} s`);
+    console.log(`  after 100 edits: resident ${mb(a.rss)}, heap used ${mb(a.heapUsed)}`);
+    console.log(`  after ${EDITS} edits: resident ${mb(b.rss)}, heap used ${mb(b.heapUsed)}   resident growth ${(growth * 100).toFixed(1)} % (target <= ${TARGET_MEMORY_GROWTH * 100} %: ${verdict(growth <= TARGET_MEMORY_GROWTH)})`);
+  } finally {
+    await client.stop();
+  }
+}
+
+/** The felt latency and memory figures, in a folder of their own. */
+export async function benchServerFelt(): Promise<void> {
+  ensureBuilt();
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'thermoscribe-felt-'));
+  try {
+    await benchFelt(dir);
+    await benchMemory(dir);
+  } finally {
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+if (require.main === module) void benchLsp().then(benchServerFelt);

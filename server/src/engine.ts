@@ -45,9 +45,13 @@ export interface AnalyseInput {
   trial?: boolean;
   /**
    * Compute each channel's worst-case error budget, which the accuracy check needs (default true).
-   * Without it every other check runs and `accuracy-unmet` is not reported.
+   * Without it every other check runs and `accuracy-unmet` is not reported. A number n: the budgets
+   * kept in `state` are used and at most n missing ones computed, of channels whose content the
+   * state has not seen (a channel kept without a budget waits for the work already computing it);
+   * the channels left without one are listed in `budgetsPending`, and their budget checks wait (the language server computes them
+   * after its first publish, a few at a time: `keepWorstCaseBudget`, lsp/diagnostics.ts).
    */
-  errorBudget?: boolean;
+  errorBudget?: boolean | number;
 }
 
 
@@ -67,9 +71,10 @@ export function analyse(input: AnalyseInput): Analysis {
   const host = input.host ?? NO_FILES;
   model.channels = model.channels.map((c) => attachBenchData(c, root, host, sink));
   const channels: ChannelResult[] = [];
+  const budgets: BudgetAllowance = { left: typeof input.errorBudget === 'number' ? Math.max(0, input.errorBudget) : input.errorBudget === false ? 0 : Infinity, pending: [] };
   for (const c of model.channels) {
     try {
-      channels.push(analyseOne(c, sink, input.state, !input.trial, input.errorBudget !== false));
+      channels.push(analyseOne(c, sink, input.state, !input.trial, input.errorBudget !== false, budgets));
     } catch (err) {
       // The resolver checks domains first; a physics guard firing here is still reported, not thrown.
       sink.report('out-of-domain', c.file, c.nameSpan, `channel '${c.name}' cannot be analysed: ${err instanceof Error ? err.message : String(err)}`);
@@ -78,7 +83,28 @@ export function analyse(input: AnalyseInput): Analysis {
   own?.end(files.slice(1).map((f) => f.path));
   reportUsedFileProblems(files, sink);
   const diagnostics = capPerFile(sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1)));
-  return { path: entry, files, model, channels, diagnostics };
+  return { path: entry, files, model, channels, diagnostics, budgetsPending: budgets.pending };
+}
+
+/** How many missing worst-case budgets an analysis may still compute, and the channels left without one. */
+interface BudgetAllowance {
+  left: number;
+  pending: ChannelResult[];
+}
+
+/**
+ * Computes and keeps the worst-case budget of a channel an analysis left pending (`budgetsPending`),
+ * where the next analysis with the same document state finds it. A budget that cannot be computed
+ * is left missing: the next full analysis reports why.
+ */
+export function keepWorstCaseBudget(r: ChannelResult): void {
+  const kept = HOLDER.get(r.table);
+  if (!kept || kept.worstCaseBudget) return;
+  try {
+    kept.worstCaseBudget = kept.budget?.value ?? channelBudget(r.channel, { runs: 0 });
+  } catch {
+    // reported by the full analysis that follows
+  }
 }
 
 /** At most this many diagnostics are listed for one file; one closing "and N more" stands for the rest. */
@@ -125,8 +151,11 @@ function capPerFile(sorted: Diagnostic[]): Diagnostic[] {
  * checks' diagnostics too when the definition is the very same object (a moved channel's have other
  * offsets, so its checks run again).
  */
-function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | undefined, record: boolean, withBudget: boolean): ChannelResult {
+function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | undefined, record: boolean, wantBudget: boolean, budgets: BudgetAllowance): ChannelResult {
   let kept = state?.find(c, record);
+  // Content no earlier analysis of the state has seen (the channel just edited): its missing budget
+  // comes first; a channel kept without one is left to the work already computing it.
+  const isNew = kept === undefined;
   const result: ChannelResult = kept ? channelResult(c, kept.table, kept.summary) : analyseChannel(c);
   if (!kept) {
     // The key is only needed to find the entry again (and a miss in `find` has already made it).
@@ -134,6 +163,11 @@ function analyseOne(c: ChannelDef, sink: DiagnosticSink, state: DocumentState | 
     if (record) state?.keep(c, kept);
     HOLDER.set(kept.table, kept);
   }
+  // A budget kept, or one the allowance still covers; else the channel's budget checks wait.
+  const known = kept.worstCaseBudget ?? kept.budget?.value;
+  const withBudget = wantBudget && (known !== undefined || budgets.left === Infinity || (isNew && budgets.left > 0));
+  if (wantBudget && !withBudget) budgets.pending.push(result);
+  if (withBudget && known === undefined) budgets.left--;
   if (withBudget) try {
     // A Monte Carlo budget already made holds the worst case too.
     kept.worstCaseBudget ??= kept.budget?.value ?? channelBudget(c, { runs: 0 });

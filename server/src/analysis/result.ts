@@ -13,4 +13,6 @@ export interface Analysis {
   channels: ChannelResult[];
   /** Every diagnostic, of the entry file and of used files (see `file`). */
   diagnostics: Diagnostic[];
+  /** Channels whose worst-case budget an analysis with a budget allowance left to compute (`errorBudget` in engine.ts); their budget checks wait. */
+  budgetsPending: ChannelResult[];
 }

@@ -310,6 +310,20 @@ function choose(c: ConversionInput, s0: Samples): Choice {
   return candidates[0]!;
 }
 
+/**
+ * The design chosen for an input, made once per input object: the source and the header of one
+ * generation, and a retry without a channel that failed, then reuse it rather than search again
+ * (a spec with k failing channels once searched k + 1 times over). A fact attached to the input,
+ * gone with it.
+ */
+const CHOSEN = new WeakMap<ConversionInput, Choice>();
+
+function chosen(c: ConversionInput): Choice {
+  let ch = CHOSEN.get(c);
+  if (!ch) CHOSEN.set(c, (ch = choose(c, sample(c))));
+  return ch;
+}
+
 /** Plans (validated and designed) for each input, in order; shared by generateC and the tests. */
 export function planChannels(inputs: readonly ConversionInput[], prefix = ''): { plans: ChannelPlan[]; samples: Samples[]; bytes: number[]; bytesM0: number[] } {
   for (const c of inputs) validateInput(c);
@@ -343,7 +357,7 @@ export function planChannels(inputs: readonly ConversionInput[], prefix = ''): {
  */
 export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan; samples: Samples; bytes: number; bytesM0: number } {
   {
-    const ch = choose(c, sample(c));
+    const ch = chosen(c);
     const s = ch.s;
     let lo = Infinity;
     let hi = -Infinity;

@@ -66,7 +66,8 @@ function pick(a: SpecLike, channel: string | undefined): ChannelResult[] | strin
     return [r];
   }
   const ok = generatableResults(all);
-  const skipped = all.filter((r) => !ok.includes(r));
+  const okSet = new Set(ok);
+  const skipped = all.filter((r) => !okSet.has(r));
   if (skipped.length > 0) return `channel '${skipped[0]!.channel.name}': ${tooWideMessage(skipped[0]!.channel) ?? 'cannot be generated'}; name the other channels with --channel`;
   if (ok.length === 0) return 'the spec has no channel to generate code for';
   return ok;
@@ -85,19 +86,30 @@ function failure(err: unknown): { ok: false; message: string } {
 export function generateForSpec(a: SpecLike, opts: { channel?: string; fileStem: string; prefix?: string }): SpecGeneration {
   const chosen = pick(a, opts.channel);
   if (typeof chosen === 'string') return { ok: false, message: chosen, leftOut: [] };
-  let pool = chosen;
   const leftOut: LeftOut[] = [];
+  // Each channel's generator input made once (the designs chosen for them are kept with them,
+  // generate.ts `chosen`), so a retry without a failed channel repeats no design search.
+  let pool: { r: ChannelResult; input: AnyConversionInput }[] = [];
+  for (const r of chosen) {
+    try {
+      pool.push({ r, input: generatorInput(r, a.path) });
+    } catch (err) {
+      const f = failure(err);
+      leftOut.push({ channel: r.channel.name, why: f.message });
+    }
+  }
+  if (pool.length === 0) return { ok: false, message: leftOut.length > 0 ? 'no channel could be generated' : 'the spec has no channel to generate code for', leftOut };
   for (;;) {
     try {
-      const inputs = pool.map((r) => generatorInput(r, a.path));
+      const inputs = pool.map((p) => p.input);
       const source = generateC(inputs, { fileStem: opts.fileStem, prefix: opts.prefix });
       const header = generateC(inputs, { fileStem: opts.fileStem, header: true, prefix: opts.prefix });
       return { ok: true, inputs, source, header, leftOut };
     } catch (err) {
       const f = failure(err);
-      const bad = err instanceof CodegenInputError ? pool.findIndex((r) => r.channel.name === err.channel) : -1;
+      const bad = err instanceof CodegenInputError ? pool.findIndex((p) => p.r.channel.name === err.channel) : -1;
       if (bad < 0) return { ...f, leftOut };
-      leftOut.push({ channel: pool[bad]!.channel.name, why: f.message });
+      leftOut.push({ channel: pool[bad]!.r.channel.name, why: f.message });
       pool = pool.filter((_, i) => i !== bad);
       if (pool.length === 0) return { ok: false, message: 'no channel could be generated', leftOut };
     }

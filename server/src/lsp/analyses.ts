@@ -3,10 +3,15 @@
 // hover, completion, inlay hints...) and its parse at the current version (for the syntax-only
 // features: folding, outline, semantic tokens, which never wait for an analysis). An analysis is also
 // stale when a file it uses has changed (an open document's version, or a disk change notice).
-// Closing the document drops all of it.
+// Closing the document drops all of it. An analysis here computes at most INLINE_BUDGETS missing
+// worst-case budgets (a keystroke changes one channel); on open the rest follow a few at a time
+// (lsp/diagnostics.ts), so the first diagnostics and every request in between need not wait for them.
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { analyse, DocumentState, type Analysis, type SyntaxFile } from '../engine';
 import { uriToPath, type OpenDocuments } from './documents';
+
+/** Missing worst-case budgets an analysis here computes at once; the rest are left pending. */
+export const INLINE_BUDGETS = 8;
 
 interface Analysed {
   version: number;
@@ -29,13 +34,16 @@ export class AnalysisCache {
 
   constructor(private readonly docs: OpenDocuments) {}
 
-  /** The analysis of a document at its current version (computed when missing or stale). */
-  get(doc: TextDocument): Analysis {
+  /**
+   * The analysis of a document at its current version (computed when missing or stale; `complete`:
+   * also when the kept one has budgets pending, then with every budget, once they have been kept).
+   */
+  get(doc: TextDocument, complete = false): Analysis {
     const entry = this.entryFor(doc.uri);
     const hit = entry.analysed;
-    if (hit && hit.version === doc.version && this.fresh(hit)) return hit.analysis;
+    if (hit && hit.version === doc.version && this.fresh(hit) && !(complete && hit.analysis.budgetsPending.length > 0)) return hit.analysis;
     const p = uriToPath(doc.uri, this.docs.roots);
-    const analysis = analyse({ path: p, text: doc.getText(), root: this.docs.rootFor(p), host: this.docs.host(), state: entry.state });
+    const analysis = analyse({ path: p, text: doc.getText(), root: this.docs.rootFor(p), host: this.docs.host(), state: entry.state, errorBudget: complete ? true : INLINE_BUDGETS });
     const deps = new Map<string, number>();
     for (const f of analysis.files.slice(1)) deps.set(f.path, this.docs.byPath(f.path)?.version ?? -1);
     entry.analysed = { version: doc.version, deps, diskGeneration: this.diskGeneration, analysis };
@@ -54,11 +62,11 @@ export class AnalysisCache {
     return entry.parsed.file;
   }
 
-  /** Analyses `doc` with some files replaced (to try out a fix): reads the document's state, changes nothing. */
+  /** Analyses `doc` with some files replaced (to try out a fix): reads the document's state, changes nothing; budgets as a keystroke gets them (a code action never waits for the budgets an open left pending). */
   run(doc: TextDocument, overrides?: Map<string, string>): Analysis {
     const p = uriToPath(doc.uri, this.docs.roots);
     const text = overrides?.get(p) ?? doc.getText();
-    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), state: this.entries.get(doc.uri)?.state, trial: true });
+    return analyse({ path: p, text, root: this.docs.rootFor(p), host: this.docs.host(overrides), state: this.entries.get(doc.uri)?.state, trial: true, errorBudget: INLINE_BUDGETS });
   }
 
   /** The last analysis of a document, whatever its version (for finding dependants). */

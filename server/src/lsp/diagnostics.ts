@@ -1,17 +1,33 @@
-// Diagnostics on open and on every change, debounced per document. A change to a file re-checks
-// every open spec that uses it. A timer reset by a newer change is the cancellation of stale work;
-// before publishing, the document version is checked again, so results for an old version are
-// never published. Each document gets only the diagnostics of its own file (problems in a used
-// file show on its `use` line through the engine's import-problems).
+// Diagnostics on open and on every change, per document. A change to a file re-checks every open
+// spec that uses it. Before publishing, the document version is checked again, so results for an
+// old version are never published.
+//
+// Adaptive debounce: a document whose last analysis took less than the debounce setting is checked
+// at once (felt latency then at most two analyses, one under way and its own, which is less than
+// the debounce plus one); a costlier one waits the debounce after the last change, so keystrokes
+// typed meanwhile cost one analysis. A newer change resets the wait: the cancellation of stale work.
+//
+// Two steps: the first publish carries every diagnostic whose worst-case budget was kept or cheap
+// (lsp/analyses.ts INLINE_BUDGETS); the budgets left pending (a document just opened) are then
+// computed in slices of SLICE_MS between which hovers, edits and other requests are served, and
+// the full diagnostics follow. A newer version drops the rest of the slices (the budgets already
+// made are kept by content in the document's state, so the next version's analysis finds them).
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import type { ServerContext } from './context';
 import { toDiagnostic } from './convert';
 import { uriToPath } from './documents';
-import { staleDiagnostics } from '../engine';
+import { keepWorstCaseBudget, staleDiagnostics, type Analysis, type ChannelResult } from '../engine';
 import { isShutDown } from './guard';
+
+/** Longest stretch of budget work between two turns of the event loop. */
+const SLICE_MS = 20;
 
 export class DiagnosticScheduler {
   private readonly timers = new Map<string, NodeJS.Timeout>();
+  /** A check about to run at once, or the budget slices under way (lsp/diagnostics.ts `soon`, `follow`). */
+  private readonly followers = new Map<string, NodeJS.Immediate>();
+  /** How long the last analysis of each open document took, ms (the adaptive debounce's measure). */
+  private readonly costs = new Map<string, number>();
 
   constructor(private readonly ctx: ServerContext) {}
 
@@ -32,24 +48,46 @@ export class DiagnosticScheduler {
   }
 
   closed(uri: string): void {
-    const t = this.timers.get(uri);
-    if (t) clearTimeout(t);
-    this.timers.delete(uri);
+    this.cancel(uri);
+    this.costs.delete(uri);
     this.ctx.analyses.drop(uri);
     if (!isShutDown(this.ctx.connection)) void this.ctx.connection.sendDiagnostics({ uri, diagnostics: [] });
   }
 
   /** Shutdown: pending checks are dropped and nothing more is published. */
   stop(): void {
-    for (const t of this.timers.values()) clearTimeout(t);
-    this.timers.clear();
+    for (const uri of [...this.timers.keys(), ...this.followers.keys()]) this.cancel(uri);
+  }
+
+  private cancel(uri: string): void {
+    const t = this.timers.get(uri);
+    if (t) clearTimeout(t);
+    this.timers.delete(uri);
+    const f = this.followers.get(uri);
+    if (f) clearImmediate(f);
+    this.followers.delete(uri);
   }
 
   private schedule(uri: string): void {
     if (isShutDown(this.ctx.connection)) return;
-    const prior = this.timers.get(uri);
-    if (prior) clearTimeout(prior);
-    this.timers.set(uri, setTimeout(() => this.run(uri), this.ctx.settings.debounceMs));
+    this.cancel(uri);
+    const debounce = this.ctx.settings.debounceMs;
+    const cost = this.costs.get(uri);
+    if (cost === undefined || cost < debounce) this.soon(uri, 2);
+    else this.timers.set(uri, setTimeout(() => this.run(uri), debounce));
+  }
+
+  /**
+   * Checks at once, but after the messages already received: the JSON-RPC connection handles one
+   * message per turn of the event loop (vscode-jsonrpc's queue), so a change queued behind this one
+   * reschedules, and cancels this, before the second turn.
+   */
+  private soon(uri: string, turns: number): void {
+    this.followers.set(uri, setImmediate(() => {
+      this.followers.delete(uri);
+      if (turns > 1) this.soon(uri, turns - 1);
+      else this.run(uri);
+    }));
   }
 
   private run(uri: string): void {
@@ -58,17 +96,51 @@ export class DiagnosticScheduler {
     if (!doc || isShutDown(this.ctx.connection)) return;
     const version = doc.version;
     try {
+      const t0 = performance.now();
       const analysis = this.ctx.analyses.get(doc);
-      const current = this.ctx.documents.get(uri);
-      if (!current || current.version !== version || isShutDown(this.ctx.connection)) return;
-      const own = analysis.path;
-      // Generated blocks in the C file beside the spec are compared at every check (cheap: a
-      // marker scan), read through the host so an open, unsaved C buffer counts.
-      const stale = staleDiagnostics(analysis, this.ctx.documents.host().read);
-      const diagnostics = [...analysis.diagnostics, ...stale].filter((d) => d.file === own).map((d) => toDiagnostic(doc, d));
-      void this.ctx.connection.sendDiagnostics({ uri, version, diagnostics });
+      // A document's first analysis is a cold one (every block read, every channel swept): not what
+      // a keystroke costs, so the first keystroke is checked at once and measures that.
+      this.costs.set(uri, this.costs.has(uri) ? performance.now() - t0 : 0);
+      if (!this.publish(doc, version, analysis)) return;
+      if (analysis.budgetsPending.length > 0) this.follow(uri, version, analysis.budgetsPending, 0);
     } catch (err) {
-      this.ctx.connection.console.error(`thermoscribe: checking ${uri} (version ${version}) failed: ${err instanceof Error ? err.stack ?? err.message : String(err)}`);
+      this.failed(uri, version, err);
     }
+  }
+
+  /** Computes the pending budgets a slice at a time, then publishes the full diagnostics of `version`. */
+  private follow(uri: string, version: number, pending: readonly ChannelResult[], from: number): void {
+    this.followers.set(uri, setImmediate(() => {
+      this.followers.delete(uri);
+      const doc = this.ctx.documents.get(uri);
+      if (!doc || doc.version !== version || isShutDown(this.ctx.connection)) return;
+      try {
+        const end = performance.now() + SLICE_MS;
+        let i = from;
+        while (i < pending.length && performance.now() < end) keepWorstCaseBudget(pending[i++]!);
+        if (i < pending.length) return this.follow(uri, version, pending, i);
+        this.publish(doc, version, this.ctx.analyses.get(doc, true));
+      } catch (err) {
+        this.failed(uri, version, err);
+      }
+    }));
+  }
+
+  /** Publishes an analysis of `version` unless the document has moved on; false when it has not been published. */
+  private publish(doc: TextDocument, version: number, analysis: Analysis): boolean {
+    const uri = doc.uri;
+    const current = this.ctx.documents.get(uri);
+    if (!current || current.version !== version || isShutDown(this.ctx.connection)) return false;
+    const own = analysis.path;
+    // Generated blocks in the C file beside the spec are compared at every check (cheap: a
+    // marker scan), read through the host so an open, unsaved C buffer counts.
+    const stale = staleDiagnostics(analysis, this.ctx.documents.host().read);
+    const diagnostics = [...analysis.diagnostics, ...stale].filter((d) => d.file === own).map((d) => toDiagnostic(doc, d));
+    void this.ctx.connection.sendDiagnostics({ uri, version, diagnostics });
+    return true;
+  }
+
+  private failed(uri: string, version: number, err: unknown): void {
+    this.ctx.connection.console.error(`thermoscribe: checking ${uri} (version ${version}) failed: ${err instanceof Error ? err.stack ?? err.message : String(err)}`);
   }
 }

@@ -28,6 +28,7 @@ import { onCodeLens } from './handlers/code-lens';
 import { PLOT_DATA, onPlotData, type PlotDataParams, type PlotDataResult } from './handlers/plot-data';
 import { COMPARE_DATA, onCompareData, type CompareDataParams, type CompareDataResult } from './handlers/compare-data';
 import { RUN_BUDGET, runBudgetHandler } from './handlers/run-budget';
+import { MEMORY, onMemory, type MemoryResult } from './handlers/memory';
 import { VERSION } from '../cli/version';
 
 export function createServer(connection: Connection): ServerContext {
@@ -128,6 +129,7 @@ export function createServer(connection: Connection): ServerContext {
   connection.onRequest(PLOT_DATA, guard<PlotDataParams, PlotDataResult | null>(connection, PLOT_DATA, null, (p) => onPlotData(ctx, p)));
   connection.onRequest(COMPARE_DATA, guard<CompareDataParams, CompareDataResult | null>(connection, COMPARE_DATA, null, (p) => onCompareData(ctx, p)));
   connection.onRequest(RUN_BUDGET, runBudgetHandler(ctx));
+  connection.onRequest(MEMORY, guard<unknown, MemoryResult | null>(connection, MEMORY, null, () => onMemory()));
   connection.onShutdown(() => {
     markShutDown(connection);
     diagnostics.stop();

@@ -2,7 +2,7 @@
 // from workspace/configuration (pulled at start and on every didChangeConfiguration).
 
 export interface Settings {
-  /** Delay between the last change and re-checking, ms. */
+  /** Delay between the last change and re-checking, ms, for a document whose last check took at least as long (a faster one is checked at once: lsp/diagnostics.ts). */
   debounceMs: number;
   inlayHintsEnabled: boolean;
 }

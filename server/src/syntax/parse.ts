@@ -122,13 +122,18 @@ export function pieceOrigin(item: TopItem): { base: TopItem; by: number } {
 function pieces(text: string): Span[] {
   const cuts = [0];
   let lineStart = 0;
+  // Line breaks found with indexOf (a native scan, several times faster than a loop over
+  // characters on every keystroke); the next \r is looked up again only once passed.
+  let cr = text.indexOf('\r');
   while (lineStart < text.length) {
     // A header cannot span lines (the pattern has no line breaks), so matching at the line start suffices.
     if (lineStart > 0) {
       HEADER_AT.lastIndex = lineStart;
       if (HEADER_AT.test(text)) cuts.push(lineStart);
     }
-    const nl = nextLineBreak(text, lineStart);
+    if (cr >= 0 && cr < lineStart) cr = text.indexOf('\r', lineStart);
+    const lf = text.indexOf('\n', lineStart);
+    const nl = lf < 0 ? cr : cr < 0 ? lf : Math.min(lf, cr);
     if (nl < 0) break;
     lineStart = nl + (text.charCodeAt(nl) === 13 && text.charCodeAt(nl + 1) === 10 ? 2 : 1);
   }
@@ -136,15 +141,6 @@ function pieces(text: string): Span[] {
   const out: Span[] = [];
   for (let k = 0; k + 1 < cuts.length; k++) if (cuts[k + 1]! > cuts[k]! || out.length === 0) out.push({ start: cuts[k]!, end: cuts[k + 1]! });
   return out;
-}
-
-/** Offset of the next \n or \r at or after `from`, or -1. */
-function nextLineBreak(text: string, from: number): number {
-  for (let i = from; i < text.length; i++) {
-    const ch = text.charCodeAt(i);
-    if (ch === 10 || ch === 13) return i;
-  }
-  return -1;
 }
 
 function parseWhole(text: string): ParseResult {
