@@ -263,7 +263,7 @@ export { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from './features/semanti
 export { documentSymbols, type OutlineSymbol, type SymbolKind } from './features/symbols';
 export { fixedNumber, formatSI, trimNumber } from './model/read-value';
 export { isInside } from './model/workspace';
-export { plotData, plotProblem, type PlotData } from './plot/data';
+export { plotData, plotProblem, plotBlockers, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
 export { plotSpec, type ChartKind } from './plot/spec';
 export { CAUTION } from './report/caution';
