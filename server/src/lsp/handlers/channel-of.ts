@@ -18,7 +18,8 @@ export function analysisOf(ctx: ServerContext, uri: string): Analysis | undefine
 export function channelOf(ctx: ServerContext, uri: string, name: string | undefined): { ok: true; result: ChannelResult } | { ok: false; message: string; channels: string[]; blocked?: boolean } {
   const a = analysisOf(ctx, uri);
   if (!a) return { ok: false, message: `cannot read ${uri}`, channels: [] };
-  const own = a.model.channels.filter((c) => c.file === a.path).map((c) => c.name);
+  // Every channel written in the file, those stopped by errors too (asking for one names its errors).
+  const own = a.files[0]!.parse.tree.items.filter((i) => i.kind === 'block' && i.keyword.text === 'channel').map((i) => (i.kind === 'block' ? i.name.text : ''));
   if (name === undefined) return { ok: false, message: 'name a channel', channels: own };
   const result = a.channels.find((x) => x.channel.name === name && x.channel.file === a.path);
   if (result) return { ok: true, result };
