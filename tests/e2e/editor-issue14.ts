@@ -143,7 +143,8 @@ export async function issue14Steps(context: BrowserContext, baseUrl: string, wor
       await openFile(page, 'accuracy.tsense');
       await page.locator('.monaco-editor .squiggly-warning').first().waitFor({ state: 'attached', timeout: FIRST });
       await goToLine(page, 18, 'accuracy = ');
-      const titles = await quickFixTitles(page);
+      // Only the actions take the arrow keys; the group headers ("Quick Fix", "More Actions...") do not.
+      const titles = (await quickFixTitles(page)).filter((t) => !HEADER.test(t));
       const i = titles.findIndex((t) => t.startsWith('Calibrate each board'));
       if (i < 0) throw new Error(`no calibration fix: ${titles.join(' | ')}`);
       for (let k = 0; k < i; k++) await page.keyboard.press('ArrowDown');
@@ -271,7 +272,9 @@ async function goToLine(page: Page, line: number, needle: string): Promise<void>
   await page.keyboard.press('Enter');
 }
 
-/** Ctrl+. and the titles of the quick fixes listed. */
+const HEADER = /^(Quick Fix|More Actions|Refactor)/;
+
+/** Ctrl+. and the titles of the quick fixes listed (group headers included). */
 async function quickFixTitles(page: Page): Promise<string[]> {
   // The server answers code actions once its analysis of the text is in; ask again until fixes show.
   const deadline = Date.now() + LIMIT;
@@ -281,7 +284,7 @@ async function quickFixTitles(page: Page): Promise<string[]> {
     const ok = await rows.first().waitFor({ timeout: 15_000 }).then(() => true, () => false);
     if (ok) {
       const titles = (await rows.allInnerTexts()).map((t) => t.replace(/\s+/g, ' ').trim()).filter(Boolean);
-      if (titles.some((t) => !/^(Quick Fix|More Actions|Refactor)/.test(t))) return titles;
+      if (titles.some((t) => !HEADER.test(t))) return titles;
     }
     await page.keyboard.press('Escape');
     if (Date.now() > deadline) throw new Error('no quick fix menu');
