@@ -127,7 +127,7 @@ export function channelHover(r: ChannelResult, o: HoverOptions = {}): string {
     `- Current: ${f.ampsSpan(s.ampsMin, s.ampsMax)}`,
     `- Voltage: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)} of the ${f.reference(vref)} reference, codes ${s.codeMin} .. ${s.codeMax}${clip ? ` — **${clip}**` : ''}`,
     `- Slope: ${slopes.length ? `${f.slopeMv(Math.min(...slopes))} .. ${f.slopeMv(Math.max(...slopes))}` : 'n/a'}`,
-    `- Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** at ${f.celsius(s.worst.celsius)}` + (c.resolutionKPerCount !== null ? ` (required ${f.perCount(c.resolutionKPerCount)})` : ''),
+    `- Worst resolution: ${worstText(r, clip !== null)}` + (c.resolutionKPerCount !== null ? ` (required ${f.perCount(c.resolutionKPerCount)})` : ''),
     `- Worst-case error: ${b ? `**±${f.kelvinDelta(b.worstAbsK)}** at ${f.celsius(b.worstAtCelsius)} with ${describeSetting(b.setting)}${c.accuracyK !== null ? ` (target ±${f.kelvinDelta(c.accuracyK)}: ${b.worstAbsK <= c.accuracyK ? 'met' : 'missed'})` : ''}${b.dominant ? `; mostly ${b.dominant.label}` : ''}` : 'not computed (see the problems list)'}`,
   ].join('\n');
   return [
@@ -144,6 +144,16 @@ export function channelHover(r: ChannelResult, o: HoverOptions = {}): string {
       : `A straight line instead of the table would be off by ${f.kelvinDelta(nl.bestFitK)} (best fit)`,
     SHORT_CAUTION,
   ].join('\n\n');
+}
+
+/** The worst resolution; where the signal clips the code does not move, so only the rest counts. */
+function worstText(r: ChannelResult, clips: boolean): string {
+  if (!clips) return `**${f.perCount(r.summary.worst.celsiusPerCount)}** at ${f.celsius(r.summary.worst.celsius)}`;
+  const vref = r.channel.adc.reference.value;
+  const inside = r.sweep.filter((p) => p.volts >= 0 && p.volts < vref);
+  if (inside.length === 0) return 'none: the signal clips over the whole range';
+  const w = inside.reduce((m, p) => (p.celsiusPerCount > m.celsiusPerCount ? p : m));
+  return `none where the signal clips; **${f.perCount(w.celsiusPerCount)}** at ${f.celsius(w.celsius)} over the rest`;
 }
 
 export function biasHover(r: ChannelResult): string {
