@@ -54,6 +54,8 @@ function createClient(context: vscode.ExtensionContext, channel: vscode.LogOutpu
     synchronize: { configurationSection: 'thermoscribe' },
     outputChannel: channel,
     traceOutputChannel: channel,
+    // The channel hover's link opens the plot panel; no other command runs from a hover.
+    markdown: { isTrusted: { enabledCommands: ['thermoscribe.showPlot'] } },
   };
   return new LanguageClient(CLIENT_ID, 'Thermoscribe Language Server', serverOptions, clientOptions);
 }

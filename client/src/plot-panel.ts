@@ -10,7 +10,7 @@ import { escapeHtml, followEdits, LivePanel, webviewPage } from './live-panel';
 const COMMAND = 'thermoscribe.showPlot';
 const REQUEST = 'thermoscribe/plotData';
 
-type PlotAnswer = { ok: true; data: unknown } | { ok: false; message: string; channels: string[] };
+type PlotAnswer = { ok: true; data: unknown } | { ok: false; message: string; channels: string[]; blocked?: boolean };
 
 const panels = new Map<string, PlotPanel>();
 
@@ -70,7 +70,7 @@ class PlotPanel extends LivePanel<unknown> {
     try {
       const answer = await client.sendRequest<PlotAnswer | null>(REQUEST, { uri: this.uri, channel: this.channel });
       if (!answer) return { type: 'problem', message: 'The server could not compute the plots (see the server log).', channels: [] };
-      return answer.ok ? { type: 'data', data: answer.data } : { type: 'problem', message: answer.message, channels: answer.channels };
+      return answer.ok ? { type: 'data', data: answer.data } : { type: 'problem', message: answer.message, channels: answer.channels, blocked: answer.blocked === true };
     } catch (err) {
       return { type: 'problem', message: err instanceof Error ? err.message : String(err), channels: [] };
     }
@@ -86,8 +86,13 @@ function html(webview: vscode.Webview, script: vscode.Uri, channel: string): str
   const csp = (nonce: string) => `default-src 'none'; script-src 'nonce-${nonce}'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:; font-src ${webview.cspSource};`;
   const style = `  #status { color: var(--vscode-descriptionForeground); margin: 4px 0 8px; }
   #status.problem { color: var(--vscode-errorForeground); }
-  #chart svg { max-width: 100%; height: auto; }`;
+  #chart svg { max-width: 100%; height: auto; }
+  #budget .caption { font-weight: bold; margin: 12px 0 4px; }
+  #budget table { border-collapse: collapse; }
+  #budget th, #budget td { padding: 2px 10px 2px 0; text-align: left; }
+  #budget td + td { text-align: right; }`;
   return webviewPage(`Plots: ${channel}`, csp, style, (nonce) => `<div id="status">Computing the plots of ${escapeHtml(channel)}…</div>
 <div id="chart" data-state="waiting"></div>
+<div id="budget"></div>
 <script nonce="${nonce}" src="${webview.asWebviewUri(script).toString()}"></script>`);
 }

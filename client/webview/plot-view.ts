@@ -13,11 +13,12 @@ interface VsCodeApi {
 }
 declare function acquireVsCodeApi(): VsCodeApi;
 
-type Incoming = { type: 'data'; data: PlotData } | { type: 'problem'; message: string; channels: string[] };
+type Incoming = { type: 'data'; data: PlotData } | { type: 'problem'; message: string; channels: string[]; blocked?: boolean };
 
 const vscode = acquireVsCodeApi();
 const chart = document.getElementById('chart')!;
 const status = document.getElementById('status')!;
+const budget = document.getElementById('budget')!;
 let last: PlotData | null = null;
 let view: View | null = null;
 
@@ -30,14 +31,15 @@ function cssVar(name: string, fallback: string): string {
 /** A chart theme from the editor's colours (--vscode-editor-*, --vscode-charts-*). */
 function editorTheme(): PlotTheme {
   const fg = cssVar('--vscode-editor-foreground', NEUTRAL_THEME.foreground);
-  const size = parseFloat(cssVar('--vscode-font-size', '12'));
+  // The editor's font size (the text beside the panel), not the smaller workbench size.
+  const size = parseFloat(cssVar('--vscode-editor-font-size', cssVar('--vscode-font-size', '13')));
   return {
     ...NEUTRAL_THEME,
     background: cssVar('--vscode-editor-background', NEUTRAL_THEME.background),
     foreground: fg,
     muted: cssVar('--vscode-descriptionForeground', fg),
     font: cssVar('--vscode-font-family', NEUTRAL_THEME.font),
-    fontSize: Number.isFinite(size) && size > 6 ? Math.min(size, 16) : 12,
+    fontSize: Number.isFinite(size) && size > 6 ? Math.min(Math.max(size, 12), 18) : 13,
     volts: cssVar('--vscode-charts-green', fg),
     code: cssVar('--vscode-charts-purple', fg),
     worst: cssVar('--vscode-charts-orange', fg),
@@ -52,18 +54,56 @@ function editorTheme(): PlotTheme {
   };
 }
 
+/** Room the axes, their titles and the padding take beside the plot width, px (measured once drawn). */
+let margin = 110;
+
 async function draw(): Promise<void> {
   if (!last) return;
-  const width = Math.max(320, Math.min(900, document.body.clientWidth - 140));
-  const spec = plotSpec(last, { theme: editorTheme(), width });
-  view?.finalize();
-  chart.textContent = '';
-  chart.dataset['state'] = 'drawing';
-  view = new View(parse(spec as Spec, undefined, { ast: true }), { renderer: 'svg', container: chart, hover: false, expr: expressionInterpreter });
-  await view.runAsync();
+  // The chart takes the panel's width: the plot width is what is left after the axes. Once drawn,
+  // the SVG's real width tells what the axes took, and the chart is drawn again to fit if needed.
+  const available = Math.max(280, chart.clientWidth || document.body.clientWidth - 32);
+  for (let pass = 0; pass < 2; pass++) {
+    const width = Math.max(240, Math.min(1400, available - margin));
+    const spec = plotSpec(last, { theme: editorTheme(), width });
+    view?.finalize();
+    chart.textContent = '';
+    chart.dataset['state'] = 'drawing';
+    view = new View(parse(spec as Spec, undefined, { ast: true }), { renderer: 'svg', container: chart, hover: false, expr: expressionInterpreter });
+    await view.runAsync();
+    const drawn = Number(chart.querySelector('svg')?.getAttribute('width') ?? NaN);
+    if (!Number.isFinite(drawn) || drawn <= available + 1 || pass === 1) break;
+    margin = drawn - width;
+  }
   chart.dataset['state'] = 'ready';
   chart.dataset['channel'] = last.channel;
+  chart.dataset['width'] = String(Math.round(chart.querySelector('svg')?.getBoundingClientRect().width ?? 0));
 }
+
+/** The error budget's table (moved here from the channel hover): worst case and Monte Carlo per calibration. */
+function budgetTable(d: PlotData): void {
+  budget.textContent = '';
+  const e = d.error;
+  if (!e) return;
+  const caption = document.createElement('div');
+  caption.className = 'caption';
+  caption.textContent = `Error budget${e.targetK !== null ? ` (target ±${fmt(e.targetK)} K)` : ''}`;
+  const table = document.createElement('table');
+  const row = (cells: string[], head = false) => {
+    const tr = document.createElement('tr');
+    for (const c of cells) {
+      const td = document.createElement(head ? 'th' : 'td');
+      td.textContent = c;
+      tr.appendChild(td);
+    }
+    table.appendChild(tr);
+  };
+  row(['calibration', 'worst case', 'Monte Carlo 1–99 %'], true);
+  const verdict = (k: number) => (e.targetK === null ? '' : k <= e.targetK ? ' ✓' : ' ✗');
+  for (const m of e.modes) row([`${m.label}${m.stated ? ' (stated)' : ''}`, `±${fmt(m.worstAbsK)} K${verdict(m.worstAbsK)}`, m.mcP99AbsK === null ? '-' : `±${fmt(m.mcP99AbsK)} K`]);
+  budget.append(caption, table);
+}
+
+const fmt = (x: number) => (Number.isFinite(x) ? String(Number(x.toPrecision(3))) : 'n/a');
 
 window.addEventListener('message', (event: MessageEvent<Incoming>) => {
   const m = event.data;
@@ -71,9 +111,10 @@ window.addEventListener('message', (event: MessageEvent<Incoming>) => {
     last = m.data;
     status.className = '';
     status.textContent = m.data.notes.join(' ');
+    budgetTable(m.data);
     draw().catch((err: unknown) => showProblem(`Drawing failed: ${err instanceof Error ? err.message : String(err)}`));
   } else if (m?.type === 'problem') {
-    showProblem(m.message + (m.channels.length ? `. Channels in this spec: ${m.channels.join(', ')}.` : ''));
+    showProblem(m.message + (m.channels.length && !m.blocked ? `. Channels in this spec: ${m.channels.join(', ')}.` : ''));
   }
 });
 

@@ -305,7 +305,7 @@ export { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from './features/semanti
 export { documentSymbols, type OutlineSymbol, type SymbolKind } from './features/symbols';
 export { fixedNumber, formatSI, trimNumber } from './model/read-value';
 export { isInside } from './model/workspace';
-export { plotData, plotProblem, type PlotData } from './plot/data';
+export { plotData, plotProblem, plotBlockers, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
 export { filterWords } from './analysis/dynamics';
 export { plotSpec, type ChartKind } from './plot/spec';

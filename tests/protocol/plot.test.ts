@@ -76,6 +76,20 @@ describe('thermoscribe/plotData', () => {
     client.change(uri, text);
   });
 
+  it('names the error that stops a channel written in the spec, and lists that channel (issue 14, item 9)', async () => {
+    const broken = text.replace(/(channel bench_air \{[^}]*?adc\s*=\s*)(\w+)/, '$1no_such_adc');
+    const v = client.change(uri, broken);
+    await client.diagnostics(uri, v);
+    const line = broken.slice(0, broken.indexOf('no_such_adc')).split('\n').length;
+    const r = await client.request<PlotAnswer & { blocked?: boolean }>('thermoscribe/plotData', { uri, channel: 'bench_air' });
+    expect(r.ok).toBe(false);
+    expect(r.blocked).toBe(true);
+    expect(r.message).toMatch(new RegExp(`^channel 'bench_air' has no figures or plots until this error is fixed: line ${line}: .*no_such_adc`));
+    expect((await client.request<PlotAnswer>('thermoscribe/plotData', { uri })).channels).toContain('bench_air');
+    const back = client.change(uri, text);
+    await client.diagnostics(uri, back);
+  });
+
   it('answers an unknown channel with a message and the channels, and refuses bad parameters', async () => {
     const r = await client.request<PlotAnswer>('thermoscribe/plotData', { uri, channel: 'roof' });
     expect(r).toEqual({ ok: false, message: "no channel named 'roof' in this file", channels: ['bench_air', 'soil', 'heat_mat', 'canopy'] });

@@ -259,7 +259,7 @@ describe('code actions', () => {
   });
 
   it('sets the bits of an ADC in the used file for resolution-short', async () => {
-    const fix = (await actions('0.1 °C per count')).find((a) => a.title.startsWith('Use 14 bits'))!;
+    const fix = (await actions('0.1 °C per count')).find((a) => a.title.startsWith('Use a 14-bit converter'))!;
     expect(fix.title).toMatch(/worst 0\.\d+ °C\/count/);
     expect(applyEdits(fs.readFileSync(PARTS, 'utf8'), fix.edit!.changes![uriOf(PARTS)]!)).toContain('bits      = 14');
   });

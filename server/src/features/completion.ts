@@ -8,9 +8,10 @@ import { sensorKind } from '../sensors/registry';
 import { SUGGESTED_UNITS, type Dimension } from '../model/units';
 import { blockSpecs, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
 import { blockAt } from './locate';
-import { formatSI } from '../analysis/figures';
+import { channelResult, formatSI, trimNumber } from '../analysis/figures';
+import { effectiveOversamplingBits } from '../budget/oversampling';
 
-export type CompletionKind = 'keyword' | 'field' | 'unit' | 'reference' | 'option' | 'form';
+export type CompletionKind = 'keyword' | 'field' | 'unit' | 'reference' | 'option' | 'form' | 'snippet';
 
 export interface CompletionItem {
   label: string;
@@ -45,21 +46,23 @@ export function completion(a: Analysis, offset: number): CompletionItem[] {
   if (!spec) return [];
   const assign = /^[ \t]*([A-Za-z_][A-Za-z0-9_]*)[ \t]*=[ \t]*(.*)$/.exec(prefix);
   if (!assign) {
-    return /^[ \t]*[A-Za-z_]*$/.test(prefix) ? fieldNames(spec.kind, block, lineStart, wordSpan) : [];
+    return /^[ \t]*[A-Za-z_]*$/.test(prefix) ? fieldNames(a, spec.kind, block, lineStart, wordSpan) : [];
   }
   const fs = fieldSpec(spec, assign[1]!);
   if (!fs) return [];
-  return valueItems(a, fs, assign[2]!, offset, wordSpan);
+  return valueItems(a, fs, assign[2]!, offset, wordSpan, block);
 }
 
 function topLevel(replace: Span): CompletionItem[] {
   return [
-    ...blockSpecs().map((b) => ({ label: b.kind, kind: 'keyword' as const, detail: `${b.kind} block`, documentation: b.doc, insertText: blockSnippet(b).join('\n'), snippet: true, replace })),
-    { label: 'use', kind: 'keyword', detail: 'use a file of definitions', documentation: USE_DOC, insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
+    // One item per word, a snippet: the editor gets no snippet file of its own (package.json), so
+    // `channel` and `use` are not listed twice.
+    ...blockSpecs().map((b) => ({ label: b.kind, kind: 'snippet' as const, detail: `${b.kind} block`, documentation: b.doc, insertText: blockSnippet(b).join('\n'), snippet: true, replace })),
+    { label: 'use', kind: 'snippet', detail: 'use a file of definitions', documentation: USE_DOC, insertText: 'use "${1:parts.tsense}"', snippet: true, replace },
   ];
 }
 
-function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replace: Span): CompletionItem[] {
+function fieldNames(a: Analysis, kind: BlockKind, block: BlockNode, lineStart: number, replace: Span): CompletionItem[] {
   const spec = blockSpec(kind)!;
   const given = new Set<string>();
   for (const fl of block.fields) {
@@ -67,18 +70,46 @@ function fieldNames(kind: BlockKind, block: BlockNode, lineStart: number, replac
     const fs = fieldSpec(spec, fl.key.text);
     if (fs) given.add(fs.name);
   }
-  return spec.fields.filter((fs) => !given.has(fs.name)).map((fs) => ({
-    label: fs.name,
-    kind: 'field' as const,
-    detail: needText(fs),
-    documentation: `${fs.doc}\n\nExample: \`${fs.example}\``,
-    insertText: fieldSnippet(fs),
-    snippet: true,
-    replace,
-  }));
+  return spec.fields.filter((fs) => !given.has(fs.name)).map((fs) => {
+    const met = kind === 'channel' ? metTarget(a, block, fs.name) : null;
+    return {
+      label: fs.name,
+      kind: 'field' as const,
+      detail: needText(fs),
+      documentation: `${fs.doc}\n\nExample: \`${fs.example}\`${met ? `\n\nInserted: what this channel achieves now, \`${met}\`.` : ''}`,
+      insertText: met ? `${fs.name} = \${1:${met}}` : fieldSnippet(fs),
+      snippet: true,
+      replace,
+    };
+  });
 }
 
-function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, wordSpan: Span): CompletionItem[] {
+/**
+ * A target a completed field starts with: what the channel achieves now (rounded up to two
+ * significant digits), so that completing the field raises no warning by itself. Null when the
+ * channel has no analysis (then no target check runs, and the schema's example is inserted).
+ */
+function metTarget(a: Analysis, block: BlockNode, field: string): string | null {
+  const r = channelResult(a, block.name.text);
+  if (!r) return null;
+  if (field === 'resolution') {
+    const perCount = r.summary.worst.celsiusPerCount / 2 ** effectiveOversamplingBits(r.channel);
+    return perCount > 0 && Number.isFinite(perCount) ? `${roundUp(perCount)} °C per count` : null;
+  }
+  if (field === 'accuracy') {
+    const k = r.worstCaseBudget?.stated.worstAbsK;
+    return k !== undefined && k > 0 && Number.isFinite(k) ? `± ${roundUp(k)} °C` : null;
+  }
+  return null;
+}
+
+/** Rounded up to two significant digits: 0.0913 → 0.092 (never below the figure itself). */
+function roundUp(x: number): string {
+  const step = 10 ** (Math.floor(Math.log10(x)) - 1);
+  return trimNumber(Math.ceil(x / step - 1e-9) * step, 2);
+}
+
+function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, wordSpan: Span, block: BlockNode): CompletionItem[] {
   const form = fs.form;
   const onlyWord = /^[A-Za-z_]*$/.test(value);
   if (form.form === 'ref') {
@@ -123,7 +154,9 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
     return [{ label: 'from', kind: 'keyword', detail: 'from a supply', documentation: 'Names the supply the resistor is tied to: `from 3.3 V`.', replace: wordSpan }];
   }
   if (form.form === 'accuracy' && value.trim() === '') {
-    return [{ label: '± 0.5 °C', kind: 'form', detail: 'accuracy target', documentation: fs.doc, insertText: '± ${1:0.5} °C', snippet: true, replace: wordSpan }];
+    const met = metTarget(a, block, 'accuracy');
+    const label = met ?? '± 0.5 °C';
+    return [{ label, kind: 'form', detail: met ? 'accuracy target: what this channel achieves now' : 'accuracy target', documentation: fs.doc, insertText: label.replace(/^± (.*) °C$/, '± $${1:$1} °C'), snippet: true, replace: wordSpan }];
   }
   const num = NUMBER_AT_END.exec(value);
   if (!num) return [];

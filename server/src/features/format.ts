@@ -5,6 +5,7 @@
 import { parse } from '../syntax/parse';
 import type { BlockNode, QuantityTerm, Span, Term } from '../syntax/ast';
 import { commentSpans } from './comments';
+import { INDENT } from '../model/language';
 
 export type FormatResult = { ok: true; text: string } | { ok: false; reason: string };
 
@@ -31,7 +32,7 @@ export function formatText(text: string): FormatResult {
       events.push({ start: item.span.start, end: brace + 1, kind: 'header', block: item, render: () => `${item.keyword.text} ${item.name.text} {` });
       for (const f of item.fields) {
         if (f.kind !== 'field') continue;
-        events.push({ start: f.span.start, end: f.span.end, kind: 'field', block: item, render: () => `  ${f.key.text.padEnd(keyWidth)} = ${f.value.map((t) => term(t, text)).join(' ')}` });
+        events.push({ start: f.span.start, end: f.span.end, kind: 'field', block: item, render: () => `${INDENT}${f.key.text.padEnd(keyWidth)} = ${f.value.map((t) => term(t, text)).join(' ')}` });
       }
       const close = item.closeSpan!;
       events.push({ start: close.start, end: close.end, kind: 'close', block: item, render: () => '}' });
@@ -64,7 +65,7 @@ export function formatText(text: string): FormatResult {
       else blank = sourceBlank;
       if (blank) lines.push('');
     }
-    const indent = depth > 0 && e.kind === 'comment' ? '  ' : '';
+    const indent = depth > 0 && e.kind === 'comment' ? INDENT : '';
     lines.push(indent + e.render());
     if (e.kind === 'header') depth = 1;
     prev = e;

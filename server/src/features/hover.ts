@@ -15,8 +15,8 @@ import { describeBias } from '../report/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { locate, type Located } from './locate';
 import * as f from '../analysis/figures';
-import { budgetHoverSection } from './budget-hover';
 import { channelDynamics, dynamicsLine } from '../analysis/dynamics';
+import { describeSetting } from '../budget/describe';
 import { kindOf, sensorKind } from '../sensors/registry';
 import { OUTLIER_RULE, residualRows } from '../calibration/fit';
 import { escapeControls, shown } from '../diagnostics/shown';
@@ -29,7 +29,12 @@ export interface HoverResult {
 const ROOM_K = 25 + ZERO_CELSIUS_K;
 const SHORT_CAUTION = '_Model figures, not a safety assessment: verify the built channel against a calibrated reference thermometer._';
 
-export function hover(a: Analysis, offset: number): HoverResult | null {
+export interface HoverOptions {
+  /** A link (markdown target) that opens a channel's plot panel, where its error budget tables are. */
+  plotLink?: (channel: string) => string;
+}
+
+export function hover(a: Analysis, offset: number, o: HoverOptions = {}): HoverResult | null {
   const tree = a.files[0]?.parse.tree;
   if (!tree) return null;
   const at = locate(tree, offset);
@@ -40,7 +45,7 @@ export function hover(a: Analysis, offset: number): HoverResult | null {
     case 'block-keyword':
     case 'block-name': {
       const span = at.kind === 'block-name' ? at.block.name.span : at.block.keyword.span;
-      const md = blockHover(a, at.block);
+      const md = blockHover(a, at.block, o);
       return md ? { markdown: md, span } : null;
     }
     case 'field-key': {
@@ -60,13 +65,13 @@ function useHover(a: Analysis, rel: string): string {
   return `**${rel}** brings in ${names.length ? names.join(', ') : 'no definitions'}`;
 }
 
-function blockHover(a: Analysis, block: BlockNode): string | null {
+function blockHover(a: Analysis, block: BlockNode, o: HoverOptions): string | null {
   const spec = blockSpec(block.keyword.text);
   if (!spec) return null;
   const name = block.name.text;
   if (spec.kind === 'channel') {
     const r = f.channelResult(a, name);
-    return r ? channelHover(r) : `**channel ${name}**\n\n${spec.doc}\n\nNo figures: the channel has errors (see the problems list).`;
+    return r ? channelHover(r, o) : `**channel ${name}**\n\n${spec.doc}\n\nNo figures: the channel has errors (see the problems list).`;
   }
   const kind = sensorKind(spec.kind);
   if (kind) {
@@ -90,11 +95,6 @@ function keyPoints(r: ChannelResult): { low: SweepPoint; room: SweepPoint | null
   return { low, room, high };
 }
 
-function roomNote(r: ChannelResult): string {
-  const c = r.channel;
-  return ROOM_K >= c.lowK && ROOM_K <= c.highK ? '' : `\n\n25 °C lies outside the range (${f.kelvinToCelsius(c.lowK)} .. ${f.kelvinToCelsius(c.highK)}).`;
-}
-
 function pointTable(r: ChannelResult, rows: ('amps' | 'volts' | 'slope' | 'counts' | 'perCount' | 'heat')[]): string {
   const { low, room, high } = keyPoints(r);
   const pts = room ? [low, room, high] : [low, high];
@@ -114,27 +114,51 @@ function pointTable(r: ChannelResult, rows: ('amps' | 'volts' | 'slope' | 'count
   return out.join('\n');
 }
 
-export function channelHover(r: ChannelResult): string {
+/**
+ * A channel's hover: a short summary first (current, voltage, slope, worst resolution, worst-case
+ * error), a link to the plot panel (which holds the error budget tables), then the details.
+ */
+export function channelHover(r: ChannelResult, o: HoverOptions = {}): string {
   const c = r.channel;
   const s = r.summary;
-  const spanV = s.voltsMax - s.voltsMin;
   const vref = c.adc.reference.value;
   const nl = s.nonlinearity;
+  const slopes = r.sweep.map((p) => p.slope).filter(Number.isFinite);
+  const clip = f.clipText(r);
+  const b = r.worstCaseBudget?.stated;
+  const summary = [
+    `- Current: ${f.ampsSpan(s.ampsMin, s.ampsMax)}`,
+    `- Voltage: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)} of the ${f.reference(vref)} reference, codes ${s.codeMin} .. ${s.codeMax}${clip ? ` — **${clip}**` : ''}`,
+    `- Slope: ${slopes.length ? `${f.slopeMv(Math.min(...slopes))} .. ${f.slopeMv(Math.max(...slopes))}` : 'n/a'}`,
+    `- Worst resolution: ${worstText(r, clip !== null)}` + (c.resolutionKPerCount !== null ? ` (required ${f.perCount(c.resolutionKPerCount)})` : ''),
+    `- Worst-case error: ${b ? `**±${f.kelvinDelta(b.worstAbsK)}** at ${f.celsius(b.worstAtCelsius)} with ${describeSetting(b.setting)}${c.accuracyK !== null ? ` (target ±${f.kelvinDelta(c.accuracyK)}: ${b.worstAbsK <= c.accuracyK ? 'met' : 'missed'})` : ''}${b.dominant ? `; mostly ${b.dominant.label}` : ''}` : 'not computed (see the problems list)'}`,
+  ].join('\n');
   return [
-    `**channel ${c.name}**: ${c.sensor.kind} \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.volts(vref)})`,
+    `**channel ${c.name}**: ${c.sensor.kind} \`${c.sensor.name}\` (${c.sensor.params.kind}), ${biasText(r)}, ADC \`${c.adc.name}\` (${c.adc.bits} bits on ${f.reference(vref)})`,
+    summary,
+    o.plotLink ? `[Plots and error budget tables](${o.plotLink(c.name)})` : 'Plots and error budget tables: the channel\'s "Show plots" lens.',
+    '---',
     ...(kindOf(c.sensor).channelHoverLines?.(r) ?? []),
-    pointTable(r, ['amps', 'volts', 'slope', 'counts', 'perCount']) + roomNote(r),
-    `Worst resolution: **${f.perCount(s.worst.celsiusPerCount)}** (${f.countsPerK(s.worst.countsPerKelvin)}) at ${f.celsius(s.worst.celsius)}` +
-      (c.resolutionKPerCount !== null ? `; required ${f.perCount(c.resolutionKPerCount)}` : ''),
-    `Sensed voltage: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)}, a span of ${f.volts(spanV)} = ${f.percent(spanV / vref)} of the ${f.volts(vref)} reference (peak at ${f.percent(s.voltsMax / vref)}); codes ${s.codeMin} .. ${s.codeMax}`,
+    pointTable(r, ['amps', 'volts', 'slope', 'counts', 'perCount']),
     `Sensor faults (what the ADC reads):\n${describeFaults(sensorFaults(c, s.codeMin, s.codeMax)).map((l) => `- ${l}`).join('\n')}`,
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)} (θJA ${f.trimNumber(c.thetaJA, 4)} K/W)`,
-    `Straight-line error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : ''),
-    ...(r.budget ? [budgetHoverSection(r.budget)] : []),
+    c.conversion === 'line'
+      ? `Straight-line conversion error: end-point ${f.kelvinDelta(nl.endPointK)}, best fit ${f.kelvinDelta(nl.bestFitK)}` + (c.accuracyK !== null ? `; accuracy target ±${f.kelvinDelta(c.accuracyK)}` : '')
+      : `A straight line instead of the table would be off by ${f.kelvinDelta(nl.bestFitK)} (best fit)`,
     ...(c.dynamics ? [dynamicsLine(channelDynamics(r)!)] : []),
     SHORT_CAUTION,
     ...(kindOf(c.sensor).cautions ?? []),
   ].join('\n\n');
+}
+
+/** The worst resolution; where the signal clips the code does not move, so only the rest counts. */
+function worstText(r: ChannelResult, clips: boolean): string {
+  if (!clips) return `**${f.perCount(r.summary.worst.celsiusPerCount)}** at ${f.celsius(r.summary.worst.celsius)}`;
+  const vref = r.channel.adc.reference.value;
+  const inside = r.sweep.filter((p) => p.volts >= 0 && p.volts < vref);
+  if (inside.length === 0) return 'none: the signal clips over the whole range';
+  const w = inside.reduce((m, p) => (p.celsiusPerCount > m.celsiusPerCount ? p : m));
+  return `none where the signal clips; **${f.perCount(w.celsiusPerCount)}** at ${f.celsius(w.celsius)} over the rest`;
 }
 
 export function biasHover(r: ChannelResult): string {
@@ -147,8 +171,8 @@ export function biasHover(r: ChannelResult): string {
   const inWindow = s.ampsMin >= c.windowLowA && s.ampsMax <= c.windowHighA;
   return [
     `**bias of ${c.name}**: ${biasText(r)}${tol ? ` (${tol}; figures at nominal values)` : ''}`,
-    pointTable(r, ['amps', 'volts', 'heat']) + roomNote(r),
-    `Current ${f.amps(s.ampsMin)} .. ${f.amps(s.ampsMax)}: ${inWindow ? 'inside' : '**outside**'} the sound window ${f.amps(c.windowLowA)} .. ${f.amps(c.windowHighA)}`,
+    pointTable(r, ['amps', 'volts', 'heat']),
+    `Current ${f.ampsSpan(s.ampsMin, s.ampsMax)}: ${inWindow ? 'inside' : '**outside**'} the range of bias current that works well, ${f.amps(c.windowLowA)} .. ${f.amps(c.windowHighA)} (\`current_window\`)`,
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)}`,
   ].join('\n\n');
 }
@@ -161,7 +185,7 @@ function adcHover(a: Analysis, adc: AdcDef): string {
     return `- \`${r.channel.name}\`: ${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)} (${f.percent((s.voltsMax - s.voltsMin) / vref)} of the reference), codes ${s.codeMin} .. ${s.codeMax}, worst ${f.perCount(s.worst.celsiusPerCount)}`;
   });
   return [
-    `**adc ${adc.name}**: ${adc.bits} bits, reference ${f.volts(vref)}${adc.reference.tolerance ? ` ± ${f.percent(adc.reference.tolerance)}` : ''}`,
+    `**adc ${adc.name}**: ${adc.bits} bits, reference ${f.reference(vref)}${adc.reference.tolerance ? ` ± ${f.percent(adc.reference.tolerance)}` : ''}`,
     `LSB ${f.volts(lsb)}; ${2 ** adc.bits} codes; ${f.trimNumber(2 ** adc.bits / vref / 1000, 4)} counts per mV`,
     (adc.maxSourceOhms !== null ? `Source impedance at most ${f.ohms(adc.maxSourceOhms)}` : 'Source impedance unchecked') +
       (adc.sampleFarads !== null ? `; sampling capacitance ${f.formatSI(adc.sampleFarads, 'F')}` : ''),

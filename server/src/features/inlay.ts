@@ -50,10 +50,15 @@ function channelHints(a: Analysis, block: BlockNode, out: InlayHint[]): void {
     const offset = ends.get(field);
     if (offset !== undefined) out.push({ offset, label, ...(tooltip ? { tooltip } : {}) });
   };
-  at('bias', `→ ${f.amps(s.ampsMin)} .. ${f.amps(s.ampsMax)}`, 'Bias current over the range (nominal values)');
-  at('range', `worst ${f.perCount(s.worst.celsiusPerCount)} at ${f.celsius(s.worst.celsius)}`, 'Coarsest resolution over the range');
-  at('adc', `${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)} of ${f.volts(r.channel.adc.reference.value)}`, 'Sensed voltage over the range against the ADC reference');
-  at('accuracy', `self-heating ${f.rise(s.selfHeatingMaxK)}, line error ${f.kelvinDelta(s.nonlinearity.bestFitK)}`, 'Largest self-heating and best-fit straight-line error over the range');
+  at('bias', `→ ${f.ampsSpan(s.ampsMin, s.ampsMax)}`, 'Bias current over the range (nominal values)');
+  // Where the signal clips, a resolution means nothing: say where it clips instead.
+  const clip = f.clipText(r);
+  if (clip) at('range', clip, 'The sensed voltage leaves the ADC input span over this part of the range');
+  else at('range', `worst ${f.perCount(s.worst.celsiusPerCount)} at ${f.celsius(s.worst.celsius)}`, 'Coarsest resolution over the range');
+  at('adc', `${f.volts(s.voltsMin)} .. ${f.volts(s.voltsMax)} of ${f.reference(r.channel.adc.reference.value)}`, 'Sensed voltage over the range against the ADC reference');
+  // The straight-line error matters only to a channel converted with a line.
+  if (r.channel.conversion === 'line') at('accuracy', `self-heating ${f.rise(s.selfHeatingMaxK)}, line error ${f.kelvinDelta(s.nonlinearity.bestFitK)}`, 'Largest self-heating and best-fit straight-line error over the range');
+  else at('accuracy', `self-heating ${f.rise(s.selfHeatingMaxK)}`, 'Largest self-heating over the range');
 }
 
 function adcHints(a: Analysis, block: BlockNode, out: InlayHint[]): void {

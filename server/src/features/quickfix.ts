@@ -5,9 +5,13 @@ import type { Analysis } from '../analysis/result';
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import type { BlockNode, FieldNode, QuantityTerm, Span } from '../syntax/ast';
 import type { ChannelResult } from '../analysis/types';
-import type { AdcDef } from '../model/types';
+import type { AdcDef, ChannelDef } from '../model/types';
 import { blockKinds, blockSpec, fieldSpec } from '../model/schema';
 import { closest } from '../model/suggest';
+import { INDENT } from '../model/language';
+import { E24 } from '../analysis/eseries';
+import { pointAt, sweepKelvins } from '../analysis/sweep';
+import { effectiveOversamplingBits, noiseSuffices, samplesForExtraBits } from '../budget/oversampling';
 import { locate, fieldOf } from './locate';
 import * as f from '../analysis/figures';
 
@@ -49,8 +53,15 @@ export function quickFixes(input: FixInput): QuickFix[] {
           push(out, biasFix(input, d));
           break;
         case 'resolution-short':
-          push(out, bitsFix(input, d));
+          // In the order an author tries them: parts on the board first, the converter last.
+          push(out, resolutionBiasFix(input, d));
           push(out, referenceFix(input, d, 'down'));
+          push(out, oversamplingFix(input, d));
+          push(out, narrowerRangeFix(input, d));
+          push(out, bitsFix(input, d));
+          break;
+        case 'accuracy-unmet':
+          push(out, calibrationFix(input, d));
           break;
         case 'clip-high':
           push(out, referenceFix(input, d, 'up'));
@@ -162,34 +173,234 @@ function bitsFix(input: FixInput, d: Diagnostic): QuickFix | null {
   const before = clipCount(input.analysis);
   const r = trial(input, edits, name, (after) => !hasCode(after, name, ['resolution-short']) && clipCount(after) <= before);
   if (!r) return null;
-  return { title: `Use ${bits} bits for '${adc.name}': worst ${f.perCount(r.summary.worst.celsiusPerCount)}`, diagnostic: d, edits };
+  return { title: `Use a ${bits}-bit converter for '${adc.name}' (most MCUs' ADCs are fixed: an external ADC): worst ${f.perCount(r.summary.worst.celsiusPerCount)}`, diagnostic: d, edits };
 }
 
 function referenceFix(input: FixInput, d: Diagnostic, direction: 'up' | 'down'): QuickFix | null {
-  const limit = d.data?.[direction === 'up' ? 'neededReference' : 'maxReference'];
   const ch = channelOf(input.analysis, d);
-  if (typeof limit !== 'number' || !(limit > 0) || !ch) return null;
-  const adc = ch.result.channel.adc;
+  if (!ch) return null;
+  const c = ch.result.channel;
+  const adc = c.adc;
   const field = adcField(input.analysis, adc, 'reference');
   const q = field?.value[0];
   if (!field || q?.kind !== 'quantity') return null;
-  const name = ch.result.channel.name;
+  const name = c.name;
+  const vref = adc.reference.value;
   const before = clipCount(input.analysis) - (direction === 'up' ? 1 : 0);
-  // Standard references first (nearest to the limit), then the limit rounded to 3 digits.
-  const step = 10 ** (Math.floor(Math.log10(limit)) - 2);
-  const roundedSafe = Number(((direction === 'up' ? Math.ceil(limit / step) : Math.floor(limit / step)) * step).toPrecision(3));
-  const standard = direction === 'up' ? COMMON_REFERENCES.filter((v) => v >= limit).slice(0, 2) : COMMON_REFERENCES.filter((v) => v <= limit).reverse().slice(0, 2);
+  let candidates: number[];
+  if (direction === 'up') {
+    const limit = d.data?.['neededReference'];
+    if (typeof limit !== 'number' || !(limit > 0)) return null;
+    // Standard references first (nearest to the limit), then the limit rounded up to 3 digits.
+    const step = 10 ** (Math.floor(Math.log10(limit)) - 2);
+    candidates = [...COMMON_REFERENCES.filter((v) => v >= limit).slice(0, 2), Number((Math.ceil(limit / step) * step).toPrecision(3))];
+  } else {
+    // The largest common reference below the present one that meets the target and leaves the
+    // signal, reference tolerance included, under full scale (computed on the channel's sweep).
+    const need = c.resolutionKPerCount;
+    if (need === null) return null;
+    candidates = COMMON_REFERENCES.filter((v) => v < vref).reverse().filter((v) => {
+      const alt: ChannelDef = { ...c, adc: { ...adc, reference: { ...adc.reference, value: v } } };
+      const w = worstOf(alt);
+      return w.perCount <= need && !w.clips;
+    }).slice(0, 1);
+  }
   const code = direction === 'up' ? 'clip-high' : 'resolution-short';
-  for (const v of [...standard, roundedSafe]) {
+  const shared = input.analysis.channels.filter((r) => r.channel.adc.name === adc.name && r.channel.name !== name).length;
+  for (const v of candidates) {
     const edits = [{ file: adc.file, span: numberAndUnit(q), newText: `${f.trimNumber(v, 4)} V` }];
     const r = trial(input, edits, name, (after) => !hasCode(after, name, [code]) && clipCount(after) <= Math.max(0, before));
     if (!r) continue;
+    const headroom = `peak ${f.volts(r.summary.voltsMax)} = ${f.percent(r.summary.voltsMax / v)} of it${adc.reference.tolerance > 0 ? `, ${f.percent(r.summary.voltsMax / (v * (1 - adc.reference.tolerance)))} at its low tolerance` : ''}, no clipping`;
     const figure = direction === 'up'
       ? `peak ${f.volts(r.summary.voltsMax)} = ${f.percent(r.summary.voltsMax / v)} of it`
-      : `worst ${f.perCount(r.summary.worst.celsiusPerCount)}, peak at ${f.percent(r.summary.voltsMax / v)}`;
+      : `worst ${f.perCount(r.summary.worst.celsiusPerCount / 2 ** effectiveOversamplingBits(r.channel))}; ${headroom}${shared ? `; also read by ${shared} other channel${shared > 1 ? 's' : ''}` : ''}`;
     return { title: `Set the reference of '${adc.name}' to ${f.trimNumber(v, 4)} V: ${figure}`, diagnostic: d, edits, preferred: direction === 'up' };
   }
   return null;
+}
+
+/** A channel's worst °C per count over its sweep (oversampling credited) and whether it clips. */
+function worstOf(c: ChannelDef): { perCount: number; clips: boolean; ampsMax: number; selfHeatingK: number } {
+  const os = effectiveOversamplingBits(c);
+  const full = c.adc.reference.value * (1 - c.adc.reference.tolerance);
+  let perCount = 0;
+  let clips = false;
+  let ampsMax = 0;
+  let selfHeatingK = 0;
+  for (const k of sweepKelvins(c)) {
+    const p = pointAt(c, k);
+    perCount = Math.max(perCount, p.celsiusPerCount / 2 ** os);
+    if (!(p.volts < full) || p.volts < 0) clips = true;
+    ampsMax = Math.max(ampsMax, p.amps);
+    selfHeatingK = Math.max(selfHeatingK, p.selfHeatingK);
+  }
+  return { perCount: Number.isFinite(perCount) ? perCount : Infinity, clips, ampsMax, selfHeatingK };
+}
+
+/** The channel's diagnostics (codes) in its block of the entry file. */
+function codesOf(a: Analysis, channel: string): string[] {
+  const block = a.files[0]!.parse.tree.items.find((i): i is BlockNode => i.kind === 'block' && i.name.text === channel);
+  if (!block) return [];
+  return a.diagnostics.filter((x) => x.file === a.path && x.span.start >= block.span.start && x.span.end <= block.span.end).map((x) => x.code);
+}
+
+/** After the edit: `code` gone from the channel, no code there that was not there before, no new clip anywhere. */
+function clearsOnly(input: FixInput, channel: string, code: string): (after: Analysis) => boolean {
+  const before = new Set(codesOf(input.analysis, channel));
+  const clips = clipCount(input.analysis);
+  return (after) => {
+    const now = codesOf(after, channel);
+    return !now.includes(code) && now.every((x) => before.has(x)) && clipCount(after) <= clips;
+  };
+}
+
+/** E24 values (IEC 60063) from a tenth to ten times `ohms`, nearest to it first. */
+function e24Around(ohms: number): number[] {
+  const out: number[] = [];
+  const decade = Math.floor(Math.log10(ohms));
+  for (let dd = decade - 2; dd <= decade + 2; dd++) {
+    for (const m of E24) {
+      const v = Number((m * 10 ** dd).toPrecision(2));
+      if (v >= ohms / 10 && v <= ohms * 10 && Math.abs(Math.log(v / ohms)) > 1e-9) out.push(v);
+    }
+  }
+  return out.sort((x, y) => Math.abs(Math.log(x / ohms)) - Math.abs(Math.log(y / ohms)));
+}
+
+/** resolution-short: the E24 bias or divider resistor nearest the present one that meets the target. */
+function resolutionBiasFix(input: FixInput, d: Diagnostic): QuickFix | null {
+  const ch = channelOf(input.analysis, d);
+  if (!ch) return null;
+  const c = ch.result.channel;
+  const b = c.bias;
+  const need = c.resolutionKPerCount;
+  if (need === null || c.secondBias || (b.kind !== 'resistor' && b.kind !== 'divider')) return null;
+  const bias = fieldOf(ch.block, 'bias');
+  const q = bias?.value[1];
+  if (!bias || q?.kind !== 'quantity') return null;
+  const was = worstOf(c);
+  const tried = e24Around(b.ohms.value).map((v) => ({ v, w: worstOf({ ...c, bias: { ...b, ohms: { ...b.ohms, value: v } } }) })).filter((x) => !x.w.clips);
+  // The nearest value that meets the target; else the one that comes closest, if it helps enough.
+  const meets = tried.find((x) => x.w.perCount <= need);
+  const closer = tried.reduce<(typeof tried)[number] | undefined>((m, x) => (!m || x.w.perCount < m.w.perCount ? x : m), undefined);
+  const pick = meets ?? (closer && closer.w.perCount <= was.perCount * WORTH_OFFERING ? closer : undefined);
+  if (pick === undefined) return null;
+  const code = iecCode(pick.v);
+  const edits = [{ file: input.analysis.path, span: numberAndUnit(q), newText: code }];
+  const r = trial(input, edits, c.name, meets ? clearsOnly(input, c.name, 'resolution-short') : addsNothing(input, c.name));
+  if (!r) return null;
+  const now = worstOf(r.channel);
+  const heat = now.selfHeatingK > was.selfHeatingK ? `, self-heating up to ${f.rise(now.selfHeatingK)}` : '';
+  const short = meets ? '' : ` (from ${f.perCount(was.perCount)}; ${f.trimNumber(need, 3)} needed)`;
+  return {
+    title: `Set the ${b.kind === 'divider' ? 'divider' : 'bias'} resistor to ${code} (E24): worst ${f.perCount(now.perCount)}${short}; current ${f.amps(r.summary.ampsMin)} .. ${f.amps(r.summary.ampsMax)}${heat}`,
+    diagnostic: d, edits, preferred: meets !== undefined,
+  };
+}
+
+/** A change that does not meet the target is offered when it takes at least a fifth off the worst °C per count. */
+const WORTH_OFFERING = 0.8;
+
+/** After the edit: no code in the channel that was not there before, no new clip anywhere. */
+function addsNothing(input: FixInput, channel: string): (after: Analysis) => boolean {
+  const before = new Set(codesOf(input.analysis, channel));
+  const clips = clipCount(input.analysis);
+  return (after) => codesOf(after, channel).every((x) => before.has(x)) && clipCount(after) <= clips;
+}
+
+/** Replaces a field's value in a channel block, or adds the field before the closing brace. */
+function setField(a: Analysis, block: BlockNode, key: string, value: string): FixEdit | null {
+  const field = fieldOf(block, key);
+  if (field) {
+    const first = field.value[0];
+    const last = field.value[field.value.length - 1];
+    return first && last ? { file: a.path, span: { start: first.span.start, end: last.span.end }, newText: value } : null;
+  }
+  const close = block.closeSpan;
+  if (!close) return null;
+  const text = a.files[0]!.text;
+  const lineStart = Math.max(text.lastIndexOf('\n', close.start - 1), text.lastIndexOf('\r', close.start - 1)) + 1;
+  const eol = text.includes('\r\n') ? '\r\n' : '\n';
+  if (/^[ \t]*$/.test(text.slice(lineStart, close.start))) return { file: a.path, span: { start: lineStart, end: lineStart }, newText: `${INDENT}${key} = ${value}${eol}` };
+  return { file: a.path, span: { start: close.start, end: close.start }, newText: `${eol}${INDENT}${key} = ${value}${eol}` };
+}
+
+/** At most this many extra bits by oversampling (4^8 = 65,536 readings a result). */
+const MAX_OVERSAMPLING_BITS = 8;
+
+/** resolution-short: oversampling and decimation, when the converter's stated noise lets it work. */
+function oversamplingFix(input: FixInput, d: Diagnostic): QuickFix | null {
+  const ch = channelOf(input.analysis, d);
+  if (!ch) return null;
+  const c = ch.result.channel;
+  const need = c.resolutionKPerCount;
+  if (need === null || c.secondBias || noiseSuffices(c) !== true) return null;
+  const os = effectiveOversamplingBits(c);
+  const perCount = ch.result.summary.worst.celsiusPerCount / 2 ** os;
+  const n = os + Math.ceil(Math.log2(perCount / need) - 1e-12);
+  if (!(n > os) || n > MAX_OVERSAMPLING_BITS) return null;
+  const edit = setField(input.analysis, ch.block, 'oversampling', `${n} bits`);
+  if (!edit) return null;
+  const r = trial(input, [edit], c.name, clearsOnly(input, c.name, 'resolution-short'));
+  if (!r) return null;
+  const readings = samplesForExtraBits(n);
+  const was = samplesForExtraBits(os);
+  return {
+    title: `Oversample by ${n} bits: worst ${f.perCount(r.summary.worst.celsiusPerCount / 2 ** n)}; ${readings} readings summed per result, ${readings / was}× the conversion time`,
+    diagnostic: d, edits: [edit],
+  };
+}
+
+/** resolution-short: the widest part of the range (whole °C) where the target is met. */
+function narrowerRangeFix(input: FixInput, d: Diagnostic): QuickFix | null {
+  const ch = channelOf(input.analysis, d);
+  if (!ch) return null;
+  const c = ch.result.channel;
+  const need = c.resolutionKPerCount;
+  const field = fieldOf(ch.block, 'range');
+  const term = field?.value[0];
+  if (need === null || c.secondBias || term?.kind !== 'range') return null;
+  const os = effectiveOversamplingBits(c);
+  const pts = ch.result.sweep;
+  let best: [number, number] | null = null;
+  for (let i = 0; i < pts.length; ) {
+    if (!(pts[i]!.celsiusPerCount / 2 ** os <= need)) { i++; continue; }
+    let j = i;
+    while (j + 1 < pts.length && pts[j + 1]!.celsiusPerCount / 2 ** os <= need) j++;
+    if (!best || pts[j]!.celsius - pts[i]!.celsius > best[1] - best[0]) best = [pts[i]!.celsius, pts[j]!.celsius];
+    i = j + 1;
+  }
+  if (!best) return null;
+  const lo = Math.ceil(best[0] - 1e-9);
+  const hi = Math.floor(best[1] + 1e-9);
+  const [from, to] = [c.lowK - 273.15, c.highK - 273.15];
+  if (!(hi - lo >= 1) || (lo <= from && hi >= to)) return null;
+  const edits = [{ file: input.analysis.path, span: term.span, newText: `${lo} °C .. ${hi} °C` }];
+  const r = trial(input, edits, c.name, clearsOnly(input, c.name, 'resolution-short'));
+  if (!r) return null;
+  const lost = [lo > from ? `${f.celsius(from)} .. ${f.celsius(lo)}` : null, hi < to ? `${f.celsius(hi)} .. ${f.celsius(to)}` : null].filter((x) => x !== null).join(' and ');
+  return {
+    title: `Narrow the range to ${f.celsius(lo)} .. ${f.celsius(hi)}: worst ${f.perCount(r.summary.worst.celsiusPerCount / 2 ** os)}; ${lost} no longer covered`,
+    diagnostic: d, edits,
+  };
+}
+
+/** accuracy-unmet whose message names a calibration that meets the target: that calibration line. */
+function calibrationFix(input: FixInput, d: Diagnostic): QuickFix | null {
+  const text = d.data?.['calibration'];
+  const ch = channelOf(input.analysis, d);
+  if (typeof text !== 'string' || !ch) return null;
+  const edit = setField(input.analysis, ch.block, 'calibration', text);
+  if (!edit) return null;
+  const r = trial(input, [edit], ch.result.channel.name, clearsOnly(input, ch.result.channel.name, 'accuracy-unmet'));
+  const worst = r?.worstCaseBudget?.stated.worstAbsK;
+  if (!r || worst === undefined) return null;
+  const points = r.channel.calibration?.mode === 'two-point' ? 'two temperatures' : 'one temperature';
+  return {
+    title: `Calibrate each board: ${text}: worst case ±${f.kelvinDelta(worst)}; every board is measured at ${points}`,
+    diagnostic: d, edits: [edit], preferred: true,
+  };
 }
 
 /** "Did you mean": the nearest field name, definition name or block kind, from the schema and model. */

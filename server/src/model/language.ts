@@ -38,6 +38,13 @@ function escapeSnippet(s: string, choice = false): string {
 }
 
 /**
+ * The indentation of a field inside a block: the formatter writes it, the snippets use it, and
+ * package.json gives the editor the same (`configurationDefaults` for `[tsense]`: tab size 2,
+ * spaces), so typing, completion and formatting agree (tests/unit/features/editor-defaults.test.ts).
+ */
+export const INDENT = '  ';
+
+/**
  * A new block as snippet text (`${1:name}` placeholders): the header and the block's template
  * fields, `=` aligned, each holding its example value (a choice offers its options).
  */
@@ -47,7 +54,7 @@ export function blockSnippet(b: BlockSpec): string[] {
   const lines = fields.map((f, i) => {
     const n = i + 2;
     const value = f.form.form === 'choice' ? `\${${n}|${[exampleValue(f), ...f.form.options.filter((o) => o !== exampleValue(f))].map((o) => escapeSnippet(o, true)).join(',')}|}` : `\${${n}:${escapeSnippet(exampleValue(f))}}`;
-    return `  ${f.name.padEnd(width)} = ${value}`;
+    return `${INDENT}${f.name.padEnd(width)} = ${value}`;
   });
   return [`${b.kind} \${1:name} {`, ...lines, '}'];
 }

@@ -8,6 +8,9 @@ import { describeSetting } from '../budget/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { channelDynamics, filterWords, rampLagAt, stepRemainder } from '../analysis/dynamics';
 import { trimNumber } from '../diagnostics/numbers';
+import type { Analysis } from '../analysis/result';
+import type { Diagnostic } from '../diagnostics/diagnostic';
+import { LineIndex } from '../syntax/line-index';
 
 export interface TransferSeries {
   celsius: number[];
@@ -206,4 +209,28 @@ function errorSeries(b: BudgetResult, notes: string[]): ErrorSeries {
     runs: b.monteCarlo?.runs ?? 0,
     seed: b.monteCarlo?.seed ?? null,
   };
+}
+
+/**
+ * Why a channel written in the entry file cannot be analysed or plotted, in words: its errors (those inside its
+ * block first, else every error of the spec, which may sit in a block it uses), each with its line.
+ * Null when the file has no channel block of that name, or nothing of error severity stops it.
+ */
+export function plotBlockers(a: Analysis, channel: string): string | null {
+  const file = a.files[0];
+  const block = file?.parse.tree.items.find((i) => i.kind === 'block' && i.keyword.text === 'channel' && i.name.text === channel);
+  if (!file || !block || block.kind !== 'block') return null;
+  const errors = a.diagnostics.filter((d) => d.severity === 'error');
+  const inside = errors.filter((d) => d.file === a.path && d.span.start >= block.span.start && d.span.end <= block.span.end);
+  const shown = (inside.length ? inside : errors).slice(0, 3);
+  if (shown.length === 0) return null;
+  const where = (d: Diagnostic) => {
+    const f = a.files.find((x) => x.path === d.file);
+    const line = f ? new LineIndex(f.text).position(d.span.start).line + 1 : null;
+    const name = d.file === a.path ? '' : `${d.file.split(/[\\/]/).pop()} `;
+    return line === null ? '' : `${name}line ${line}: `;
+  };
+  const more = (inside.length ? inside : errors).length - shown.length;
+  return `channel '${channel}' has no figures or plots until ${shown.length > 1 ? 'these errors are' : 'this error is'} fixed: ` +
+    shown.map((d) => `${where(d)}${d.message} [${d.code}]`).join('; ') + (more > 0 ? `; and ${more} more in the problems list` : '');
 }

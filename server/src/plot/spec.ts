@@ -60,10 +60,15 @@ export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {
   const datasets: VegaSpec[] = [];
   const marks: VegaSpec[] = [];
   let y = 0;
+  // Headings wrap at the plot's width, so a narrow panel gets a narrow chart rather than one
+  // scaled down as a whole (tiny labels).
   const heading = (text: string, sub?: string) => {
-    marks.push(textMark(text, 0, y, theme, { fontSize: theme.fontSize + 3, fontWeight: 'bold', name: `heading-${marks.length}` }));
-    if (sub) marks.push(textMark(sub, 0, y + theme.fontSize + 6, theme, { fill: theme.muted, name: `subheading-${marks.length}` }));
-    y += TITLE_GAP + (sub ? theme.fontSize : 0) + PANEL_TITLE;
+    const head = wrap(text, W, theme.fontSize + 3);
+    const lines = sub ? wrap(sub, W, theme.fontSize) : [];
+    const headH = head.length * (theme.fontSize + 5);
+    marks.push(textMark(head, 0, y, theme, { fontSize: theme.fontSize + 3, fontWeight: 'bold', name: `heading-${marks.length}` }));
+    if (sub) marks.push(textMark(lines, 0, y + headH + 1, theme, { fill: theme.muted, name: `subheading-${marks.length}` }));
+    y += TITLE_GAP + (headH - (theme.fontSize + 5)) + lines.length * (theme.fontSize + 2) + PANEL_TITLE - (sub ? 2 : 0);
   };
 
   if (chart === 'both' || chart === 'transfer') {
@@ -121,8 +126,9 @@ export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {
     marks.push(textMark('No response figures: the channel states no time_constant, or its dynamics lack a field (see the problems list).', 0, y, theme, { name: 'no-dynamics' }));
     y += 30 + GAP;
   }
-  marks.push(textMark(CAUTION, 0, y - GAP + 40, theme, { fill: theme.muted, fontStyle: 'italic', name: 'caution' }));
-  y += 24;
+  const caution = wrap(CAUTION.join(' '), W, theme.fontSize);
+  marks.push(textMark(caution.length <= CAUTION.length ? CAUTION : caution, 0, y - GAP + 40, theme, { fill: theme.muted, fontStyle: 'italic', name: 'caution' }));
+  y += 24 + Math.max(0, caution.length - CAUTION.length) * (theme.fontSize + 2);
 
   return {
     description: `Thermoscribe plots of channel ${data.channel}`,
@@ -286,6 +292,21 @@ function textMark(text: string | string[], x: number, y: number, theme: PlotThem
       ...(extra.fontWeight ? { fontWeight: { value: extra.fontWeight } } : {}), ...(extra.fontStyle ? { fontStyle: { value: extra.fontStyle } } : {}),
     } },
   };
+}
+
+/** Text cut into lines at spaces so each is at most `width` px, measured roughly (0.56 em a character, as the legend). */
+export function wrap(text: string, width: number, fontSize: number): string[] {
+  const perLine = Math.max(12, Math.floor(width / (fontSize * 0.56)));
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    if (line && line.length + 1 + word.length > perLine) {
+      lines.push(line);
+      line = word;
+    } else line = line ? `${line} ${word}` : word;
+  }
+  if (line) lines.push(line);
+  return lines;
 }
 
 function extent(a: number[]): [number, number] {

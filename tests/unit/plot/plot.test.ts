@@ -7,8 +7,8 @@ import { spawnSync } from 'node:child_process';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { analyse, type Analysis } from '../../../server/src/engine';
 import { channelBudget } from '../../../server/src/budget/budget';
-import { plotData } from '../../../server/src/plot/data';
-import { LABELS, plotSpec } from '../../../server/src/plot/spec';
+import { plotBlockers, plotData } from '../../../server/src/plot/data';
+import { LABELS, plotSpec, wrap } from '../../../server/src/plot/spec';
 import { hover } from '../../../server/src/features/hover';
 import { channelLenses } from '../../../server/src/features/code-lens';
 import { CLI, ensureBuilt, ROOT } from '../../protocol/client';
@@ -105,20 +105,33 @@ describe('plot data', () => {
   });
 });
 
+describe('a channel stopped by errors (issue 14, item 9)', () => {
+  it('names the errors that block its plot, with their lines, instead of "no channel named"', () => {
+    const text = fs.readFileSync(SAMPLE, 'utf8').replace(/(channel bench_air \{[^}]*?adc\s*=\s*)(\w+)/, '$1no_such_adc');
+    const broken = analyse({ path: SAMPLE, text, host });
+    expect(broken.channels.some((r) => r.channel.name === 'bench_air')).toBe(false);
+    const line = text.slice(0, text.indexOf('no_such_adc')).split('\n').length;
+    const msg = plotBlockers(broken, 'bench_air')!;
+    expect(msg).toMatch(new RegExp(`^channel 'bench_air' has no figures or plots until this error is fixed: line ${line}: .*no_such_adc.*\\[unknown-name\\]$`));
+    expect(plotBlockers(broken, 'not_written_here')).toBeNull();
+    expect(plotBlockers(a, 'bench_air')).toBeNull();
+  });
+});
+
 describe('hover and code lenses', () => {
-  it('adds an error budget section to the channel hover', () => {
+  it('puts a short summary first in the channel hover, and links to the plot panel for the budget tables (issue 14, item 8)', () => {
     const text = fs.readFileSync(SAMPLE, 'utf8');
     const at = text.indexOf('channel bench_air') + 'channel '.length + 2;
-    const md = hover(a, at)!.markdown;
+    const md = hover(a, at, { plotLink: (ch) => `command:show?${ch}` })!.markdown;
     const r = a.channels.find((x) => x.channel.name === 'bench_air')!;
-    expect(md).toContain('**Error budget**');
-    for (const words of ['no calibration', 'one-point calibration at 25 °C', 'two-point calibration at 0 °C and 40 °C (stated)']) expect(md).toContain(`| ${words}`);
-    expect(md).toMatch(/Dominant: \*\*/);
-    const section = md.slice(md.indexOf('Largest contributors'));
-    const rows = section.split('\n').filter((l) => l.startsWith('| ') && !l.startsWith('| input'));
-    expect(rows.length).toBeGreaterThan(0);
-    expect(rows.length).toBeLessThanOrEqual(5);
-    expect(md).toContain(`±${Number(r.budget!.stated.worstAbsK.toPrecision(3))} K`);
+    const summary = md.slice(0, md.indexOf('\n---\n'));
+    expect(summary.split('\n').filter((l) => l.startsWith('- ')).map((l) => l.slice(2, l.indexOf(':')))).toEqual(['Current', 'Voltage', 'Slope', 'Worst resolution', 'Worst-case error']);
+    expect(summary).toContain(`**±${Number(r.worstCaseBudget!.stated.worstAbsK.toPrecision(3))} K**`);
+    expect(summary).toContain('two-point calibration at 0 °C and 40 °C');
+    expect(summary).toContain('[Plots and error budget tables](command:show?bench_air)');
+    // The tables are in the plot panel now, not in the hover.
+    expect(md).not.toContain('**Error budget**');
+    expect(md).not.toContain('| input |');
   });
 
   it('puts one lens on each channel name of the file', () => {
@@ -196,5 +209,18 @@ describe('thermoscribe plot', () => {
     expect(cli(SAMPLE, '--channel', 'soil', '--out', path.join(dir, 'y.svg'), '--runs', '-1').status).toBe(2);
     expect(cli(path.join(dir, 'missing.tsense'), '--channel', 'soil', '--out', path.join(dir, 'y.svg')).status).toBe(2);
     expect(fs.existsSync(path.join(dir, 'x.svg'))).toBe(false);
+  });
+});
+
+describe('a chart sized to its panel (issue 14, item 9)', () => {
+  it('wraps headings at the plot width, so a narrow panel gets a narrow chart rather than a shrunken one', () => {
+    // Common practice, no source: about 0.56 em a character for a proportional sans-serif font.
+    for (const line of wrap('Channel bench_air: error against temperature (reported minus true)', 300, 14)) expect(line.length * 14 * 0.56).toBeLessThanOrEqual(300);
+    const data = plotData(a.channels.find((x) => x.channel.name === 'bench_air')!, a.channels.find((x) => x.channel.name === 'bench_air')!.budget);
+    const spec = plotSpec(data, { width: 300 }) as { width: number; marks: { name?: string; encode?: { enter?: { text?: { value?: unknown } } } }[] };
+    expect(spec.width).toBe(300);
+    const headings = spec.marks.filter((m) => m.name?.startsWith('heading-')).map((m) => m.encode!.enter!.text!.value as string[]);
+    expect(headings.length).toBeGreaterThan(0);
+    for (const h of headings) for (const line of h) expect(line.length * (11 + 3) * 0.56).toBeLessThanOrEqual(300);
   });
 });

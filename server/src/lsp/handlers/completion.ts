@@ -11,6 +11,7 @@ const KIND: Record<CompletionKind, CompletionItemKind> = {
   reference: CompletionItemKind.Reference,
   option: CompletionItemKind.EnumMember,
   form: CompletionItemKind.Snippet,
+  snippet: CompletionItemKind.Snippet,
 };
 
 export function onCompletion(ctx: ServerContext, params: CompletionParams): CompletionItem[] {

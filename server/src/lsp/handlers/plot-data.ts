@@ -21,6 +21,8 @@ export interface PlotDataResult {
   data?: PlotData;
   message?: string;
   channels?: string[];
+  /** The channel is written in the spec but its errors stop it (`message` names them). */
+  blocked?: boolean;
 }
 
 export function onPlotData(ctx: ServerContext, params: PlotDataParams): PlotDataResult {
