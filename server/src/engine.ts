@@ -266,7 +266,7 @@ export { isInside } from './model/workspace';
 export { plotData, plotProblem, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
 export { plotSpec, type ChartKind } from './plot/spec';
-export { CAUTION } from './report/caution';
+export { CAUTION, CAUTION_PARAGRAPH } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';
 export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';
 export { sarifLog } from './report/sarif';
