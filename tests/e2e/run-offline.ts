@@ -15,6 +15,7 @@ import { missingPieces, OUTPUT_DIR, ROOT } from './offline/paths';
 import { freePort, installExtension, makeSandbox, serve, stopGroup, waitUntilServing, type Served } from './offline/code-server';
 import { launch, runSuiteThroughPayload, walkAsUser, type Outcome } from './offline/browser';
 import { plotPanelStep } from './plot-screenshot';
+import { devPathStep } from './dev-path';
 import { checkGrammar } from './offline/grammar';
 
 const SUITE_TIMEOUT_MS = 8 * 60_000;
@@ -95,6 +96,11 @@ async function main(): Promise<number> {
       const t3 = Date.now();
       for (const o of await plotPanelStep(context, served.url, workspace, OUTPUT_DIR)) results.push(o.name.startsWith('page:') ? o : { ...o, name: `page: ${o.name}` });
       console.log(`E2E: plot panel done in ${seconds(t3)}`);
+
+      // (4) The extension loaded from the repository (extensionDevelopmentPath only, no suite).
+      const t4 = Date.now();
+      results.push(...await devPathStep(context, served.url, workspace, OUTPUT_DIR));
+      console.log(`E2E: development path done in ${seconds(t4)}`);
     } finally {
       await context.close().catch(() => undefined);
     }
