@@ -11,7 +11,7 @@ import { execFileSync } from 'node:child_process';
 import type { BrowserContext, Page } from 'playwright-core';
 import { missingPieces, OUTPUT_DIR, ROOT } from './offline/paths';
 import { freePort, installExtension, makeSandbox, serve, stopGroup, waitUntilServing, type Served } from './offline/code-server';
-import { launch, type Outcome } from './offline/browser';
+import { GOTO, launch, type Outcome } from './offline/browser';
 
 const LIMIT = 60_000;
 
@@ -20,7 +20,7 @@ export async function plotPanelStep(context: BrowserContext, baseUrl: string, wo
   const t0 = Date.now();
   const name = 'page: Thermoscribe: Show Plot opens the plot panel for bench_air';
   try {
-    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`);
+    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`, GOTO);
     await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: LIMIT });
     await quickInput(page, 'Control+P', 'greenhouse.tsense');
     await page.locator('.tab.active', { hasText: 'greenhouse.tsense' }).waitFor({ timeout: LIMIT });

@@ -7,7 +7,7 @@
 //     smoke-test driver; (2) walks through the page as a user and saves screenshots to
 //     .test-output/e2e/. Skips (exit 0) when the editor is not installed, unless CI=true.
 import * as path from 'node:path';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
+import { copyFileSync, cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { execFileSync } from 'node:child_process';
 import { buildSuite } from './build-suite';
@@ -91,6 +91,11 @@ async function main(): Promise<number> {
       const t2 = Date.now();
       for (const o of await walkAsUser(context, served.url, workspace, OUTPUT_DIR)) results.push({ ...o, name: `page: ${o.name}` });
       console.log(`E2E: page walk done in ${seconds(t2)}`);
+      // The README's one screenshot of the editor is this run's hover (committed as media/editor-tour.png).
+      if (existsSync(path.join(OUTPUT_DIR, 'hover.png'))) {
+        mkdirSync(path.join(ROOT, 'media'), { recursive: true });
+        copyFileSync(path.join(OUTPUT_DIR, 'hover.png'), path.join(ROOT, 'media', 'editor-tour.png'));
+      }
 
       // (3) The plot panel, opened from the command palette, with a screenshot.
       const t3 = Date.now();
