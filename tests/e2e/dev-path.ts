@@ -30,7 +30,7 @@ export async function devPathStep(context: BrowserContext, baseUrl: string, work
     await input.fill('cold-chain-problems.tsense');
     await page.locator('.quick-input-list .monaco-list-row.focused', { hasText: 'cold-chain-problems.tsense' }).first().waitFor({ timeout: LIMIT });
     await page.keyboard.press('Enter');
-    await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).waitFor({ timeout: LIMIT });
+    await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).first().waitFor({ timeout: LIMIT });
     // The language mode in the status bar: the contribution's alias, not "Plain Text".
     const mode = page.locator('.statusbar-item[id="status.editor.mode"]');
     await mode.waitFor({ timeout: LIMIT });

@@ -23,7 +23,8 @@ export async function plotPanelStep(context: BrowserContext, baseUrl: string, wo
     await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`, GOTO);
     await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: LIMIT });
     await quickInput(page, 'Control+P', 'greenhouse.tsense');
-    await page.locator('.tab.active', { hasText: 'greenhouse.tsense' }).waitFor({ timeout: LIMIT });
+    // first(): the suite's generated C file opened beside the spec leaves two editor groups, each with an active tab.
+    await page.locator('.tab.active', { hasText: 'greenhouse.tsense' }).first().waitFor({ timeout: LIMIT });
     // The code lens appears once the server has answered: the extension is active and the server running.
     await page.locator('.monaco-editor .codelens-decoration', { hasText: 'Show plots' }).first().waitFor({ timeout: 120_000 });
     await quickInput(page, 'F1', 'Thermoscribe: Show Plot');

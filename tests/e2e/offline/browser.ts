@@ -77,7 +77,7 @@ export async function walkAsUser(context: BrowserContext, baseUrl: string, works
       await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`, GOTO);
       await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: LIMIT });
       await quickOpen(page, 'cold-chain-problems.tsense');
-      await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).waitFor({ timeout: LIMIT });
+      await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).first().waitFor({ timeout: LIMIT });
     });
     if (!opened) return outcomes;
 
