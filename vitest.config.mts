@@ -2,8 +2,8 @@ import { defineConfig } from 'vitest/config';
 
 // Two parts, both run by `npm test`: `fast` (unit, fixtures, protocol: `npm run test:fast`) and
 // `toolchains` (tests that compile generated C with gcc, avr-gcc or arm-none-eabi-gcc and run it on
-// the host or in simavr: `npm run test:slow`, which then runs the editor suite). `npx vitest run`
-// runs both projects.
+// the host or in simavr, and the panel layout in chromium: `npm run test:slow`, which then runs the
+// editor suite). `npx vitest run` runs both projects.
 const TOOLCHAIN_TESTS = [
   'tests/unit/codegen/board-trims.test.ts',
   'tests/unit/codegen/faults-edges.test.ts',
@@ -14,6 +14,8 @@ const TOOLCHAIN_TESTS = [
   'tests/unit/codegen/targets.test.ts',
   'tests/unit/sensors/codegen.test.ts',
   'tests/unit/sensors/codegen-targets.test.ts',
+  // Lays out the comparison panel's page in chromium (a browser, like the editor suite).
+  'tests/unit/client/compare-layout.test.ts',
 ];
 
 export default defineConfig({

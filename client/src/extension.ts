@@ -9,6 +9,7 @@ import { registerPlotPanel } from './plot-panel';
 import { registerRunBudget } from './run-budget';
 import { registerComparePanel } from './compare-panel';
 import { SERVER_NODE_FLAGS } from './server-flags';
+import { registerShowGenerated, SHOW_GENERATED } from './show-generated';
 
 const LANGUAGE_ID = 'tsense';
 // Client id: vscode-languageclient reads the `thermoscribe.trace.server` setting from it.
@@ -29,6 +30,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   registerPlotPanel(context, () => client);
   registerRunBudget(context, () => client);
   registerComparePanel(context, () => client);
+  registerShowGenerated(context);
 
   await start(context);
 }
@@ -52,6 +54,8 @@ function createClient(context: vscode.ExtensionContext, channel: vscode.LogOutpu
     ],
     // Push `thermoscribe.*` changes to the server as well; it may also pull them with workspace/configuration.
     synchronize: { configurationSection: 'thermoscribe' },
+    // Commands this client runs itself; the server attaches them to its code actions.
+    initializationOptions: { clientCommands: [SHOW_GENERATED] },
     outputChannel: channel,
     traceOutputChannel: channel,
     // The channel hover's link opens the plot panel; no other command runs from a hover.

@@ -309,7 +309,7 @@ export { plotData, plotProblem, plotBlockers, type PlotData } from './plot/data'
 export { renderSvg } from './plot/render';
 export { filterWords } from './analysis/dynamics';
 export { plotSpec, type ChartKind } from './plot/spec';
-export { CAUTION, cautionFor, kindCautions } from './report/caution';
+export { CAUTION, CAUTION_PARAGRAPH, cautionFor, cautionParagraphFor, kindCautions } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';
 export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';
 export { sarifLog } from './report/sarif';

@@ -11,7 +11,7 @@ import { execFileSync } from 'node:child_process';
 import type { BrowserContext, Page } from 'playwright-core';
 import { missingPieces, OUTPUT_DIR, ROOT } from './offline/paths';
 import { freePort, installExtension, makeSandbox, serve, stopGroup, waitUntilServing, type Served } from './offline/code-server';
-import { launch, type Outcome } from './offline/browser';
+import { GOTO, launch, type Outcome } from './offline/browser';
 
 const LIMIT = 60_000;
 
@@ -20,10 +20,11 @@ export async function plotPanelStep(context: BrowserContext, baseUrl: string, wo
   const t0 = Date.now();
   const name = 'page: Thermoscribe: Show Plot opens the plot panel for bench_air';
   try {
-    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`);
+    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`, GOTO);
     await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: LIMIT });
     await quickInput(page, 'Control+P', 'greenhouse.tsense');
-    await page.locator('.tab.active', { hasText: 'greenhouse.tsense' }).waitFor({ timeout: LIMIT });
+    // first(): the suite's generated C file opened beside the spec leaves two editor groups, each with an active tab.
+    await page.locator('.tab.active', { hasText: 'greenhouse.tsense' }).first().waitFor({ timeout: LIMIT });
     // The code lens appears once the server has answered: the extension is active and the server running.
     await page.locator('.monaco-editor .codelens-decoration', { hasText: 'Show plots' }).first().waitFor({ timeout: 120_000 });
     await quickInput(page, 'F1', 'Thermoscribe: Show Plot');

@@ -7,7 +7,7 @@
 //     smoke-test driver; (2) walks through the page as a user and saves screenshots to
 //     .test-output/e2e/. Skips (exit 0) when the editor is not installed, unless CI=true.
 import * as path from 'node:path';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
+import { copyFileSync, cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { execFileSync } from 'node:child_process';
 import { buildSuite } from './build-suite';
@@ -16,6 +16,7 @@ import { freePort, installExtension, makeSandbox, serve, stopGroup, waitUntilSer
 import { launch, runSuiteThroughPayload, walkAsUser, type Outcome } from './offline/browser';
 import { plotPanelStep } from './plot-screenshot';
 import { issue14Steps } from './editor-issue14';
+import { devPathStep } from './dev-path';
 import { checkGrammar } from './offline/grammar';
 
 const SUITE_TIMEOUT_MS = 8 * 60_000;
@@ -91,6 +92,11 @@ async function main(): Promise<number> {
       const t2 = Date.now();
       for (const o of await walkAsUser(context, served.url, workspace, OUTPUT_DIR)) results.push({ ...o, name: `page: ${o.name}` });
       console.log(`E2E: page walk done in ${seconds(t2)}`);
+      // The README's one screenshot of the editor is this run's hover (committed as media/editor-tour.png).
+      if (existsSync(path.join(OUTPUT_DIR, 'hover.png'))) {
+        mkdirSync(path.join(ROOT, 'media'), { recursive: true });
+        copyFileSync(path.join(OUTPUT_DIR, 'hover.png'), path.join(ROOT, 'media', 'editor-tour.png'));
+      }
 
       // (3) The plot panel, opened from the command palette, with a screenshot.
       const t3 = Date.now();
@@ -101,6 +107,10 @@ async function main(): Promise<number> {
       const t4 = Date.now();
       for (const o of await issue14Steps(context, served.url, workspace, OUTPUT_DIR)) results.push(o);
       console.log(`E2E: issue 14 walk done in ${seconds(t4)}`);
+      // (5) The extension loaded from the repository (extensionDevelopmentPath only, no suite).
+      const t5 = Date.now();
+      results.push(...await devPathStep(context, served.url, workspace, OUTPUT_DIR));
+      console.log(`E2E: development path done in ${seconds(t5)}`);
     } finally {
       await context.close().catch(() => undefined);
     }

@@ -134,3 +134,45 @@ describe('orphan generated blocks (#13 item 10)', () => {
     expect(edits[0]!.newText).toBe('');
   });
 });
+
+describe('generating from the editor says what was written and where (#14 item 4)', () => {
+  // The client names the command it runs itself; the server then attaches it to the resolved
+  // action (LSP 3.17: a code action's command runs after its edit is applied).
+  it('a client with thermoscribe.showGenerated gets it with the file, the block line and a summary', async () => {
+    const fresh = fs.mkdtempSync(path.join(os.tmpdir(), 'thsc-show-'));
+    const freshSpec = path.join(fresh, 'pump.tsense');
+    fs.writeFileSync(freshSpec, SPEC_TEXT);
+    const c = await TestClient.start({ rootDir: fresh, settings: { debounceMs: 0 }, initializationOptions: { clientCommands: ['thermoscribe.showGenerated'] } });
+    try {
+      const u = c.open(freshSpec);
+      const resolved = await c.request<{ edit?: unknown; command?: { command: string; arguments: { uri: string; line: number; message: string }[] } }>(
+        'codeAction/resolve', { title: 'Generate conversion code for housing', kind: 'refactor.generateConversion', data: { uri: u, channel: 'housing' } });
+      expect(resolved.command?.command).toBe('thermoscribe.showGenerated');
+      const args = resolved.command!.arguments[0]!;
+      expect(args.uri).toBe(uriOf(path.join(fresh, 'pump_conversion.c')));
+      // The summary's figures are the generator's own (thermoscribe/conversionCode gives the same).
+      const code = await c.request<{ text: string; method: string; maxErrorC: number }>('thermoscribe/conversionCode', { uri: u, channel: 'housing' });
+      expect(args.message).toMatch(new RegExp(`^Wrote the conversion of 'housing' into pump_conversion\\.c \\(a new file\\): a (table of \\d+ entries|polynomial in \\d+ segments|straight line), worst error ${code.maxErrorC.toFixed(3).replace('.', '\\.')} °C against the model over every in-range code, about \\d+ bytes of flash \\(8-bit AVR estimate\\); the file holds \\d+ bytes of C\\.$`));
+      // The line is the channel's begin marker in the text the edit writes.
+      const edit = JSON.stringify(resolved.edit);
+      const written = (JSON.parse(edit) as { documentChanges: ({ edits?: { newText: string }[] })[] }).documentChanges.find((d) => d.edits)!.edits![0]!.newText;
+      expect(written.split('\n')[args.line]).toMatch(/^\/\* thermoscribe:begin channel=housing /);
+      const bytes = Number(/holds (\d+) bytes/.exec(args.message)![1]);
+      expect(bytes).toBe(Buffer.byteLength(written, 'utf8'));
+    } finally {
+      await c.stop();
+      fs.rmSync(fresh, { recursive: true, force: true });
+    }
+  });
+
+  it('any other client is told the same summary in a message', async () => {
+    const shown: string[] = [];
+    client.conn.onNotification('window/showMessage', (p: { message: string }) => { shown.push(p.message); });
+    const resolved = await client.request<{ edit?: unknown; command?: unknown }>(
+      'codeAction/resolve', { title: 'Generate conversion code for housing', kind: 'refactor.generateConversion', data: { uri, channel: 'housing' } });
+    expect(resolved.edit).toBeDefined();
+    expect(resolved.command).toBeUndefined();
+    // Notifications and responses keep their order on the wire: the message came first.
+    expect(shown.some((m) => /^Wrote the conversion of 'housing' into pump_conversion\.c: /.test(m))).toBe(true);
+  });
+});

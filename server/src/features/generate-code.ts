@@ -8,6 +8,8 @@ import type { Analysis } from '../analysis/result';
 import { generateC, spliceGenerated } from '../codegen/index';
 import { conversionFilePath, generatorInput, tooWideMessage } from '../codegen/channel-input';
 import { symbolClash } from '../codegen/clash';
+import { scanGeneratedBlocks } from '../codegen/markers';
+import { fixedNumber, trimNumber } from '../diagnostics/numbers';
 
 export interface GeneratedFile {
   /** Absolute path of the C file. */
@@ -18,6 +20,10 @@ export interface GeneratedFile {
   create: boolean;
   maxErrorC: number;
   method: string;
+  /** 0-based line of the channel's begin marker in `text`: where the editor shows the new code. */
+  line: number;
+  /** What was written, in one sentence for the user: the method, its worst error, the sizes. */
+  summary: string;
 }
 
 export type GenerateOutcome = { ok: true; result: GeneratedFile } | { ok: false; message: string };
@@ -42,12 +48,21 @@ export function generateForChannel(a: Analysis, channel: string, existing: strin
     // Only the .c is written here (no header beside it): the block declares its own types.
     const gen = generateC([input], { fileStem: stem, selfContained: true });
     const ch = gen.channels[0]!;
-    if (existing === undefined) return { ok: true, result: { file, text: gen.text, create: true, maxErrorC: ch.maxErrorC, method: ch.method } };
-    const clash = symbolClash(existing, [{ channel, identifier: ch.identifier }]);
-    if (clash) return { ok: false, message: `${path.basename(file)}: ${clash}` };
-    const spliced = spliceGenerated(existing, [{ channel, hash: input.specHash, text: ch.code }]);
-    if (!spliced.ok) return { ok: false, message: `${path.basename(file)}: ${spliced.message}` };
-    return { ok: true, result: { file, text: spliced.text, create: false, maxErrorC: ch.maxErrorC, method: ch.method } };
+    let text = gen.text;
+    if (existing !== undefined) {
+      const clash = symbolClash(existing, [{ channel, identifier: ch.identifier }]);
+      if (clash) return { ok: false, message: `${path.basename(file)}: ${clash}` };
+      const spliced = spliceGenerated(existing, [{ channel, hash: input.specHash, text: ch.code }]);
+      if (!spliced.ok) return { ok: false, message: `${path.basename(file)}: ${spliced.message}` };
+      text = spliced.text;
+    }
+    const at = scanGeneratedBlocks(text).blocks.find((b) => b.channel === channel)?.start ?? 0;
+    const line = text.slice(0, at).split('\n').length - 1;
+    const how = input.method === 'line' ? 'a straight line' : ch.method === 'table' ? `a table of ${ch.entries} entries` : `a polynomial in ${ch.entries} segments`;
+    const summary = `Wrote the conversion of '${channel}' into ${path.basename(file)}${existing === undefined ? ' (a new file)' : ''}: ${how}, ` +
+      `worst error ${fixedNumber(ch.maxErrorC, 3)} °C against the model over every in-range code, about ${trimNumber(ch.bytesEstimate, 4)} bytes of flash (8-bit AVR estimate); ` +
+      `the file holds ${trimNumber(new TextEncoder().encode(text).length, 6)} bytes of C.`;
+    return { ok: true, result: { file, text, create: existing === undefined, maxErrorC: ch.maxErrorC, method: ch.method, line, summary } };
   } catch (err) {
     return { ok: false, message: `code for '${channel}' could not be generated: ${err instanceof Error ? err.message : String(err)}` };
   }

@@ -10,5 +10,11 @@ export interface ServerContext {
   analyses: AnalysisCache;
   settings: Settings;
   /** Client capabilities the handlers adapt to. */
-  client: { configuration: boolean; resourceCreate: boolean; hierarchicalSymbols: boolean };
+  client: {
+    configuration: boolean;
+    resourceCreate: boolean;
+    hierarchicalSymbols: boolean;
+    /** The client runs `thermoscribe.showGenerated` itself (it said so in `initializationOptions.clientCommands`). */
+    showGenerated: boolean;
+  };
 }

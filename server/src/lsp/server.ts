@@ -22,7 +22,7 @@ import { onFoldingRanges } from './handlers/folding';
 import { LEGEND, onSemanticTokens } from './handlers/semantic-tokens';
 import { onFormatting } from './handlers/formatting';
 import { onDefinition, onPrepareRename, onReferences, onRename } from './handlers/navigation';
-import { GENERATE_KIND, onCodeActions, onResolveCodeAction } from './handlers/code-actions';
+import { GENERATE_KIND, SHOW_GENERATED, onCodeActions, onResolveCodeAction } from './handlers/code-actions';
 import { CONVERSION_CHANNELS, CONVERSION_CODE, onConversionChannels, onConversionCode, type ConversionChannelsParams, type ConversionCodeParams } from './handlers/conversion-code';
 import { onCodeLens } from './handlers/code-lens';
 import { PLOT_DATA, onPlotData, type PlotDataParams, type PlotDataResult } from './handlers/plot-data';
@@ -38,7 +38,7 @@ export function createServer(connection: Connection): ServerContext {
     documents,
     analyses: new AnalysisCache(documents),
     settings: { ...DEFAULT_SETTINGS },
-    client: { configuration: false, resourceCreate: false, hierarchicalSymbols: false },
+    client: { configuration: false, resourceCreate: false, hierarchicalSymbols: false, showGenerated: false },
   };
   const diagnostics = new DiagnosticScheduler(ctx);
   let lazyActions = false;
@@ -53,6 +53,8 @@ export function createServer(connection: Connection): ServerContext {
     documents.roots = folders;
     const init = params.initializationOptions as Record<string, unknown> | undefined;
     ctx.settings = mergeSettings(ctx.settings, init?.['thermoscribe'] ?? init);
+    const clientCommands = init?.['clientCommands'];
+    ctx.client.showGenerated = Array.isArray(clientCommands) && clientCommands.includes(SHOW_GENERATED);
     return {
       capabilities: {
         textDocumentSync: TextDocumentSyncKind.Incremental,

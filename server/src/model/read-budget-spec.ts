@@ -3,12 +3,14 @@
 // Each reports bad input with the span of the offending term and returns null; never throws.
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
 import type { BenchDataRef, BiasDef, CalibrationSpec, DynamicsSpec, MeasuredPoint, MonteCarloSpec } from './types';
-import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from './read-value';
+import { askForRest, noExtra, readPart, readQuantityValue, readTolerance, spanOf, trimNumber, type ReadContext } from './read-value';
 import { PART_DOMAINS } from './schema';
 import { readUnit } from './units';
 import { shown } from '../diagnostics/shown';
 
-function bad(ctx: ReadContext, span: Span, message: string): null {
+/** With `terms`: a half-typed phrase is asked for what it lacks instead (read-value.ts askForRest). */
+function bad(ctx: ReadContext, span: Span, message: string, terms?: Term[]): null {
+  if (terms && askForRest(terms, ctx)) return null;
   ctx.sink.report('bad-value', ctx.file, span, `${ctx.field}: ${message}`);
   return null;
 }
@@ -53,7 +55,7 @@ export function readNoise(terms: Term[], ctx: ReadContext, lsbVolts: number): nu
   const q = terms[0];
   const rms = terms[1];
   const hint = 'takes an rms noise such as `0.8 LSB rms` or `0.3 mV rms`';
-  if (!q || q.kind !== 'quantity' || q.tolerance || (rms && (rms.kind !== 'word' || rms.text !== 'rms')) || !noExtra(terms, rms ? 2 : 1, ctx)) return bad(ctx, spanOf(terms), hint);
+  if (!q || q.kind !== 'quantity' || q.tolerance || (rms && (rms.kind !== 'word' || rms.text !== 'rms')) || !noExtra(terms, rms ? 2 : 1, ctx)) return bad(ctx, spanOf(terms), hint, terms);
   const u = q.unit ? readUnit(q.unit.text) : null;
   if (!u || typeof u === 'string') return bad(ctx, q.span, hint);
   let lsb: number | null;
@@ -83,7 +85,7 @@ export function readTwoCurrentBias(terms: Term[], ctx: ReadContext): { first: Bi
   const a = terms[1];
   const and = terms[2];
   const b = terms[3];
-  if (!a || a.kind !== 'quantity' || !and || and.kind !== 'word' || and.text !== 'and' || !b || b.kind !== 'quantity') return bad(ctx, span, hint);
+  if (!a || a.kind !== 'quantity' || !and || and.kind !== 'word' || and.text !== 'and' || !b || b.kind !== 'quantity') return bad(ctx, span, hint, terms);
   const tolOf = (q: QuantityTerm, v: number, dim: 'current' | 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
   if (head.text === 'currents') {
     if (!noExtra(terms, 4, ctx)) return null;
@@ -101,7 +103,7 @@ export function readTwoCurrentBias(terms: Term[], ctx: ReadContext): { first: Bi
   }
   const from = terms[4];
   const v = terms[5];
-  if (!from || from.kind !== 'word' || from.text !== 'from' || !v || v.kind !== 'quantity' || !noExtra(terms, 6, ctx)) return bad(ctx, span, hint);
+  if (!from || from.kind !== 'word' || from.text !== 'from' || !v || v.kind !== 'quantity' || !noExtra(terms, 6, ctx)) return bad(ctx, span, hint, terms);
   const r1 = readPart(a, PART_DOMAINS.biasResistor, ctx);
   const r2 = readPart(b, PART_DOMAINS.biasResistor, ctx);
   const vs = readPart(v, PART_DOMAINS.supply, ctx);
@@ -148,17 +150,17 @@ export function readCalibration(terms: Term[], ctx: ReadContext, lowK: number, h
   if (w(0) === 'one' && w(1) === 'point' && w(2) === 'at') {
     if (!noExtra(terms, 4, ctx)) return null;
     const k = temperatureAt(terms[3], ctx, lowK, highK);
-    return k === null ? (terms[3]?.kind === 'quantity' ? null : bad(ctx, span, hint)) : { mode: 'one-point', kelvins: [k], span };
+    return k === null ? (terms[3]?.kind === 'quantity' ? null : bad(ctx, span, hint, terms)) : { mode: 'one-point', kelvins: [k], span };
   }
   if (w(0) === 'two' && w(1) === 'points' && w(2) === 'at' && w(4) === 'and') {
     if (!noExtra(terms, 6, ctx)) return null;
     const k1 = temperatureAt(terms[3], ctx, lowK, highK);
     const k2 = temperatureAt(terms[5], ctx, lowK, highK);
-    if (k1 === null || k2 === null) return terms[3]?.kind === 'quantity' && terms[5]?.kind === 'quantity' ? null : bad(ctx, span, hint);
+    if (k1 === null || k2 === null) return terms[3]?.kind === 'quantity' && terms[5]?.kind === 'quantity' ? null : bad(ctx, span, hint, terms);
     if (!(Math.abs(k2 - k1) >= 1)) return outOfDomain(ctx, span, 'the two calibration temperatures must be at least 1 K apart');
     return { mode: 'two-point', kelvins: k1 < k2 ? [k1, k2] : [k2, k1], span };
   }
-  return bad(ctx, span, hint);
+  return bad(ctx, span, hint, terms);
 }
 
 /** `2110 counts at 25 °C and 1790 counts at 70 °C` (up to 32 points; codes inside the converter's). */
@@ -169,14 +171,14 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
   while (i < terms.length) {
     if (i > 0) {
       const and = terms[i];
-      if (!and || and.kind !== 'word' || and.text !== 'and') return bad(ctx, and?.span ?? spanOf(terms), hint);
+      if (!and || and.kind !== 'word' || and.text !== 'and') return bad(ctx, and?.span ?? spanOf(terms), hint, terms);
       i++;
     }
     const code = terms[i];
     const at = terms[i + 1];
     const temp = terms[i + 2];
     if (!code || code.kind !== 'quantity' || code.tolerance || !at || at.kind !== 'word' || at.text !== 'at' || !temp || temp.kind !== 'quantity' || temp.tolerance) {
-      return bad(ctx, spanOf(terms.slice(i, i + 3).length ? terms.slice(i, i + 3) : terms), hint);
+      return bad(ctx, spanOf(terms.slice(i, i + 3).length ? terms.slice(i, i + 3) : terms), hint, terms);
     }
     const c = readQuantityValue(code, 'count', ctx);
     const k = readQuantityValue(temp, 'temperature', ctx);
@@ -187,7 +189,7 @@ export function readMeasured(terms: Term[], ctx: ReadContext, bits: number): Mea
     out.push({ kelvin: k, code: c, span: { start: code.span.start, end: temp.span.end } });
     i += 3;
   }
-  if (out.length === 0) return bad(ctx, spanOf(terms), hint);
+  if (out.length === 0) return bad(ctx, spanOf(terms), hint, terms);
   if (out.length > 32) return outOfDomain(ctx, spanOf(terms), `at most 32 points (found ${out.length})`);
   return out;
 }
@@ -221,7 +223,7 @@ export function readMonteCarlo(terms: Term[], ctx: ReadContext): MonteCarloSpec 
   const hint = 'takes `1000 runs`, `2000 runs seed 7` or `2000 runs seed 7 normal`';
   const n = terms[0];
   const runs = terms[1];
-  if (!n || n.kind !== 'quantity' || n.unit || n.tolerance || !runs || runs.kind !== 'word' || runs.text !== 'runs') return bad(ctx, spanOf(terms), hint);
+  if (!n || n.kind !== 'quantity' || n.unit || n.tolerance || !runs || runs.kind !== 'word' || runs.text !== 'runs') return bad(ctx, spanOf(terms), hint, terms);
   if (!(Number.isInteger(n.number.value) && n.number.value >= 10 && n.number.value <= 1_000_000)) return outOfDomain(ctx, n.span, `runs must be a whole number from 10 to 1000000 (found ${shown(n.number.text)})`);
   let seed = 1;
   let distribution: MonteCarloSpec['distribution'] = 'uniform';
@@ -229,7 +231,7 @@ export function readMonteCarlo(terms: Term[], ctx: ReadContext): MonteCarloSpec 
   const seedWord = terms[i];
   if (seedWord && seedWord.kind === 'word' && seedWord.text === 'seed') {
     const s = terms[i + 1];
-    if (!s || s.kind !== 'quantity' || s.unit || s.tolerance) return bad(ctx, spanOf(terms), hint);
+    if (!s || s.kind !== 'quantity' || s.unit || s.tolerance) return bad(ctx, spanOf(terms), hint, terms);
     if (!(Number.isInteger(s.number.value) && s.number.value >= 0 && s.number.value <= 4294967295)) return outOfDomain(ctx, s.span, `seed must be a whole number from 0 to 4294967295 (found ${shown(s.number.text)})`);
     seed = s.number.value;
     i += 2;
@@ -248,7 +250,7 @@ export function readOversampling(terms: Term[], ctx: ReadContext): number | null
   const q = terms[0];
   const w = terms[1];
   if (!q || q.kind !== 'quantity' || q.unit || q.tolerance || !w || w.kind !== 'word' || (w.text !== 'bits' && w.text !== 'bit') || !noExtra(terms, 2, ctx)) {
-    return bad(ctx, spanOf(terms), 'takes a number of extra bits such as `2 bits`');
+    return bad(ctx, spanOf(terms), 'takes a number of extra bits such as `2 bits`', terms);
   }
   if (!(Number.isInteger(q.number.value) && q.number.value >= 0 && q.number.value <= 8)) return outOfDomain(ctx, q.span, `must be a whole number of bits from 0 to 8 (found ${shown(q.number.text)})`);
   return q.number.value;

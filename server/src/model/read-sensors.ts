@@ -5,7 +5,7 @@
 import type { QuantityTerm, Term } from '../syntax/ast';
 import type { BlockReader, Resolution } from './block-reader';
 import type { AdcDef, BiasDef, ChannelDef, SensorDef, WiringDef } from './types';
-import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
+import { askForRest, noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
 import { kindWithArticle, PART_DOMAINS } from './schema';
 import { closest } from './suggest';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
@@ -48,6 +48,8 @@ export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
   const ctx = r.ctx('bias');
   const span = spanOf(terms);
   const bad = () => {
+    r.ok = false;
+    if (askForRest(terms, ctx)) return null;
     r.sink.report('bad-value', r.ref.file, span, 'a divider bias reads `divider R above from V` (fixed resistor on the supply side) or `divider R below from V` (fixed resistor to ground), e.g. `divider 10k ± 0.1 % above from 3.3 V`');
     r.ok = false;
     return null;

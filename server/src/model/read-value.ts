@@ -3,7 +3,7 @@
 import type { QuantityTerm, Span, Term } from '../syntax/ast';
 import type { DiagnosticSink } from '../diagnostics/diagnostic';
 import { DIMENSION_WORDS, readUnit, type Dimension, type UnitInfo } from './units';
-import { PART_DOMAINS, type FieldForm } from './schema';
+import { HALF_TYPED, PART_DOMAINS, type FieldForm } from './schema';
 import type { Toleranced } from './types';
 import { shown } from '../diagnostics/shown';
 
@@ -180,9 +180,28 @@ export function noExtra(terms: Term[], used: number, ctx: ReadContext): boolean 
   return false;
 }
 
+/**
+ * Reports what a half-typed phrase lacks (schema.ts HALF_TYPED, from the word or number it ends
+ * with) at its end, and returns true; false when the phrase does not end that way.
+ */
+export function askForRest(terms: Term[], ctx: ReadContext): boolean {
+  const last = terms[terms.length - 1];
+  const key = last?.kind === 'word' ? last.text : last?.kind === 'quantity' ? '' : undefined;
+  const want = key === undefined ? undefined : HALF_TYPED[ctx.field]?.[key];
+  if (!last || want === undefined) return false;
+  ctx.sink.report('bad-value', ctx.file, last.span, `${ctx.field} is not finished: add ${want}`);
+  return true;
+}
+
 /** Reads `low .. high` in a dimension; the low end may borrow the high end's unit (-40 .. 125 °C). */
 export function readRange(terms: Term[], dimension: Dimension, ctx: ReadContext): { low: number; high: number; span: Span } | null {
   const t = terms[0];
+  if (t && t.kind === 'quantity' && terms.length === 1) {
+    // Half-typed: one end only. Ask for the upper end (a range ends with a value, not a word).
+    const high = dimension === 'temperature' ? '125 °C' : exampleUnit(dimension);
+    ctx.sink.report('bad-value', ctx.file, t.span, `${ctx.field} needs its upper end: add \`.. ${high}\` after the lower end (a range reads \`low .. high\`)`);
+    return null;
+  }
   if (!t || t.kind !== 'range') {
     ctx.sink.report('bad-value', ctx.file, spanOf(terms), `${ctx.field} takes a range such as ${dimension === 'temperature' ? '-40 °C .. 125 °C' : `${exampleUnit(dimension)} .. ${exampleUnit(dimension)}`}`);
     return null;

@@ -8,7 +8,7 @@ import { DiagnosticSink } from '../diagnostics/diagnostic';
 import { blockKinds, blockSpec, kindWithArticle, PART_DOMAINS } from './schema';
 import type { LoadedFile } from './workspace';
 import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase } from './types';
-import { noExtra, readPart, trimNumber, readTolerance, spanOf } from './read-value';
+import { askForRest, noExtra, readPart, trimNumber, readTolerance, spanOf } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { prefixProblem } from './code-prefix';
@@ -294,6 +294,8 @@ function readBias(r: BlockReader): BiasDef | null {
   const ctx = r.ctx('bias');
   const span = spanOf(terms);
   const bad = () => {
+    r.ok = false;
+    if (askForRest(terms, ctx)) return null;
     r.sink.report('bad-value', r.ref.file, span, 'bias takes `resistor R from V` (e.g. `resistor 47k ± 1 % from 3.3 V`) or `current I` (e.g. `current 100 uA`)');
     r.ok = false;
     return null;
@@ -334,6 +336,8 @@ function readResolution(r: BlockReader): number | null {
   if (!terms) return null;
   const span = spanOf(terms);
   const bad = () => {
+    r.ok = false;
+    if (askForRest(terms, r.ctx('resolution'))) return null;
     r.sink.report('bad-value', r.ref.file, span, 'resolution takes `0.1 °C per count` or `10 counts per °C`');
     r.ok = false;
     return null;

@@ -196,3 +196,47 @@ export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined
 export function kindWithArticle(kind: string): string {
   return sensorKind(kind)?.a ?? `${kind === 'adc' ? 'an' : 'a'} ${kind}`;
 }
+
+/**
+ * What a half-typed phrase lacks, by field and by the word it ends with ('' when it ends with a
+ * number): the readers ask for it (`bias = resistor 47k from` → "add the supply voltage after
+ * 'from', such as 3.3 V"). Only the words of each field's phrase (its `words`, or the bias forms).
+ */
+export const HALF_TYPED: Readonly<Record<string, Readonly<Record<string, string>>>> = {
+  bias: {
+    current: 'the current after \'current\', such as `current 100 uA`',
+    currents: 'the two currents after \'currents\', such as `currents 10 uA and 100 uA`',
+    resistor: 'the resistance and its supply after \'resistor\', such as `resistor 47k from 3.3 V`',
+    resistors: 'the two resistances and their supply, such as `resistors 330k and 33k from 3.3 V`',
+    divider: 'the fixed resistor and its side after \'divider\', such as `divider 10k above from 3.3 V`',
+    above: '\'from\' and the supply voltage, such as `above from 3.3 V`',
+    below: '\'from\' and the supply voltage, such as `below from 3.3 V`',
+    from: 'the supply voltage after \'from\', such as `from 3.3 V`',
+    and: 'the second value after \'and\', such as `and 100 uA`',
+  },
+  resolution: {
+    '': '`per count` after the figure, such as `0.1 °C per count` (or `10 counts per °C`)',
+    per: '`count` or `°C` after \'per\', such as `0.1 °C per count` or `10 counts per °C`',
+  },
+  calibration: {
+    one: '`point at` and a temperature, such as `one point at 25 °C`',
+    two: '`points at` and two temperatures, such as `two points at 0 °C and 70 °C`',
+    point: '`at` and a temperature, such as `one point at 25 °C`',
+    points: '`at` and two temperatures, such as `two points at 0 °C and 70 °C`',
+    at: 'the temperature after \'at\', such as `at 25 °C`',
+    and: 'the second temperature after \'and\', such as `and 70 °C`',
+  },
+  measured: {
+    '': '`counts at` and the temperature of the reading, such as `2110 counts at 25 °C`',
+    counts: '`at` and the temperature of the reading, such as `2110 counts at 25 °C`',
+    at: 'the temperature of the reading after \'at\', such as `at 25 °C`',
+    and: 'another reading after \'and\', such as `and 1790 counts at 70 °C`',
+  },
+  monte_carlo: {
+    '': '`runs` after the number of boards, such as `1000 runs`',
+    seed: 'the seed after \'seed\', a whole number such as `seed 7`',
+  },
+  oversampling: {
+    '': '`bits` after the number, such as `2 bits`',
+  },
+};

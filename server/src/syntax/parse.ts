@@ -220,14 +220,34 @@ function errorSpan(err: unknown, base: number, limit: number): Span {
   return { start: base, end: limit };
 }
 
-/** Turns peggy's "Expected a, b, or c but "x" found." into plain words. */
+// What peggy expects where a value or another term of it may start (the grammar's names of the
+// term kinds, grammar/tsense.peggy): a message names them together as "a value".
+const TERM_EXPECTATIONS = new Set(['±', 'a name', 'a number such as 4k7, 1.5e-3 or 3.3 V', 'a quoted path such as "parts.tsense"', 'a unit such as °C', '"±"', '"+/-"', '"+-"', '".."']);
+const VALUE_WORDS = 'a value such as 4k7, 3.3 V ± 1 %, -40 °C .. 125 °C or a name';
+
+/**
+ * Peggy's expectations in plain words: the term kinds as "a value" (after `=`) or "another value
+ * or word" (after a term), and a half-typed term's own need (the grammar names RangeEnd and
+ * ToleranceAmount), such as "expected the upper end of a range, such as 125 °C".
+ */
 function plainMessage(err: unknown, line: string): string {
   if (!(err instanceof generated.SyntaxError)) return errorMessage(err);
-  const m = /^Expected (.*) but (.*) found\.$/s.exec(err.message);
-  if (!m) return err.message;
-  const found = m[2] === 'end of input' ? 'the end of the line' : m[2];
-  const expected = m[1].replace(/end of input/g, 'the end of the line');
-  void line;
+  const e = err as unknown as { expected: { type: string; text?: string; description?: string }[] | null; found: string | null; location: { start: { offset: number } } };
+  if (!e.expected) return err.message;
+  const words: string[] = [];
+  for (const x of e.expected) {
+    const w = x.type === 'literal' ? JSON.stringify(x.text) : x.type === 'end' ? 'the end of the line' : x.type === 'other' ? x.description! : null;
+    if (w === null) return err.message;
+    if (!words.includes(w)) words.push(w);
+  }
+  let list = words;
+  if (words.includes('a number such as 4k7, 1.5e-3 or 3.3 V')) {
+    const afterEquals = /=\s*$/.test(line.slice(0, e.location.start.offset));
+    list = [afterEquals ? VALUE_WORDS : 'another value or word', ...words.filter((w) => !TERM_EXPECTATIONS.has(w))];
+  }
+  list = [...new Set(list.map((w) => (w === 'end of line' ? 'the end of the line' : w)))];
+  const expected = list.length <= 1 ? (list[0] ?? 'something else') : `${list.slice(0, -1).join(', ')} or ${list[list.length - 1]}`;
+  const found = e.found === null ? 'the end of the line' : JSON.stringify(e.found);
   return `expected ${expected}, found ${found}`;
 }
 

@@ -10,6 +10,9 @@ export interface Outcome {
   detail?: string;
 }
 
+/** Page loads wait for the document, not every resource, with a generous limit: the machine is shared and slow. */
+export const GOTO = { timeout: 120_000, waitUntil: 'domcontentloaded' as const };
+
 export async function launch(profileDir: string): Promise<BrowserContext> {
   return chromium.launchPersistentContext(profileDir, {
     executablePath: CHROMIUM,
@@ -43,7 +46,7 @@ export async function runSuiteThroughPayload(
   ]);
   const timer = setTimeout(() => finish(null), timeoutMs);
   try {
-    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}&payload=${encodeURIComponent(payload)}`);
+    await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}&payload=${encodeURIComponent(payload)}`, GOTO);
     return await exited;
   } finally {
     clearTimeout(timer);
@@ -71,10 +74,10 @@ export async function walkAsUser(context: BrowserContext, baseUrl: string, works
   };
   try {
     const opened = await step('workbench loads and Ctrl+P opens cold-chain-problems.tsense', async () => {
-      await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`);
+      await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`, GOTO);
       await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: LIMIT });
       await quickOpen(page, 'cold-chain-problems.tsense');
-      await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).waitFor({ timeout: LIMIT });
+      await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).first().waitFor({ timeout: LIMIT });
     });
     if (!opened) return outcomes;
 

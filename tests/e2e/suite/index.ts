@@ -7,6 +7,7 @@ import { existsSync } from 'node:fs';
 import * as vscode from 'vscode';
 import { assert, runChecks, type Check } from './runner';
 import { codeOf, waitForDiagnostics } from './wait';
+import { firstContactChecks } from './first-contact';
 
 // Generous: the first diagnostics need the extension host, the server process and a full
 // analysis to start on a shared 2-core machine.
@@ -175,7 +176,7 @@ const checks: Check[] = [
 
 /** Entry point called by the extension host's test loader. Rejects when any check fails. */
 export async function run(): Promise<void> {
-  const results = await runChecks(checks);
+  const results = await runChecks([...checks, ...firstContactChecks(open)]);
   const failed = results.filter((r) => !r.ok);
   if (failed.length > 0) throw new Error(`${failed.length} of ${results.length} editor checks failed: ${failed.map((f) => f.name).join('; ')}`);
 }

@@ -154,3 +154,32 @@ describe('the CLI process itself (issue #17 items 6 and 7, through the dispatche
     }
   });
 });
+
+describe('plot on a channel with errors, through the CLI process (issue #14 item 9)', () => {
+  // The greenhouse sample with its converter's bits set to 0 (outside 1..24): channel bench_air
+  // (and every other) is then not analysable. The CLI names the errors and exits 1, not 2.
+  it('prints the errors, says they block the drawing, exits 1 without a usage line and writes nothing', () => {
+    const cli = path.resolve(__dirname, '../../../dist/cli.js');
+    const samples = path.resolve(__dirname, '../../../samples');
+    const work = fs.mkdtempSync(path.join(os.tmpdir(), 'thsc-plot-err-'));
+    try {
+      fs.cpSync(samples, work, { recursive: true });
+      const spec = path.join(work, 'greenhouse.tsense');
+      const text = fs.readFileSync(spec, 'utf8');
+      expect(text).toContain('bits       = 12');
+      fs.writeFileSync(spec, text.replace('bits       = 12', 'bits       = 0'));
+      // An error inside the channel's own block as well: an unknown field.
+      fs.writeFileSync(spec, fs.readFileSync(spec, 'utf8').replace(/(channel bench_air \{\n)/, '$1  colour = 3\n'));
+      const out = path.join(work, 'bench_air.svg');
+      const r = spawnSync(process.execPath, [cli, 'plot', spec, '--channel', 'bench_air', '--out', out, '--runs', '20'], { encoding: 'utf8', cwd: work });
+      expect(r.status, r.stderr).toBe(1);
+      expect(r.stderr).toMatch(/greenhouse\.tsense:\d+:\d+: error \[out-of-domain\] bits/);
+      expect(r.stderr).toMatch(/error \[unknown-field\]/);
+      expect(r.stderr).toMatch(/thermoscribe plot: channel 'bench_air' has 1 of the spec's 2 errors \(listed above\); fix them first \(nothing was written\)/);
+      expect(r.stderr).not.toMatch(/usage:|no channel named|internal error/);
+      expect(fs.existsSync(out)).toBe(false);
+    } finally {
+      fs.rmSync(work, { recursive: true, force: true });
+    }
+  });
+});

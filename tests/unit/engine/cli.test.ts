@@ -110,6 +110,15 @@ describe('thermoscribe report', () => {
     expect(r.out).toMatch(/calibrated reference thermometer/);
     expect(runCli(['report', 'samples/greenhouse.tsense', '--channel', 'nope']).code).toBe(2);
   });
+  it('--brief prints the summary without the sweep table, with the caution (the demo, issue #14 item 16)', () => {
+    const r = runCli(['report', 'samples/greenhouse.tsense', '--channel', 'bench_air', '--brief']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Channel bench_air: junction 'generic_npn'/);
+    expect(r.out).toMatch(/worst resolution [\d.]+ °C\/count/);
+    expect(r.out).not.toMatch(/°C\s+mV\s+µA\s+code/);
+    expect(r.out).toMatch(/local codes, the\napplicable safety standards/);
+    expect(r.out.length).toBeLessThan(4000);
+  });
 });
 
 describe('the bundled CLI in a pipe', () => {

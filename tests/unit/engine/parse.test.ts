@@ -83,7 +83,7 @@ describe('error recovery', () => {
   it('reports every syntax error in one pass, each with its own range', () => {
     const r = parse(src);
     expect(r.problems.map((p) => src.slice(p.span.start, p.span.end))).toEqual([')', '=', 'what is this', 'open']);
-    expect(r.problems[0]!.message).toBe('expected ";", a comment, or end of line, found ")"');
+    expect(r.problems[0]!.message).toBe('expected another value or word, ";", a comment or the end of the line, found ")"');
     expect(r.problems[3]!.message).toMatch(/not closed/);
   });
 

@@ -11,6 +11,7 @@ import { channelBudgetAsync } from '../../engine';
 import { plotData, plotProblem } from '../../engine';
 import { plotSpec, type ChartKind } from '../../engine';
 import { renderSvg } from '../../engine';
+import type { Analysis, Diagnostic } from '../../engine';
 
 const CHARTS: readonly ChartKind[] = ['both', 'transfer', 'error', 'dynamics'];
 
@@ -42,8 +43,8 @@ export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
   const spec = { diagnostics: a.diagnostics, unprinted: { index: (f: string) => host.index(f) } };
   // As with gen: nothing is drawn from a spec with errors (a figure people act on). First, as an
   // error can be what hides the channel.
-  const errors = a.diagnostics.filter((d) => d.severity === 'error').length;
-  if (errors > 0) return { ...spec, failed: `the spec has ${errors} error${errors === 1 ? '' : 's'}; fix them first (nothing was written)` };
+  const errors = a.diagnostics.filter((d) => d.severity === 'error');
+  if (errors.length > 0) return { ...spec, failed: `${blockedBy(a, channel, errors)}; fix ${errors.length === 1 ? 'it' : 'them'} first (nothing was written)` };
   if (!a.model.channels.some((c) => c.name === channel)) return { unusable: `no channel named ${shown(channel)}; channels: ${a.model.channels.map((c) => c.name).join(', ') || '(none)'}` };
   const result = a.channels.find((r) => r.channel.name === channel);
   if (!result) return { ...spec, failed: `channel ${shown(channel)} cannot be analysed; run \`thermoscribe check\` for the reason (nothing was written)` };
@@ -79,3 +80,13 @@ export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
   io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${chart === 'both' ? `transfer curve and error budget${data.dynamics ? ' and response' : ''}` : chart === 'transfer' ? 'transfer curve' : chart === 'dynamics' ? 'step response and ramp lag' : 'error budget'} of channel ${channel})\n`);
   return spec;
 });
+
+/** Which errors keep the channel from being drawn: its own block's first, then the rest of the spec's (all printed above). */
+function blockedBy(a: Analysis, channel: string, errors: readonly Diagnostic[]): string {
+  const block = a.files[0]?.parse.tree.items.find((b) => b.kind === 'block' && b.keyword.text === 'channel' && b.name.text === channel);
+  const own = block ? errors.filter((d) => d.file === a.path && d.span.start >= block.span.start && d.span.start < block.span.end).length : 0;
+  const total = `${errors.length} error${errors.length === 1 ? '' : 's'}`;
+  if (own === errors.length) return `channel ${shown(channel)} has ${total} (listed above)`;
+  if (own > 0) return `channel ${shown(channel)} has ${own} of the spec's ${total} (listed above)`;
+  return `the spec has ${total} (listed above), none in channel ${shown(channel)}'s block, and a spec with errors is not drawn`;
+}

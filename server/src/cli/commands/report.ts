@@ -1,4 +1,5 @@
-// thermoscribe report FILE [--channel NAME] [--root DIR]: each channel's sweep as a table.
+// thermoscribe report FILE [--channel NAME] [--root DIR] [--brief]: each channel's summary and its
+// sweep as a table (`--brief`: the summary only).
 import { describeFaults, sensorFaults } from '../../engine';
 import { DiskHost } from '../io';
 import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type VerbSpec } from '../verb';
@@ -10,7 +11,7 @@ import { cautionFor } from '../../engine';
 import { describeBias, describeSensor } from '../../engine';
 import { residualReport } from '../residuals';
 
-export const REPORT: VerbSpec = { name: 'report', files: 'one', options: { channel: CHANNEL_OPTION, root: ROOT_OPTION } };
+export const REPORT: VerbSpec = { name: 'report', files: 'one', options: { channel: CHANNEL_OPTION, root: ROOT_OPTION, brief: { kind: 'flag' } } };
 export const REPORT_USAGE = usageLine(REPORT);
 
 export const runReport = defineVerb(REPORT, (args, io) => {
@@ -22,7 +23,8 @@ export const runReport = defineVerb(REPORT, (args, io) => {
   if (only !== undefined && channels.length === 0) {
     return { unusable: `no analysed channel named ${shown(only)}; channels: ${a.channels.map((c) => c.channel.name).join(', ') || '(none)'}` };
   }
-  for (const r of channels) io.out(channelReport(r) + '\n\n');
+  const brief = args.flag('brief');
+  for (const r of channels) io.out(channelReport(r, brief) + '\n\n');
   const diags = a.diagnostics;
   if (diags.length) {
     io.out('Diagnostics\n');
@@ -33,7 +35,8 @@ export const runReport = defineVerb(REPORT, (args, io) => {
   return { diagnostics: diags };
 });
 
-export function channelReport(r: ChannelResult): string {
+/** A channel's summary lines, then (unless `brief`) its sweep as a table. */
+export function channelReport(r: ChannelResult, brief = false): string {
   const c = r.channel;
   const s = r.summary;
   const head = [
@@ -45,6 +48,7 @@ export function channelReport(r: ChannelResult): string {
     ...describeFaults(sensorFaults(c, s.codeMin, s.codeMax)).map((l) => `  fault: ${l}`),
     '',
   ];
+  if (brief) return head.join('\n').trimEnd();
   const rows = r.sweep.map((p) => [
     fixedNumber(p.celsius, 2),
     fixedNumber(p.volts * 1000, 3),

@@ -3,6 +3,8 @@
 // resolve when the client supports that, since generation takes a moment).
 import {
   CodeActionKind,
+  MessageType,
+  ShowMessageNotification,
   type CodeAction,
   type CodeActionParams,
   type TextDocumentEdit,
@@ -21,6 +23,19 @@ import { docForFile, toDiagnostic, toRange, toSpan } from '../convert';
 import { pathToUri, readDisk } from '../documents';
 
 export const GENERATE_KIND = `${CodeActionKind.Refactor}.generateConversion`;
+/**
+ * The client command run after a generation's edit is applied: it shows the written file at the
+ * channel's block and says what was written. Offered only to a client that names it in
+ * `initializationOptions.clientCommands` (ours does); any other client is told by a message.
+ */
+export const SHOW_GENERATED = 'thermoscribe.showGenerated';
+
+/** The argument of SHOW_GENERATED. */
+export interface ShowGeneratedArgs {
+  uri: string;
+  line: number;
+  message: string;
+}
 
 interface GenerateData {
   uri: string;
@@ -51,7 +66,7 @@ export function onCodeActions(ctx: ServerContext, params: CodeActionParams, lazy
   if (block && block.keyword.text === 'channel' && wants(GENERATE_KIND) && generatableChannels(a).includes(block.name.text)) {
     const data: GenerateData = { uri: doc.uri, channel: block.name.text };
     const action: CodeAction = { title: `Generate conversion code for ${block.name.text}`, kind: GENERATE_KIND, data };
-    out.push(lazy ? action : onResolveCodeAction(ctx, action));
+    out.push(lazy ? action : onResolveCodeAction(ctx, action, false));
   }
   // The same generation as a quick fix of a `generated-stale` diagnostic (codegen/stale.ts).
   const stale = params.context.diagnostics.find((d) => d.code === 'generated-stale' && typeof (d.data as GenerateData | undefined)?.channel === 'string');
@@ -59,7 +74,7 @@ export function onCodeActions(ctx: ServerContext, params: CodeActionParams, lazy
   if (stale && staleChannel && wants(CodeActionKind.QuickFix) && generatableChannels(a).includes(staleChannel)) {
     const data: GenerateData = { uri: doc.uri, channel: staleChannel };
     const action: CodeAction = { title: `Regenerate conversion code for ${staleChannel}`, kind: CodeActionKind.QuickFix, diagnostics: [stale], isPreferred: true, data };
-    out.push(lazy ? action : onResolveCodeAction(ctx, action));
+    out.push(lazy ? action : onResolveCodeAction(ctx, action, false));
   }
   // Removing an orphan block (a channel the spec no longer defines) from the C file and its header.
   for (const d of params.context.diagnostics) {
@@ -92,7 +107,8 @@ function fixEdit(ctx: ServerContext, a: ReturnType<ServerContext['analyses']['ge
   return { changes };
 }
 
-export function onResolveCodeAction(ctx: ServerContext, action: CodeAction): CodeAction {
+/** `tell`: say what was written when the client has no command for it (not on an eager list of actions). */
+export function onResolveCodeAction(ctx: ServerContext, action: CodeAction, tell = true): CodeAction {
   const data = action.data as GenerateData | undefined;
   if ((action.kind !== GENERATE_KIND && action.kind !== CodeActionKind.QuickFix) || typeof data?.channel !== 'string') return action;
   const doc = ctx.documents.get(data.uri);
@@ -119,5 +135,11 @@ export function onResolveCodeAction(ctx: ServerContext, action: CodeAction): Cod
   } else {
     edit = { changes: { [uri]: [replace] } };
   }
+  if (ctx.client.showGenerated) {
+    const args: ShowGeneratedArgs = { uri, line: g.result.line, message: g.result.summary };
+    return { ...action, edit, command: { title: 'Show the generated code', command: SHOW_GENERATED, arguments: [args] } };
+  }
+  // A notification: nothing to answer, and it reaches the client before the resolved action.
+  if (tell) void ctx.connection.sendNotification(ShowMessageNotification.type, { type: MessageType.Info, message: g.result.summary });
   return { ...action, edit };
 }

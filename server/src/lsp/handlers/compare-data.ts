@@ -7,7 +7,7 @@ import { ErrorCodes, ResponseError } from 'vscode-languageserver/node';
 import { compareGroups, type CompareRow } from '../../engine';
 import type { PairedDifference } from '../../engine';
 import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../engine';
-import { cautionFor } from '../../engine';
+import { cautionParagraphFor } from '../../engine';
 import type { ServerContext } from '../context';
 import { analysisOf } from './channel-of';
 
@@ -60,6 +60,6 @@ export function onCompareData(ctx: ServerContext, params: CompareDataParams): Co
     groups: groups.map((g) => ({ name: g.name, rows: g.rows, differences: g.differences, cells: g.rows.map(compareCells) })),
     errors: a.diagnostics.filter((d) => d.severity === 'error').length,
     explain: COMPARE_EXPLAIN.join(' '),
-    caution: cautionFor(a.channels.map((r) => r.channel)),
+    caution: cautionParagraphFor(a.channels.map((r) => r.channel)),
   };
 }

@@ -1,0 +1,31 @@
+// Half-typed values get messages that ask for what is missing (issue #14 item 5): one fixture per
+// field form (quantity, range, choice, ref, bias, resolution, accuracy, phrases) under
+// tests/fixtures/half-typed/, its diagnostics in the .expected file beside it. The messages come
+// from the grammar (grammar/tsense.peggy: RangeEnd, ToleranceAmount) and the value readers
+// (model/read-value.ts askForRest, schema.ts HALF_TYPED). The forms are the project's own syntax;
+// no outside source applies.
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { analyseFile, diagnosticRows, expectMatchesFile, FIXTURES } from '../helpers/fixtures';
+
+const DIR = path.join(FIXTURES, 'half-typed');
+const FORMS = ['quantity', 'range', 'choice', 'ref', 'bias', 'resolution', 'accuracy', 'phrase'];
+
+describe('half-typed values ask for what is missing', () => {
+  it('has a fixture for every field form', () => {
+    expect(fs.readdirSync(DIR).filter((f) => f.endsWith('.tsense')).map((f) => f.replace('.tsense', '')).sort()).toEqual([...FORMS].sort());
+  });
+  for (const form of FORMS) {
+    it(form, () => {
+      const rows = diagnosticRows(analyseFile(path.join(DIR, `${form}.tsense`)), DIR);
+      expectMatchesFile(rows.join('\n') + '\n', path.join(DIR, `${form}.expected`));
+    });
+  }
+  it('the issue\'s example: `range = 0 °C .. ` asks for the upper end', () => {
+    const rows = diagnosticRows(analyseFile(path.join(DIR, 'range.tsense')), DIR).join('\n');
+    expect(rows).toContain('syntax error');
+    expect(rows).toMatch(/expected the upper end of a range, such as 125 °C, found the end of the line/);
+    expect(rows).not.toMatch(/expected a comment|found "\."/);
+  });
+});
