@@ -46,9 +46,9 @@ export function conversionBits(c: ChannelDef): number {
 /** Why a channel's code cannot be generated because its value is too wide (null when it fits). */
 export function tooWideMessage(c: ChannelDef): string | null {
   // A channel that reads another (a thermocouple's cold junction) needs that reading as a second
-  // input of its conversion; until its kind gives the generator that input, no one-input code is made.
+  // input of its conversion: its kind gives it (`conversionInput`), else no code is made.
   const linked = Object.entries(c.linked ?? {})[0];
-  if (linked) return `its conversion takes the reading of channel '${linked[1].name}' (${linked[0]}) as a second input, which this generator does not make yet`;
+  if (linked && !kindOf(c.sensor).conversionInput) return `its conversion takes the reading of channel '${linked[1].name}' (${linked[0]}) as a second input, which this generator does not make yet`;
   const bits = conversionBits(c);
   if (bits <= MAX_CODE_BITS) return null;
   const n = c.oversamplingBits ?? 0;

@@ -234,10 +234,10 @@ describe('thermocouple block, cautions and code generation', () => {
     expect(cautionFor(a.channels.filter((r) => r.channel.name === 'board').map((r) => r.channel))).toBe(CAUTION);
   });
 
-  it('leaves a thermocouple channel out of one-input code generation, with the reason', async () => {
+  it('is generated with its cold-junction channel (the kind gives the generator its second input)', async () => {
     const { generatableResults, tooWideMessage } = await import('../../../server/src/codegen/channel-input');
     const a = analyseText(spec(HOT));
-    expect(generatableResults(a.channels, a.diagnostics).map((r) => r.channel.name)).toEqual(['board']);
-    expect(tooWideMessage(a.channels.find((r) => r.channel.name === 'hot')!.channel)).toMatch(/reading of channel 'board' \(cold_junction\) as a second input/);
+    expect(generatableResults(a.channels, a.diagnostics).map((r) => r.channel.name)).toEqual(['board', 'hot']);
+    expect(tooWideMessage(a.channels.find((r) => r.channel.name === 'hot')!.channel)).toBeNull();
   });
 });
