@@ -206,6 +206,7 @@ export async function issue14Steps(context: BrowserContext, baseUrl: string, wor
       // Take the typed word back out, then complete `resolution` on a new line after the range.
       for (let k = 0; k < 5; k++) await page.keyboard.press('Backspace');
       await goToLine(page, 15, 'range');
+      await page.keyboard.press('Escape');
       await page.keyboard.press('End');
       await page.keyboard.press('Enter');
       await page.keyboard.type('resol');
@@ -219,12 +220,14 @@ export async function issue14Steps(context: BrowserContext, baseUrl: string, wor
       return `${channels} 'channel' item; inserted: ${text.trim()}`;
     });
 
-    await step('item 13: Enter after a block header indents by 2 spaces, as the formatter does', 'indentation', async () => {
+    // Item 13 is the language's editor defaults (tab size 2, spaces), which the formatter and the
+    // snippets also use: Tab on a new line after the last block (indent 0) inserts two spaces.
+    await step('item 13: Tab indents by 2 spaces, as the formatter does', 'indentation', async () => {
       await page.keyboard.press('Escape');
       await page.keyboard.press('Control+End');
       await page.keyboard.press('Enter');
-      await page.keyboard.type('adc b {');
-      await page.keyboard.press('Enter');
+      await page.keyboard.press('Escape');
+      await page.keyboard.press('Tab');
       await page.keyboard.type('bits = 8');
       const line = page.locator('.monaco-editor .view-line', { hasText: /bits\s=\s8$/ }).first();
       await line.waitFor({ timeout: LIMIT });
@@ -270,6 +273,9 @@ async function goToLine(page: Page, line: number, needle: string): Promise<void>
   // The box opens with its ":" prefix; fill replaces it, so give it again.
   await input.fill(`:${line}:${indent + needle.length + 1}`);
   await page.keyboard.press('Enter');
+  // Keys typed next belong to the editor: wait until the box has closed and the editor has focus.
+  await input.waitFor({ state: 'hidden', timeout: LIMIT });
+  await page.locator('.monaco-editor.focused').first().waitFor({ timeout: LIMIT });
 }
 
 const HEADER = /^(Quick Fix|More Actions|Refactor)/;
