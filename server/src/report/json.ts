@@ -10,6 +10,8 @@ import { kindOf } from '../sensors/registry';
 import { budgetSummaryJson } from '../budget/json';
 import { kindCautions } from './caution';
 
+// Raised when a field changes its meaning or unit or goes away; a reader ignores fields it does not
+// know, so added fields (faults, dynamics, cautions, residuals) keep version 1.
 export const REPORT_VERSION = 1;
 
 export function diagnosticJson(d: Diagnostic, index: LineIndex) {

@@ -7,7 +7,7 @@ import { formatDiagnostic, table } from '../text';
 import { analyseOne } from './check';
 import { compareGroups, type CompareGroup } from '../../engine';
 import { COMPARE_EXPLAIN, COMPARE_HEADERS, compareCells } from '../../engine';
-import { cautionFor } from '../../engine';
+import { cautionFor, cautionParagraphFor } from '../../engine';
 import { VERSION } from '../version';
 
 export const COMPARE: VerbSpec = { name: 'compare', files: 'one', options: { format: { kind: 'choice', values: ['text', 'json'] }, group: { kind: 'name', meta: 'NAME' }, root: ROOT_OPTION } };
@@ -28,7 +28,7 @@ export const runCompare = defineVerb(COMPARE, (args, io) => {
   if (a.channels.length === 0) return { diagnostics: a.diagnostics, unprinted, failed: 'no channel could be analysed; run `thermoscribe check` for the reasons' };
   const errors = a.diagnostics.filter((d) => d.severity === 'error');
   if (format === 'json') {
-    io.out(JSON.stringify({ version: 1, tool: { name: 'thermoscribe', version: VERSION }, path: a.path, units: 'K for errors and self-heating, °C per count for resolution, bytes for code', groups, caution: cautionFor(a.channels.map((r) => r.channel)) }, null, 2) + '\n');
+    io.out(JSON.stringify({ version: 1, tool: { name: 'thermoscribe', version: VERSION }, path: a.path, units: 'K for errors and self-heating, °C per count for resolution, bytes for code', groups, caution: cautionParagraphFor(a.channels.map((r) => r.channel)) }, null, 2) + '\n');
     return { diagnostics: a.diagnostics, unprinted };
   }
   for (const g of groups) io.out(groupText(g) + '\n\n');
