@@ -180,6 +180,7 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
     codeLow: 0,
     codeHigh: iMax,
     celsiusAtCode: (i) => qAtV(bucketCentre(i)) - rBase,
+    anyShape: true,
     outputScale: refScale,
     errorTarget: u / 8,
     method: 'auto',

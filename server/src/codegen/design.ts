@@ -99,7 +99,7 @@ function sample(c: ConversionInput): Samples {
     if (Math.abs(f[k]!) > 2 ** 30) fail(c, 'outputScale', `scaled temperature ${f[k]} at code ${c.codeLow + k} exceeds 2^30`);
   }
   const dir: 1 | -1 = n > 1 ? (f[n - 1]! < f[0]! ? -1 : 1) : oneCodeDirection(c);
-  for (let k = 1; k < n; k++) {
+  for (let k = 1; k < n && !c.anyShape; k++) {
     if ((f[k]! - f[k - 1]!) * dir < 0)
       fail(c, 'celsiusAtCode', `not monotonic: ${f[k - 1]! / c.outputScale} degC at code ${c.codeLow + k - 1}, ${f[k]! / c.outputScale} degC at code ${c.codeLow + k}`);
   }
@@ -280,7 +280,7 @@ function choose(c: ConversionInput, s0: Samples): Choice {
       else if (!bestMissed || r.maxErr < bestMissed.maxErr) bestMissed = ch;
     };
     const mine = (kind: Design['kind'], sh: number) => candidates.some((x) => x.s === s && x.design.kind === kind && x.design.shift === sh);
-    if (c.method !== 'polynomial') {
+    if (c.method !== 'polynomial' && !c.anyShape) {
       // From wide spacing down; stop at the first spacing that meets the target twice in a row
       // narrower: narrower tables are only bigger. A direct table needs no fraction bits.
       for (let sh = maxShift; sh >= (frac > 0 ? 1 : 0); sh--) {

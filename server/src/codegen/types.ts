@@ -12,9 +12,15 @@ export interface ConversionInput {
   codeHigh: number;
   /**
    * Exact model inverse, degC, at the centre of a code (code + 0.5 LSB). Accepts fractional codes.
-   * Monotonic (rising or falling) on [codeLow, codeHigh].
+   * Monotonic (rising or falling) on [codeLow, codeHigh], unless `anyShape`.
    */
   celsiusAtCode(code: number): number;
+  /**
+   * An intermediate function (a reference's part in a two-input conversion, codegen/compensated.ts),
+   * which may rise and fall, such as a type B thermocouple's EMF over 0..50 degC: only piecewise
+   * polynomials are designed (a table's interpolation takes its spans as unsigned).
+   */
+  anyShape?: boolean;
   /**
    * Sensor faults (open or shorted sensor or lead): codes at or below `faultBelow`, or at or above
    * `faultAbove`, return THSC_SENSOR_FAULT instead of a clamped status. Absent: no fault test on

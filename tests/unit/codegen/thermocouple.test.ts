@@ -92,6 +92,16 @@ describe.skipIf(available.length === 0)('thermocouple conversion: code + cold ju
     }
   });
 
+  it("designs type B's cold-junction part, which falls and then rises over 0..50 degC, as a piecewise polynomial", () => {
+    const k = cases.find((x) => x.t.type === 'B');
+    expect(k).toBeDefined();
+    // NIST Monograph 175 (1993), type B table in mV to three decimals, 0..50 degC every 10 degC:
+    // 0.000, -0.002, -0.003, -0.002, -0.000, 0.002 (from memory).
+    const table = [0, -2, -3, -2, 0, 2];
+    table.forEach((uv, i) => expect(Math.abs(emf('B', i * 10 + 273.15) * 1e6 - uv)).toBeLessThanOrEqual(0.5));
+    expect(k!.plan.ref.plan.design.kind).toBe('polynomial');
+  });
+
   it('pins out-of-range cold-junction inputs to their range with THSC_REF_CLAMPED (4), and open-thermocouple codes give THSC_SENSOR_FAULT (3)', () => {
     for (const k of cases) {
       const p = k.plan;
