@@ -10,7 +10,8 @@ import { channelBudget, liveBudget } from './budget/budget';
 import { channelKey } from './analysis/cache';
 import type { ChannelResult } from './analysis/types';
 import type { ChannelDef } from './model/types';
-import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
+import { loadWorkspace, reportSyntax, type LoadedFile, type SourceHost } from './model/workspace';
+import type { ParseResult } from './syntax/ast';
 import { resolveModel } from './model/resolve';
 import { type Resolution } from './model/block-reader';
 import { attachBenchData } from './model/bench-data';
@@ -84,6 +85,16 @@ export function analyse(input: AnalyseInput): Analysis {
   reportUsedFileProblems(files, sink);
   const diagnostics = capPerFile(sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1)));
   return { path: entry, files, model, channels, diagnostics, budgetsPending: budgets.pending };
+}
+
+/**
+ * The syntax diagnostics of one file's parse alone, as `analyse` reports them (the language server
+ * publishes these first when a large spec is opened, before its analysis).
+ */
+export function syntaxDiagnostics(file: string, parsed: ParseResult): Diagnostic[] {
+  const sink = new DiagnosticSink();
+  reportSyntax(path.resolve(file), parsed, sink);
+  return capPerFile(sink.items.sort((a, b) => a.span.start - b.span.start));
 }
 
 /** How many missing worst-case budgets an analysis may still compute, and the channels left without one. */

@@ -2,7 +2,9 @@
 // opened gets its diagnostics first with the worst-case budgets of at most INLINE_BUDGETS channels,
 // and the rest (the budget checks of the other channels) follow for the same version; an older
 // version is never published after a newer one, and the last publication is the full analysis of
-// the last version. LSP 3.17 publishDiagnostics with versions; waits on notifications, never timers.
+// the last version. A large spec just opened may get its syntax diagnostics alone first (when its
+// parse is costly; how costly depends on the machine, so the test holds either way). LSP 3.17
+// publishDiagnostics with versions; waits on notifications, never timers.
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -75,6 +77,23 @@ describe('diagnostics in two steps', () => {
     // Served as usual afterwards.
     const hover = await client.request<{ contents: unknown } | null>('textDocument/hover', { textDocument: { uri }, position: { line, character: 4 } });
     expect(hover).not.toBeUndefined();
+    client.close(uri);
+  });
+
+  it('a large spec just opened: the first publication carries its syntax errors, the analysis follows for the same version, and a hover sent meanwhile is answered', async () => {
+    const file = path.join(dir, 'large.tsense');
+    const text = generateSpec(800).replace('adc conv_0 {\n', 'adc conv_0 {\n  = 5\n');
+    const uri = client.open(file, text);
+    const first = await client.diagnostics(uri, 1);
+    const syntax = (d: LspDiagnostic[]) => d.filter((x) => x.code === 'syntax').map((x) => `${x.range.start.line}:${x.message}`);
+    expect(syntax(first)).toHaveLength(1);
+    const at = text.slice(0, text.indexOf('channel probe_3 ')).split('\n').length - 1;
+    const hover = client.request<{ contents: unknown } | null>('textDocument/hover', { textDocument: { uri }, position: { line: at, character: 'channel '.length + 1 } });
+    // The analysis (the channels' diagnostics), with the same syntax errors.
+    const analysed = await client.diagnosticsWhere(uri, (d) => d.some((x) => x.code === 'accuracy-unmet'));
+    expect(syntax(analysed)).toEqual(syntax(first));
+    expect((await hover)?.contents).toBeTruthy();
+    expect(client.publications(uri).every((p) => p.version === 1)).toBe(true);
     client.close(uri);
   });
 });

@@ -2,10 +2,16 @@
 // spec that uses it. Before publishing, the document version is checked again, so results for an
 // old version are never published.
 //
-// Adaptive debounce: a document whose last analysis took less than the debounce setting is checked
-// at once (felt latency then at most two analyses, one under way and its own, which is less than
-// the debounce plus one); a costlier one waits the debounce after the last change, so keystrokes
-// typed meanwhile cost one analysis. A newer change resets the wait: the cancellation of stale work.
+// Adaptive debounce: a document whose analyses cost less than the debounce setting is checked at
+// once (felt latency then at most two analyses, one under way and its own, which is less than the
+// debounce plus one); a costlier one waits the debounce after the last change, so keystrokes typed
+// meanwhile cost one analysis. A newer change resets the wait: the cancellation of stale work. The
+// cost is the analysis' CPU time (a busy machine stretches wall time, not the work), the median of
+// the last COST_SAMPLES, so one slow analysis (a collection, a costly channel) does not add the
+// debounce to the next keystrokes.
+//
+// Syntax first: when a document's first parse costs SYNTAX_FIRST_MS or more (a large spec opened),
+// its syntax diagnostics are published at once and the analysis follows on a later turn.
 //
 // Two steps: the first publish carries every diagnostic whose worst-case budget was kept or cheap
 // (lsp/analyses.ts INLINE_BUDGETS); the budgets left pending (a document just opened) are then
@@ -16,18 +22,28 @@ import type { TextDocument } from 'vscode-languageserver-textdocument';
 import type { ServerContext } from './context';
 import { toDiagnostic } from './convert';
 import { uriToPath } from './documents';
-import { keepWorstCaseBudget, staleDiagnostics, type Analysis, type ChannelResult } from '../engine';
+import { keepWorstCaseBudget, staleDiagnostics, syntaxDiagnostics, type Analysis, type ChannelResult, type Diagnostic } from '../engine';
 import { isShutDown } from './guard';
 
 /** Longest stretch of budget work between two turns of the event loop. */
 const SLICE_MS = 20;
+/** A first parse at least this costly (CPU ms) publishes its syntax diagnostics before the analysis. */
+const SYNTAX_FIRST_MS = 50;
+/** The debounce follows the median CPU cost of this many last analyses. */
+const COST_SAMPLES = 3;
+
+/** CPU time of this process so far, ms (user + system). */
+function cpuMs(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+}
 
 export class DiagnosticScheduler {
   private readonly timers = new Map<string, NodeJS.Timeout>();
   /** A check about to run at once, or the budget slices under way (lsp/diagnostics.ts `soon`, `follow`). */
   private readonly followers = new Map<string, NodeJS.Immediate>();
-  /** How long the last analysis of each open document took, ms (the adaptive debounce's measure). */
-  private readonly costs = new Map<string, number>();
+  /** CPU ms of the last analyses of each open document (the adaptive debounce's measure); empty after its first, cold one. */
+  private readonly costs = new Map<string, number[]>();
 
   constructor(private readonly ctx: ServerContext) {}
 
@@ -72,7 +88,7 @@ export class DiagnosticScheduler {
     if (isShutDown(this.ctx.connection)) return;
     this.cancel(uri);
     const debounce = this.ctx.settings.debounceMs;
-    const cost = this.costs.get(uri);
+    const cost = this.cost(uri);
     if (cost === undefined || cost < debounce) this.soon(uri, 2);
     else this.timers.set(uri, setTimeout(() => this.run(uri), debounce));
   }
@@ -90,17 +106,42 @@ export class DiagnosticScheduler {
     }));
   }
 
-  private run(uri: string): void {
+  /** The median of the last analyses' CPU costs, ms; undefined before the first. */
+  private cost(uri: string): number | undefined {
+    const c = this.costs.get(uri);
+    if (!c) return undefined;
+    const sorted = [...c].sort((a, b) => a - b);
+    return sorted[(sorted.length - 1) >> 1] ?? 0;
+  }
+
+  /** `syntaxShown`: this version's syntax diagnostics have been published (a large spec's first check). */
+  private run(uri: string, syntaxShown = false): void {
     this.timers.delete(uri);
     const doc = this.ctx.documents.get(uri);
     if (!doc || isShutDown(this.ctx.connection)) return;
     const version = doc.version;
     try {
-      const t0 = performance.now();
+      const first = !this.costs.has(uri);
+      if (first && !syntaxShown) {
+        const p0 = cpuMs();
+        // Parsed into the document's state, so the analysis that follows finds every piece.
+        const file = this.ctx.analyses.syntax(doc);
+        if (cpuMs() - p0 >= SYNTAX_FIRST_MS) {
+          this.send(doc, version, syntaxDiagnostics(uriToPath(uri, this.ctx.documents.roots), file.parse));
+          this.followers.set(uri, setImmediate(() => {
+            this.followers.delete(uri);
+            if (this.ctx.documents.get(uri)?.version === version) this.run(uri, true);
+          }));
+          return;
+        }
+      }
+      const c0 = cpuMs();
       const analysis = this.ctx.analyses.get(doc);
       // A document's first analysis is a cold one (every block read, every channel swept): not what
       // a keystroke costs, so the first keystroke is checked at once and measures that.
-      this.costs.set(uri, this.costs.has(uri) ? performance.now() - t0 : 0);
+      const costs = this.costs.get(uri) ?? [];
+      if (!first) costs.push(cpuMs() - c0);
+      this.costs.set(uri, costs.slice(-COST_SAMPLES));
       if (!this.publish(doc, version, analysis)) return;
       if (analysis.budgetsPending.length > 0) this.follow(uri, version, analysis.budgetsPending, 0);
     } catch (err) {
@@ -128,15 +169,23 @@ export class DiagnosticScheduler {
 
   /** Publishes an analysis of `version` unless the document has moved on; false when it has not been published. */
   private publish(doc: TextDocument, version: number, analysis: Analysis): boolean {
-    const uri = doc.uri;
-    const current = this.ctx.documents.get(uri);
-    if (!current || current.version !== version || isShutDown(this.ctx.connection)) return false;
-    const own = analysis.path;
     // Generated blocks in the C file beside the spec are compared at every check (cheap: a
     // marker scan), read through the host so an open, unsaved C buffer counts.
+    if (!this.current(doc, version)) return false;
     const stale = staleDiagnostics(analysis, this.ctx.documents.host().read);
-    const diagnostics = [...analysis.diagnostics, ...stale].filter((d) => d.file === own).map((d) => toDiagnostic(doc, d));
-    void this.ctx.connection.sendDiagnostics({ uri, version, diagnostics });
+    return this.send(doc, version, [...analysis.diagnostics, ...stale].filter((d) => d.file === analysis.path));
+  }
+
+  /** Whether `version` is still the document's current version (and the server is not shut down). */
+  private current(doc: TextDocument, version: number): boolean {
+    const now = this.ctx.documents.get(doc.uri);
+    return !!now && now.version === version && !isShutDown(this.ctx.connection);
+  }
+
+  /** Sends the diagnostics of the document's own file at `version`, unless the document has moved on. */
+  private send(doc: TextDocument, version: number, own: readonly Diagnostic[]): boolean {
+    if (!this.current(doc, version)) return false;
+    void this.ctx.connection.sendDiagnostics({ uri: doc.uri, version, diagnostics: own.map((d) => toDiagnostic(doc, d)) });
     return true;
   }
 

@@ -45,6 +45,11 @@ interface Frame {
   next: number;
 }
 
+/** A file's syntax problems as diagnostics (also what the language server publishes first on a large open). */
+export function reportSyntax(file: string, parsed: ParseResult, sink: DiagnosticSink): void {
+  for (const p of parsed.problems) sink.report('syntax', file, p.span, p.message);
+}
+
 /** Files in load order, the entry first. */
 export function loadWorkspace(entry: string, entryText: string, root: string, host: SourceHost, sink: DiagnosticSink, parseCache?: ParseCache): LoadedFile[] {
   const byReal = new Map<string, LoadedFile>();
@@ -60,7 +65,7 @@ export function loadWorkspace(entry: string, entryText: string, root: string, ho
     const loaded: LoadedFile = { path: file, text, parse: parsed, uses: [] };
     byReal.set(realFile, loaded);
     order.push(loaded);
-    for (const p of parsed.problems) sink.report('syntax', file, p.span, p.message);
+    reportSyntax(file, parsed, sink);
     return { loaded, real: realFile, next: 0 };
   };
 
