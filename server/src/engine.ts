@@ -305,10 +305,10 @@ export { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from './features/semanti
 export { documentSymbols, type OutlineSymbol, type SymbolKind } from './features/symbols';
 export { fixedNumber, formatSI, trimNumber } from './model/read-value';
 export { isInside } from './model/workspace';
-export { plotData, plotProblem, plotBlockers, type PlotData } from './plot/data';
+export { plotData, plotProblem, plotBlockers, CHART_KINDS, type ChartKind, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
 export { filterWords } from './analysis/dynamics';
-export { plotSpec, type ChartKind } from './plot/spec';
+export { plotSpec } from './plot/spec';
 export { CAUTION, CAUTION_PARAGRAPH, cautionFor, cautionParagraphFor, kindCautions } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';
 export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';
