@@ -13,7 +13,7 @@ import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel } from './model/resolve';
 import { type Resolution } from './model/block-reader';
-import { attachBenchData } from './model/bench-data';
+import { attachBenchData, benchDataPath } from './model/bench-data';
 import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './diagnostics/shown';
 
@@ -70,6 +70,7 @@ export function analyse(input: AnalyseInput): Analysis {
   // may change while the spec does not); an unchanged file gives the very same channel object.
   const host = input.host ?? NO_FILES;
   model.channels = model.channels.map((c) => attachBenchData(c, root, host, sink));
+  const dataFiles = [...new Set(model.channels.map(benchDataPath).filter((p): p is string => p !== null))];
   const channels: ChannelResult[] = [];
   const budgets: BudgetAllowance = { left: typeof input.errorBudget === 'number' ? Math.max(0, input.errorBudget) : input.errorBudget === false ? 0 : Infinity, pending: [] };
   for (const c of model.channels) {
@@ -83,7 +84,7 @@ export function analyse(input: AnalyseInput): Analysis {
   own?.end(files.slice(1).map((f) => f.path));
   reportUsedFileProblems(files, sink);
   const diagnostics = capPerFile(sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1)));
-  return { path: entry, files, model, channels, diagnostics, budgetsPending: budgets.pending };
+  return { path: entry, files, model, channels, diagnostics, budgetsPending: budgets.pending, dataFiles };
 }
 
 /** How many missing worst-case budgets an analysis may still compute, and the channels left without one. */
