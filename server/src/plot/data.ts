@@ -208,9 +208,10 @@ const DRAWABLE = 1e12;
 export function plotProblem(d: PlotData, chart: ChartKind): string | null {
   const ok = (a: number[]) => a.every((x) => Number.isFinite(x) && Math.abs(x) <= DRAWABLE);
   const t = d.transfer;
-  if (chart === 'residuals' || (chart === 'both' && d.residuals)) {
+  if (chart === 'residuals' || (chart === 'both' && d.residuals && d.residuals.points.length > 0)) {
     const r = d.residuals;
-    if (!r || r.points.length === 0) return `channel '${d.channel}' has no measured points that its sensor's model is fitted to (measured, bench_data): there are no residuals to draw`;
+    if (!r) return `channel '${d.channel}' has no measured points that its sensor's model is fitted to (measured, bench_data): there are no residuals to draw`;
+    if (r.points.length === 0) return `channel '${d.channel}': no measured point has a finite residual to draw; check the measured points against the range and the bias`;
     const p = r.points;
     if (!ok(p.map((x) => x.celsius)) || !ok(p.map((x) => x.residualK)) || !ok(p.map((x) => x.toleranceK)) || !ok(p.flatMap((x) => (x.leaveOneOutK === null ? [] : [x.leaveOneOutK])))) return `channel '${d.channel}': a residual leaves the drawable range (±${DRAWABLE} K); check the measured points`;
     if (chart === 'residuals') return null;

@@ -82,6 +82,15 @@ describe('residual data', () => {
     expect(plotProblem(d, 'residuals')).toBe("channel 'probe' has no measured points that its sensor's model is fitted to (measured, bench_data): there are no residuals to draw");
     expect(allMarks((plotSpec(d) as unknown as Spec).marks).some((m) => m.name === 'residual-panel')).toBe(false);
   });
+
+  it('points without a finite residual are left out and said; none left: `residuals` is refused, `both` draws the rest', () => {
+    const d = plotData(probe(), probe().budget);
+    const none = { ...d, residuals: { ...d.residuals!, points: [] } };
+    expect(plotProblem(none, 'residuals')).toBe("channel 'probe': no measured point has a finite residual to draw; check the measured points against the range and the bias");
+    expect(plotProblem(none, 'both')).toBeNull();
+    const huge = { ...d, residuals: { ...d.residuals!, points: d.residuals!.points.map((p, i) => (i === 0 ? { ...p, residualK: 1e13 } : p)) } };
+    expect(plotProblem(huge, 'residuals')).toMatch(/a residual leaves the drawable range/);
+  });
 });
 
 describe('residual chart spec', () => {
