@@ -5,6 +5,7 @@ import * as vscode from 'vscode';
 // ignores package `exports`, and a file path resolves the same under every setting and in esbuild.
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from '../../node_modules/vscode-languageclient/lib/node/main';
 import { registerInsertConversion } from './insert-conversion';
+import { registerDiskWatch } from './disk-watch';
 import { registerPlotPanel } from './plot-panel';
 import { registerRunBudget } from './run-budget';
 import { registerComparePanel } from './compare-panel';
@@ -27,6 +28,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     vscode.commands.registerCommand('thermoscribe.showServerLog', () => log?.show(true)),
   );
   registerInsertConversion(context, () => client);
+  registerDiskWatch(context, () => client);
   registerPlotPanel(context, () => client);
   registerRunBudget(context, () => client);
   registerComparePanel(context, () => client);

@@ -13,18 +13,8 @@ interface ChannelItem extends vscode.QuickPickItem {
 }
 
 export function registerInsertConversion(context: vscode.ExtensionContext, getClient: () => LanguageClient | undefined): void {
+  // Regenerated C files are reported to the server by the one disk watcher (disk-watch.ts).
   context.subscriptions.push(vscode.commands.registerCommand(COMMAND, () => insertConversion(getClient())));
-  // Regenerated C files change on disk without the server watching them: tell it, so a
-  // "generated code is out of date" warning clears (the server re-checks on watched-file changes).
-  const watcher = vscode.workspace.createFileSystemWatcher('**/*_conversion.c');
-  const notify = (uri: vscode.Uri, type: 1 | 2 | 3) => {
-    const c = getClient();
-    if (c?.isRunning()) void c.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: uri.toString(), type }] }).catch(() => undefined);
-  };
-  watcher.onDidCreate((u) => notify(u, 1));
-  watcher.onDidChange((u) => notify(u, 2));
-  watcher.onDidDelete((u) => notify(u, 3));
-  context.subscriptions.push(watcher);
 }
 
 async function insertConversion(client: LanguageClient | undefined): Promise<void> {

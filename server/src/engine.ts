@@ -14,7 +14,7 @@ import { loadWorkspace, reportSyntax, type LoadedFile, type SourceHost } from '.
 import type { ParseResult } from './syntax/ast';
 import { resolveModel } from './model/resolve';
 import { type Resolution } from './model/block-reader';
-import { attachBenchData } from './model/bench-data';
+import { attachBenchData, benchDataPath } from './model/bench-data';
 import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './diagnostics/shown';
 
@@ -71,6 +71,7 @@ export function analyse(input: AnalyseInput): Analysis {
   // may change while the spec does not); an unchanged file gives the very same channel object.
   const host = input.host ?? NO_FILES;
   model.channels = model.channels.map((c) => attachBenchData(c, root, host, sink));
+  const dataFiles = [...new Set(model.channels.map(benchDataPath).filter((p): p is string => p !== null))];
   const channels: ChannelResult[] = [];
   const budgets: BudgetAllowance = { left: typeof input.errorBudget === 'number' ? Math.max(0, input.errorBudget) : input.errorBudget === false ? 0 : Infinity, pending: [] };
   for (const c of model.channels) {
@@ -84,7 +85,7 @@ export function analyse(input: AnalyseInput): Analysis {
   own?.end(files.slice(1).map((f) => f.path));
   reportUsedFileProblems(files, sink);
   const diagnostics = capPerFile(sink.items.sort((a, b) => (a.file === b.file ? a.span.start - b.span.start : a.file < b.file ? -1 : 1)));
-  return { path: entry, files, model, channels, diagnostics, budgetsPending: budgets.pending };
+  return { path: entry, files, model, channels, diagnostics, budgetsPending: budgets.pending, dataFiles };
 }
 
 /**
@@ -291,7 +292,7 @@ export { type PairedDifference } from './budget/paired';
 export { type BudgetResult } from './analysis/budget-types';
 export { fitMeasured, OUTLIER_RULE, residualRows } from './calibration/fit';
 export { escapeControls, shown } from './diagnostics/shown';
-export { headerPathFor, generatableResults, conversionInput } from './codegen/channel-input';
+export { headerPathFor, generatableResults, conversionInput, secondInputOf } from './codegen/channel-input';
 export { boardTrims, trimsC, trimsCsv, trimsJson, type BoardReading, type TrimRun } from './codegen/board-trims';
 export { parseBenchCsv } from './model/bench-data';
 export { symbolClash } from './codegen/clash';
@@ -316,10 +317,10 @@ export { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from './features/semanti
 export { documentSymbols, type OutlineSymbol, type SymbolKind } from './features/symbols';
 export { fixedNumber, formatSI, trimNumber } from './model/read-value';
 export { isInside } from './model/workspace';
-export { plotData, plotProblem, plotBlockers, type PlotData } from './plot/data';
+export { plotData, plotProblem, plotBlockers, CHART_KINDS, type ChartKind, type PlotData } from './plot/data';
 export { renderSvg } from './plot/render';
-export { filterWords } from './analysis/dynamics';
-export { plotSpec, type ChartKind } from './plot/spec';
+export { channelDynamics, dynamicsLine, filterWords } from './analysis/dynamics';
+export { plotSpec } from './plot/spec';
 export { CAUTION, CAUTION_PARAGRAPH, cautionFor, cautionParagraphFor, kindCautions } from './report/caution';
 export { describeBias, describeSensor } from './report/describe';
 export { analysisJson, diagnosticJson, REPORT_VERSION } from './report/json';

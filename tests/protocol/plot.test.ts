@@ -100,3 +100,24 @@ describe('thermoscribe/plotData', () => {
     expect((await client.request<PlotAnswer>('thermoscribe/plotData', { uri, channel: 'soil' })).ok).toBe(true);
   });
 });
+
+describe('thermoscribe/plotData with stated dynamics (issue 16)', () => {
+  it('carries the step response and the ramp lag of the invented tank (tests/fixtures/dynamics/tank.tsense), and none for a channel without them', async () => {
+    const file = path.join(dir, 'tank.tsense');
+    fs.copyFileSync(path.join(ROOT, 'tests', 'fixtures', 'dynamics', 'tank.tsense'), file);
+    const tank = client.open(file);
+    await client.diagnostics(tank);
+    type Dyn = { label: string; step: { t: number[]; sensor: number[]; reading: number[]; stepK: number }; ramp: { readingLag: number[]; targetK: number } | null };
+    const r = await client.request<{ ok: boolean; data: { dynamics?: Dyn; cautions: string[] } }>('thermoscribe/plotData', { uri: tank, channel: 'tank' });
+    const d = r.data.dynamics!;
+    expect(d.step.stepK).toBe(20);
+    expect(d.step.reading).toHaveLength(d.step.t.length);
+    // The sensor alone follows 20·(1 − e^(−t/τ)) with the slowest τ = 8 s × 1.25 (Ogata, first-order unit-step response).
+    d.step.t.forEach((t, i) => expect(d.step.sensor[i]!).toBeCloseTo(20 * (1 - Math.exp(-t / 10)), 9));
+    expect(d.ramp!.targetK).toBe(0.5);
+    expect(r.data.cautions).toEqual([]);
+    const plain = await client.request<{ ok: boolean; data: { dynamics?: Dyn } }>('thermoscribe/plotData', { uri: tank, channel: 'tank_plain' });
+    expect(plain.data.dynamics).toBeUndefined();
+    client.close(tank);
+  });
+});

@@ -15,4 +15,6 @@ export interface Analysis {
   diagnostics: Diagnostic[];
   /** Channels whose worst-case budget an analysis with a budget allowance left to compute (`errorBudget` in engine.ts); their budget checks wait. */
   budgetsPending: ChannelResult[];
+  /** Data files the spec names besides the files it uses (each channel's `bench_data`), read or not: a change of one on disk calls for a new analysis. */
+  dataFiles: string[];
 }

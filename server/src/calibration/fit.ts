@@ -22,6 +22,8 @@ export interface FitResult {
   channel: ChannelDef;
   /** The fitted constants by name (a junction: IS, N). */
   parameters: Record<string, number>;
+  /** The constants of `used` by name: the same as `parameters` unless an outlier was left out. */
+  usedParameters: Record<string, number>;
   points: FitPoint[];
   rmsK: number;
   /** Largest residual a point may show before it is called an outlier, K. */

@@ -136,9 +136,16 @@ export function generatorInput(r: ChannelResult, specPath: string): ConversionIn
 }
 
 /** A channel converted from its ADC code alone; a channel of a two-input kind is refused (generatorInput takes it). */
+/** Why a channel is not converted from its ADC code alone (its kind converts with a second input, such as a cold junction's reading), or null. */
+export function secondInputOf(c: ChannelDef): string | null {
+  const kind = kindOf(c.sensor);
+  return kind.conversionInput ? `${kind.a} channel converts the ADC code with a second input (another channel's reading)` : null;
+}
+
 export function conversionInput(r: ChannelResult, specPath: string): ConversionInput {
   const c = r.channel;
-  if (kindOf(c.sensor).conversionInput) throw new CodegenInputError(c.name, 'sensor', `${kindOf(c.sensor).a} channel converts the ADC code with a second input; generate it with the others (generatorInput)`);
+  const second = secondInputOf(c);
+  if (second) throw new CodegenInputError(c.name, 'sensor', `${second}; it is generated together with the channels it reads`);
   const opts = c.codegen ?? CODE_DEFAULTS;
   // Measured points: convert with the model fitted to them (the nominal model when none).
   const model = fittedChannel(c);

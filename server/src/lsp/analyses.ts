@@ -2,7 +2,8 @@
 // when they drop it), its analysis at the current version (reused by every request on that version:
 // hover, completion, inlay hints...) and its parse at the current version (for the syntax-only
 // features: folding, outline, semantic tokens, which never wait for an analysis). An analysis is also
-// stale when a file it uses has changed (an open document's version, or a disk change notice).
+// stale when a file it uses or a data file it names (bench data) has changed (an open document's
+// version, or a disk change notice, workspace/didChangeWatchedFiles).
 // Closing the document drops all of it. An analysis here computes at most INLINE_BUDGETS missing
 // worst-case budgets (a keystroke changes one channel); on open the rest follow a few at a time
 // (lsp/diagnostics.ts), so the first diagnostics and every request in between need not wait for them.
@@ -46,6 +47,8 @@ export class AnalysisCache {
     const analysis = analyse({ path: p, text: doc.getText(), root: this.docs.rootFor(p), host: this.docs.host(), state: entry.state, errorBudget: complete ? true : INLINE_BUDGETS });
     const deps = new Map<string, number>();
     for (const f of analysis.files.slice(1)) deps.set(f.path, this.docs.byPath(f.path)?.version ?? -1);
+    // Bench data files are read from the disk (or an open document) like used files, so their changes count the same way.
+    for (const f of analysis.dataFiles) if (!deps.has(f)) deps.set(f, this.docs.byPath(f)?.version ?? -1);
     entry.analysed = { version: doc.version, deps, diskGeneration: this.diskGeneration, analysis };
     return analysis;
   }

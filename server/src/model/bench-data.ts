@@ -158,6 +158,11 @@ function parsedOf(text: string, bits: number, board: string | undefined): Parsed
   return p;
 }
 
+/** The absolute path a channel's `bench_data` names (relative to its spec file), or null when it names none. */
+export function benchDataPath(c: ChannelDef): string | null {
+  return c.benchData ? path.resolve(path.dirname(c.file), c.benchData.path) : null;
+}
+
 /** The last channel made from a definition and a file text: the same object again while neither changes. */
 const attached = new WeakMap<ChannelDef, { text: string; channel: ChannelDef }>();
 
@@ -168,11 +173,11 @@ const attached = new WeakMap<ChannelDef, { text: string; channel: ChannelDef }>(
  */
 export function attachBenchData(c: ChannelDef, root: string, host: SourceHost, sink: DiagnosticSink): ChannelDef {
   const ref = c.benchData;
-  if (!ref) return c;
+  const target = benchDataPath(c);
+  if (!ref || target === null) return c;
   const fileErr = (message: string) => sink.report('bench-data-file', c.file, ref.span, `bench_data '${shown(ref.path)}': ${message}`);
   const rootAbs = path.resolve(root);
   const rootName = shown(path.basename(rootAbs));
-  const target = path.resolve(path.dirname(c.file), ref.path);
   if (!isInside(rootAbs, target)) {
     fileErr(`leaves the workspace root (the folder '${rootName}'); keep bench data inside it`);
     return c;

@@ -3,6 +3,7 @@
 // (straight from the budget). Shared by the CLI (`plot`) and the language server (`thermoscribe/plotData`).
 // No drawing here: spec.ts turns this into chart specs.
 import type { ChannelResult } from '../analysis/types';
+import type { ChannelDef } from '../model/types';
 import type { BudgetResult, CalMode } from '../analysis/budget-types';
 import { describeSetting } from '../budget/describe';
 import { ZERO_CELSIUS_K } from '../physics/constants';
@@ -11,6 +12,10 @@ import { trimNumber } from '../diagnostics/numbers';
 import type { Analysis } from '../analysis/result';
 import type { Diagnostic } from '../diagnostics/diagnostic';
 import { LineIndex } from '../syntax/line-index';
+import { escapeControls } from '../diagnostics/shown';
+import { OUTLIER_RULE, residualRows, type ResidualRow } from '../calibration/fit';
+import { kindOf } from '../sensors/registry';
+import { kindCautions } from '../report/caution';
 
 export interface TransferSeries {
   celsius: number[];
@@ -79,6 +84,17 @@ export interface DynamicsSeries {
   } | null;
 }
 
+/** The measured points' residuals against the fitted model (calibration/fit.ts), with the outlier rule's limits. */
+export interface ResidualSeries {
+  /** The fitted model in words: the kind, the sensor, the constants, and what the budget and the generated code use. */
+  model: string;
+  /** The outlier rule, stated as in `report` and the hover. */
+  rule: string;
+  /** One per measured point, in the order of `measured` (spec points, then the bench data's rows). */
+  points: ResidualRow[];
+  rmsK: number;
+}
+
 export interface PlotData {
   channel: string;
   transfer: TransferSeries;
@@ -86,6 +102,10 @@ export interface PlotData {
   error: ErrorSeries | null;
   /** Null when the channel states no time constant (or lacks what its figures need). */
   dynamics?: DynamicsSeries | null;
+  /** Present when the channel has measured points that its kind fits (`measured`, `bench_data`). */
+  residuals?: ResidualSeries;
+  /** Safety lines of the channel's sensor kind (sensors/kind.ts `cautions`), shown under the plots with the general caution. */
+  cautions: string[];
   notes: string[];
 }
 
@@ -103,7 +123,28 @@ export function plotData(result: ChannelResult, budget: BudgetResult | null | un
     referenceVolts: c.adc.reference.value,
   };
   const dynamics = dynamicsSeries(result);
-  return { channel: c.name, transfer, error: budget ? errorSeries(budget, notes) : null, ...(dynamics ? { dynamics } : {}), notes };
+  const residuals = residualSeries(c, notes);
+  return {
+    channel: c.name, transfer, error: budget ? errorSeries(budget, notes) : null,
+    ...(dynamics ? { dynamics } : {}), ...(residuals ? { residuals } : {}),
+    cautions: kindCautions([c]), notes,
+  };
+}
+
+/** The measured points' residuals and the model they were fitted to; null without points its kind fits. */
+export function residualSeries(c: ChannelDef, notes: string[] = []): ResidualSeries | null {
+  const res = residualRows(c);
+  if (!res) return null;
+  const { fit, rows } = res;
+  // A point whose residual is not finite (a fit that failed there) is left out of the chart, said in the notes.
+  const points = rows.map((r) => ({ ...r, source: escapeControls(r.source) })).filter((r) => Number.isFinite(r.celsius) && Number.isFinite(r.residualK) && Number.isFinite(r.toleranceK) && (r.leaveOneOutK === null || Number.isFinite(r.leaveOneOutK)));
+  if (points.length < rows.length) notes.push(`${rows.length - points.length} measured points without a finite residual are left out of the residual chart.`);
+  const constants = (p: Record<string, number>) => Object.entries(p).map(([k, v]) => `${k} = ${trimNumber(v, 5)}`).join(', ');
+  const out = fit.outlier !== null ? rows[fit.outlier] : undefined;
+  const kind = kindOf(c.sensor);
+  const model = `${kind.name} model of '${c.sensor.name}' fitted to all ${rows.length} point${rows.length === 1 ? '' : 's'}: ${constants(fit.parameters)}` +
+    (out ? `; the budget and the generated code use it fitted without the outlier (${out.source}): ${constants(fit.usedParameters)}` : '; the budget and the generated code use this fit');
+  return { model, rule: OUTLIER_RULE, points, rmsK: fit.rmsK };
 }
 
 /** Points drawn per curve, at most. */
@@ -153,6 +194,10 @@ export function dynamicsSeries(result: ChannelResult): DynamicsSeries | null {
   return { label, step, ramp };
 }
 
+/** The charts `plot --chart` and the panel draw; `both`: every chart the channel's data has. */
+export const CHART_KINDS = ['both', 'transfer', 'error', 'dynamics', 'residuals'] as const;
+export type ChartKind = (typeof CHART_KINDS)[number];
+
 /** Beyond this magnitude a figure is not drawn (chart scales and labels stay readable and finite). */
 const DRAWABLE = 1e12;
 
@@ -160,9 +205,17 @@ const DRAWABLE = 1e12;
  * Why the data cannot be drawn as asked (fewer than two finite points, or a figure too large for a
  * chart), in the spec's words; null when it can. Checked before drawing, so nothing half-drawn is written.
  */
-export function plotProblem(d: PlotData, chart: 'both' | 'transfer' | 'error' | 'dynamics'): string | null {
+export function plotProblem(d: PlotData, chart: ChartKind): string | null {
   const ok = (a: number[]) => a.every((x) => Number.isFinite(x) && Math.abs(x) <= DRAWABLE);
   const t = d.transfer;
+  if (chart === 'residuals' || (chart === 'both' && d.residuals && d.residuals.points.length > 0)) {
+    const r = d.residuals;
+    if (!r) return `channel '${d.channel}' has no measured points that its sensor's model is fitted to (measured, bench_data): there are no residuals to draw`;
+    if (r.points.length === 0) return `channel '${d.channel}': no measured point has a finite residual to draw; check the measured points against the range and the bias`;
+    const p = r.points;
+    if (!ok(p.map((x) => x.celsius)) || !ok(p.map((x) => x.residualK)) || !ok(p.map((x) => x.toleranceK)) || !ok(p.flatMap((x) => (x.leaveOneOutK === null ? [] : [x.leaveOneOutK])))) return `channel '${d.channel}': a residual leaves the drawable range (±${DRAWABLE} K); check the measured points`;
+    if (chart === 'residuals') return null;
+  }
   if (chart === 'dynamics' || (chart === 'both' && d.dynamics)) {
     const y = d.dynamics;
     if (!y) return `channel '${d.channel}' states no time_constant (or its dynamics lack a field, see the problems list): there is no response to draw`;

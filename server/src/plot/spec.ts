@@ -6,11 +6,11 @@
 // strict content security policy (with vega-interpreter) as well as in Node.
 import { trimNumber } from '../diagnostics/numbers';
 import type { CalMode } from '../analysis/budget-types';
-import type { DynamicsSeries, ErrorSeries, ModeBand, PlotData } from './data';
+import type { ChartKind, DynamicsSeries, ErrorSeries, ModeBand, PlotData, ResidualSeries } from './data';
 import { NEUTRAL_THEME, type PlotTheme } from './theme';
 
-/** `both`: every chart the data has (transfer, error, and the response when the channel states its dynamics). */
-export type ChartKind = 'both' | 'transfer' | 'error' | 'dynamics';
+/** `both`: every chart the data has (transfer, error; the response when the channel states its dynamics; the residuals when it has measured points). */
+export type { ChartKind };
 export type VegaSpec = Record<string, unknown>;
 
 /** Series labels as they appear in the charts (tests look for them). */
@@ -27,6 +27,10 @@ export const LABELS = {
   reading: 'filtered reading',
   settleBand: 'within the accuracy',
   lagTarget: 'ramp_lag target',
+  residual: 'residual (fit to all points)',
+  othersFit: "others' fit (point left out)",
+  outlierLimit: 'outlier limit (± tolerance)',
+  outlier: 'outlier (left out of the fit used)',
 } as const;
 
 // Two lines: Vega measures text without a canvas in Node by a rough estimate, and one long line widens the SVG.
@@ -126,9 +130,29 @@ export function plotSpec(data: PlotData, o: SpecOptions = {}): VegaSpec {
     marks.push(textMark('No response figures: the channel states no time_constant, or its dynamics lack a field (see the problems list).', 0, y, theme, { name: 'no-dynamics' }));
     y += 30 + GAP;
   }
+  if ((chart === 'both' || chart === 'residuals') && data.residuals && data.residuals.points.length > 0) {
+    const r = data.residuals;
+    heading(`Channel ${data.channel}: residuals of the measured points`, `${capital(r.model)}; rms residual ${k3(r.rmsK)} K. Outliers: ${r.rule}.`);
+    const key = legendOf(y - PANEL_TITLE, W, [
+      { label: LABELS.residual, kind: 'symbol', colour: theme.volts, shape: 'circle', filled: true },
+      { label: LABELS.othersFit, kind: 'symbol', colour: theme.code, shape: 'circle', filled: false },
+      { label: LABELS.outlierLimit, kind: 'line', colour: theme.target, dash: [6, 4] },
+      ...(r.points.some((p) => p.outlier) ? [{ label: LABELS.outlier, kind: 'symbol' as const, colour: theme.target, shape: 'cross', filled: true }] : []),
+    ], theme, 'legend-residuals');
+    marks.push(key.mark);
+    y += 24 + (key.rows - 1) * LEGEND_ROW;
+    marks.push(residualPanel(r, y, W, theme, datasets));
+    y += H_ERROR + GAP;
+  } else if (chart === 'residuals') {
+    heading(`Channel ${data.channel}: residuals of the measured points`);
+    marks.push(textMark('No residuals: the channel has no measured points that its sensor\'s model is fitted to (measured, bench_data).', 0, y, theme, { name: 'no-residuals' }));
+    y += 30 + GAP;
+  }
+  // The general caution, then the sensor kind's own (a thermocouple's mains isolation, say).
   const caution = wrap(CAUTION.join(' '), W, theme.fontSize);
-  marks.push(textMark(caution.length <= CAUTION.length ? CAUTION : caution, 0, y - GAP + 40, theme, { fill: theme.muted, fontStyle: 'italic', name: 'caution' }));
-  y += 24 + Math.max(0, caution.length - CAUTION.length) * (theme.fontSize + 2);
+  const lines = [...(caution.length <= CAUTION.length ? CAUTION : caution), ...(data.cautions ?? []).flatMap((c) => wrap(c, W, theme.fontSize))];
+  marks.push(textMark(lines, 0, y - GAP + 40, theme, { fill: theme.muted, fontStyle: 'italic', name: 'caution' }));
+  y += 24 + Math.max(0, lines.length - CAUTION.length) * (theme.fontSize + 2);
 
   return {
     description: `Thermoscribe plots of channel ${data.channel}`,
@@ -215,7 +239,44 @@ function dynamicsPanels(d: DynamicsSeries, y: number, W: number, theme: PlotThem
   return out;
 }
 
-type LegendItem = { label: string; kind: 'band' | 'line'; colour: string; opacity?: number; dash?: number[] };
+/**
+ * The residual panel: each measured point's residual (the model fitted to all points) and its
+ * residual with the model fitted to the other points (what the outlier rule judges), against the
+ * rule's limits (± each point's tolerance, a step line through the points); the outlier as a cross.
+ */
+function residualPanel(r: ResidualSeries, y: number, W: number, theme: PlotTheme, datasets: VegaSpec[]): VegaSpec {
+  const pts = [...r.points].sort((a, b) => a.celsius - b.celsius);
+  const row = (p: ResidualSeries['points'][number]) => ({ t: r6(p.celsius), r: r6(p.residualK), tol: r6(p.toleranceK), code: p.code, outlier: p.outlier ? 1 : 0, source: p.source });
+  const xDomain = pad(extent(pts.map((p) => p.celsius)));
+  datasets.push({ name: 'residuals', values: pts.map(row) });
+  datasets.push({ name: 'residuals-others', values: pts.filter((p) => p.leaveOneOutK !== null).map((p) => ({ ...row(p), loo: r6(p.leaveOneOutK!) })) });
+  datasets.push({ name: 'residual-outliers', values: pts.filter((p) => p.outlier).map((p) => ({ ...row(p), loo: r6(p.leaveOneOutK ?? p.residualK) })) });
+  // The limits from edge to edge: each point's tolerance holds halfway to its neighbours.
+  const limits = [{ t: xDomain[0], tol: pts[0]!.toleranceK }, ...pts.map((p) => ({ t: p.celsius, tol: p.toleranceK })), { t: xDomain[1], tol: pts.at(-1)!.toleranceK }];
+  datasets.push({ name: 'residual-limits', values: limits.map((l) => ({ t: r6(l.t), hi: r6(l.tol), lo: r6(-l.tol) })) });
+  const symbol = (name: string, data: string, field: string, colour: string, filled: boolean, shape = 'circle', size = 40): VegaSpec => ({
+    type: 'symbol', name, from: { data },
+    encode: { enter: { x: { scale: 'x', field: 't' }, y: { scale: 'y', field }, shape: { value: shape }, size: { value: size }, strokeWidth: { value: 1.5 }, ...(filled ? { fill: { value: colour } } : { stroke: { value: colour }, fill: { value: 'transparent' } }) } },
+  });
+  const inner: VegaSpec[] = [
+    { type: 'rule', name: 'residual-zero', encode: { enter: { x: { value: 0 }, x2: { value: W }, y: { scale: 'y', value: 0 }, stroke: { value: theme.muted } } } },
+    lineMark('outlier-limit-high', 'residual-limits', 't', 'hi', theme.target, 1.5, 'step', [6, 4]),
+    lineMark('outlier-limit-low', 'residual-limits', 't', 'lo', theme.target, 1.5, 'step', [6, 4]),
+    symbol('residual-others', 'residuals-others', 'loo', theme.code, false),
+    symbol('residual-points', 'residuals', 'r', theme.volts, true),
+    symbol('residual-outlier', 'residual-outliers', 'loo', theme.target, true, 'cross', 140),
+    {
+      type: 'text', name: 'residual-outlier-label', from: { data: 'residual-outliers' },
+      encode: { enter: { x: { scale: 'x', field: 't' }, y: { scale: 'y', field: 'loo' }, dx: { value: 9 }, dy: { value: -9 }, text: { field: 'source' }, fill: { value: theme.target }, font: { value: theme.font }, fontSize: { value: theme.fontSize } } },
+    },
+  ];
+  const values = pts.flatMap((p) => [p.residualK, p.toleranceK, -p.toleranceK, ...(p.leaveOneOutK !== null ? [p.leaveOneOutK] : [])]);
+  const outliers = pts.filter((p) => p.outlier).length;
+  const title = `Residual per point, K: ${pts.length} point${pts.length === 1 ? '' : 's'}, ${outliers === 0 ? 'no outlier' : `${outliers} outlier`}`;
+  return panel('residual-panel', y, W, H_ERROR, title, xDomain, pad([Math.min(0, ...values), Math.max(0, ...values)]), 'residual, K', theme, inner);
+}
+
+type LegendItem = { label: string; kind: 'band' | 'line' | 'symbol'; colour: string; opacity?: number; dash?: number[]; shape?: string; filled?: boolean };
 
 /** A legend drawn as marks (swatch + label per series) above the error panels. */
 function legend(y: number, W: number, e: ErrorSeries, theme: PlotTheme): { mark: VegaSpec; rows: number } {
@@ -243,6 +304,8 @@ function legendOf(y: number, W: number, items: LegendItem[], theme: PlotTheme, n
     const r = row * LEGEND_ROW;
     marks.push(it.kind === 'band'
       ? { type: 'rect', encode: { enter: { x: { value: x }, y: { value: r + 2 }, width: { value: 16 }, height: { value: 10 }, fill: { value: it.colour }, fillOpacity: { value: Math.min(1, (it.opacity ?? 1) * 2) } } } }
+      : it.kind === 'symbol'
+      ? { type: 'symbol', encode: { enter: { x: { value: x + 8 }, y: { value: r + 7 }, shape: { value: it.shape ?? 'circle' }, size: { value: it.shape === 'cross' ? 90 : 40 }, strokeWidth: { value: 1.5 }, ...(it.filled ? { fill: { value: it.colour } } : { stroke: { value: it.colour }, fill: { value: 'transparent' } }) } } }
       : { type: 'rule', encode: { enter: { x: { value: x }, x2: { value: x + 16 }, y: { value: r + 7 }, stroke: { value: it.colour }, strokeWidth: { value: 2 }, ...(it.dash ? { strokeDash: { value: it.dash } } : {}) } } });
     marks.push(textMark(it.label, x + 21, r + 1, theme, { name: `legend-${marks.length}` }));
     x += w;

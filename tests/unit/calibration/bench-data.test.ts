@@ -12,7 +12,8 @@ import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { analyse, DocumentState, type Analysis } from '../../../server/src/engine';
 import { DiskHost } from '../../../server/src/cli/io';
-import { fitMeasured, fittedChannel } from '../../../server/src/calibration/fit';
+import { fitMeasured, fittedChannel, OUTLIER_RULE } from '../../../server/src/calibration/fit';
+import { runBudget } from '../../../server/src/cli/commands/budget';
 import { makeFrame } from '../../../server/src/budget/frame';
 import { conversionInput } from '../../../server/src/codegen/channel-input';
 import { hover } from '../../../server/src/features/hover';
@@ -91,6 +92,19 @@ describe('bench data: the rows are the channel\'s measured points', () => {
     expect(text).toMatch(/Measured points \(bench data 'bench\/good\.csv': 9 rows, 0 left out\)/);
     expect(text).toMatch(/row 10, board P1 +5\.00 +2026 +[0-9.]+ +0\.956 +0\.500 +outlier/);
     expect(text.match(/^row \d+, board P1/gm)!.length).toBe(9);
+    // The outlier rule is stated beside the table (issue 16: "flags outliers by a stated rule").
+    expect(text).toContain(`  outliers: ${OUTLIER_RULE}.`);
+  });
+
+  it('budget lists the same residual table with the rule', async () => {
+    let printed = '';
+    let errors = '';
+    const io = { out: (t: string) => void (printed += t), err: (t: string) => void (errors += t), cwd: DIR };
+    const code = await runBudget([SPEC, '--channel', 'probe', '--runs', '200', '--root', DIR], io);
+    expect(errors).not.toMatch(/error/);
+    expect(code).toBe(0);
+    expect(printed).toMatch(/row 10, board P1 +5\.00 +2026 +[0-9.]+ +0\.956 +0\.500 +outlier/);
+    expect(printed).toContain(`  outliers: ${OUTLIER_RULE}.`);
   });
 
   it('never writes the file', () => {

@@ -9,7 +9,8 @@ import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { analyse } from '../../../server/src/engine';
+import { analyse, cautionFor } from '../../../server/src/engine';
+import { ROOT } from '../../protocol/client';
 import { DiskHost, type CliIO } from '../../../server/src/cli/io';
 import { runTrimBoards } from '../../../server/src/cli/commands/trim-boards';
 import { makeFrame, boardErrors } from '../../../server/src/budget/frame';
@@ -194,5 +195,28 @@ describe('trim-boards refuses what it cannot use', () => {
     expect(r.code).toBe(0);
     expect(r.io.stdout).toMatch(/Board trims for probe \(one-point; probe_set_trim/);
     expect(r.io.stdout).toMatch(/safety|licensed|standards/i);
+  });
+  it('every format carries the caution of the channel (the general one and its kind\'s, report/caution.ts cautionFor)', () => {
+    const spec = SPEC('one point at -10 °C');
+    fs.writeFileSync(path.join(tmp, 'p.tsense'), spec);
+    const a = analyse({ path: path.join(tmp, 'p.tsense'), text: spec, root: tmp, host: new DiskHost() });
+    const caution = cautionFor([a.channels[0]!.channel]);
+    const csv = 'board,temperature_c,code\nC,-10,2141\n';
+    expect(go(spec, csv).io.stdout.trimEnd().endsWith(caution)).toBe(true);
+    expect(JSON.parse(go(spec, csv, ['--format', 'json']).io.stdout).caution).toBe(caution);
+    expect(go(spec, csv, ['--format', 'csv']).io.stdout.split('\n')[0]).toBe(`# ${caution.replace(/\s*\n\s*/g, ' ')}`);
+    const c = go(spec, csv, ['--format', 'c']).io.stdout;
+    for (const line of caution.split('\n')) expect(c).toContain(` * ${line}`);
+  });
+  it('a channel converted with a second input (a thermocouple: its cold junction) is refused with exit 2 and the reason', () => {
+    // The invented kiln sample (checks clean); refused before its calibration is looked at.
+    fs.copyFileSync(path.join(ROOT, 'samples', 'kiln.tsense'), path.join(tmp, 'kiln.tsense'));
+    fs.writeFileSync(path.join(tmp, 'k.csv'), 'board,temperature_c,code\nK1,500,2000\n');
+    const io = capture();
+    io.cwd = tmp;
+    const code = runTrimBoards(['kiln.tsense', '--channel', 'chamber_tc_k', '--readings', 'k.csv'], io) as number;
+    expect(code).toBe(2);
+    expect(io.stderr).toContain("channel 'chamber_tc_k': a thermocouple channel converts the ADC code with a second input (another channel's reading); trim-boards trims channels converted from their ADC code alone");
+    expect(io.stdout).toBe('');
   });
 });

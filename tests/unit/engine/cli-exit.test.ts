@@ -136,7 +136,7 @@ describe('options are checked against each verb\'s table (#17 item 7)', () => {
   it('main keeps 2 for an unknown verb and prints usage lines made from the option tables', () => {
     let err = '';
     expect(main(['frobnicate'], { out: () => undefined, err: (t) => (err += t), cwd: dir })).toBe(2);
-    expect(err).toContain('thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error|dynamics] [--runs N] [--seed S] [--root DIR]');
+    expect(err).toContain('thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error|dynamics|residuals] [--runs N] [--seed S] [--root DIR]');
   });
 });
 

@@ -12,6 +12,7 @@ import { plotData, plotProblem } from '../../../server/src/plot/data';
 import { LABELS, plotSpec } from '../../../server/src/plot/spec';
 import { renderSvg } from '../../../server/src/plot/render';
 import { channelHover } from '../../../server/src/features/hover';
+import { channelReport } from '../../../server/src/cli/commands/report';
 import { channelDynamics, stepRemainder } from '../../../server/src/analysis/dynamics';
 import { CLI, ensureBuilt, ROOT } from '../../protocol/client';
 
@@ -69,6 +70,14 @@ describe('channel hover', () => {
     const line = h.split('\n\n').find((l) => l.startsWith('Response'))!;
     expect(line).toMatch(/^Response \(time constant 10 s at its slowest, sampled every 0\.1 s\): lag \*\*[0-9.]+ K\*\* at 2 K\/min \(ramp_lag 0\.5 K\); within ±0\.5 K \*\*[0-9.]+ s\*\* after a 20 K step \(settling 60 s\); filter: /);
     expect(channelHover(result('tank_plain'))).not.toContain('Response');
+  });
+});
+
+describe('thermoscribe report', () => {
+  it('states the same response line (lag at the ramp, settling, filter) as the hover, in plain text', () => {
+    const line = channelHover(result('tank')).split('\n\n').find((l) => l.startsWith('Response'))!;
+    expect(channelReport(result('tank'), true)).toContain(`  ${line.replace(/\*\*/g, '')}`);
+    expect(channelReport(result('tank_plain'), true)).not.toContain('Response');
   });
 });
 

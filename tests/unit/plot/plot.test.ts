@@ -205,7 +205,7 @@ describe('thermoscribe plot', () => {
     expect(r.status).toBe(2);
     expect(r.stderr).toContain("no channel named 'roof'; channels: bench_air, soil, heat_mat, canopy");
     expect(cli(SAMPLE, '--channel', 'soil').status).toBe(2);
-    expect(cli(SAMPLE, '--channel', 'soil', '--out', path.join(dir, 'y.svg'), '--chart', 'pie').stderr).toContain("--chart takes both, transfer, error or dynamics (got 'pie')");
+    expect(cli(SAMPLE, '--channel', 'soil', '--out', path.join(dir, 'y.svg'), '--chart', 'pie').stderr).toContain("--chart takes both, transfer, error, dynamics or residuals (got 'pie')");
     expect(cli(SAMPLE, '--channel', 'soil', '--out', path.join(dir, 'y.svg'), '--runs', '-1').status).toBe(2);
     expect(cli(path.join(dir, 'missing.tsense'), '--channel', 'soil', '--out', path.join(dir, 'y.svg')).status).toBe(2);
     expect(fs.existsSync(path.join(dir, 'x.svg'))).toBe(false);

@@ -1,19 +1,18 @@
-// thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error|dynamics] [--runs N] [--seed S] [--root DIR]
+// thermoscribe plot FILE --channel NAME --out FILE.svg [--chart both|transfer|error|dynamics|residuals] [--runs N] [--seed S] [--root DIR]
 // Writes one channel's charts as an SVG file (atomically): the transfer curve, the error against
 // temperature per calibration mode, and (when the channel states its dynamics) the step response
-// and the ramp lag with the chosen firmware filter. Exit status: the one rule of cli/verb.ts (a failed drawing or write is 1).
+// and the ramp lag with the chosen firmware filter, and (when it has measured points) their
+// residuals against the fitted model with the outlier rule's limits. Exit status: the one rule of cli/verb.ts (a failed drawing or write is 1).
 import * as path from 'node:path';
 import { DiskHost } from '../io';
 import { writeFilesTogether } from '../write-files';
 import { defineVerb, ROOT_OPTION, RUNS_OPTION, SEED_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { analyseOne } from './check';
 import { channelBudgetAsync } from '../../engine';
-import { plotData, plotProblem } from '../../engine';
-import { plotSpec, type ChartKind } from '../../engine';
+import { CHART_KINDS, plotData, plotProblem, type ChartKind } from '../../engine';
+import { plotSpec } from '../../engine';
 import { renderSvg } from '../../engine';
 import type { Analysis, Diagnostic } from '../../engine';
-
-const CHARTS: readonly ChartKind[] = ['both', 'transfer', 'error', 'dynamics'];
 
 export const PLOT: VerbSpec = {
   name: 'plot',
@@ -21,7 +20,7 @@ export const PLOT: VerbSpec = {
   options: {
     channel: { kind: 'name', meta: 'NAME', required: true },
     out: { kind: 'output', meta: 'FILE.svg', required: true },
-    chart: { kind: 'choice', values: CHARTS },
+    chart: { kind: 'choice', values: CHART_KINDS },
     runs: RUNS_OPTION,
     seed: SEED_OPTION,
     root: ROOT_OPTION,
@@ -77,7 +76,10 @@ export const runPlot = defineVerb(PLOT, async (args, io): Promise<Outcome> => {
   }
   const failed = writeFilesTogether([{ file: outAbs, text: svg.endsWith('\n') ? svg : svg + '\n' }]);
   if (failed) return { ...spec, failed: `cannot write ${out}: ${failed}` };
-  io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${chart === 'both' ? `transfer curve and error budget${data.dynamics ? ' and response' : ''}` : chart === 'transfer' ? 'transfer curve' : chart === 'dynamics' ? 'step response and ramp lag' : 'error budget'} of channel ${channel})\n`);
+  const drawn = chart === 'both'
+    ? ['transfer curve', 'error budget', ...(data.dynamics ? ['response'] : []), ...(data.residuals ? ['residuals'] : [])]
+    : [{ transfer: 'transfer curve', error: 'error budget', dynamics: 'step response and ramp lag', residuals: 'residuals of the measured points' }[chart]];
+  io.out(`wrote ${path.relative(io.cwd, outAbs) || outAbs} (${drawn.slice(0, -1).join(', ')}${drawn.length > 1 ? ' and ' : ''}${drawn.at(-1)} of channel ${channel})\n`);
   return spec;
 });
 

@@ -1,6 +1,6 @@
 // thermoscribe report FILE [--channel NAME] [--root DIR] [--brief]: each channel's summary and its
 // sweep as a table (`--brief`: the summary only).
-import { describeFaults, sensorFaults } from '../../engine';
+import { channelDynamics, describeFaults, dynamicsLine, sensorFaults } from '../../engine';
 import { DiskHost } from '../io';
 import { CHANNEL_OPTION, defineVerb, ROOT_OPTION, shown, usageLine, type VerbSpec } from '../verb';
 import { formatDiagnostic, table } from '../text';
@@ -46,6 +46,7 @@ export function channelReport(r: ChannelResult, brief = false): string {
     `  worst resolution ${trimNumber(s.worst.celsiusPerCount, 3)} °C/count (${trimNumber(s.worst.countsPerKelvin, 3)} counts/K) at ${trimNumber(s.worst.celsius, 4)} °C`,
     `  self-heating up to ${trimNumber(s.selfHeatingMaxK * 1000, 3)} mK; straight-line error: end-point ${trimNumber(s.nonlinearity.endPointK, 3)} K, best fit ${trimNumber(s.nonlinearity.bestFitK, 3)} K`,
     ...describeFaults(sensorFaults(c, s.codeMin, s.codeMax)).map((l) => `  fault: ${l}`),
+    ...responseLines(r),
     '',
   ];
   if (brief) return head.join('\n').trimEnd();
@@ -60,4 +61,10 @@ export function channelReport(r: ChannelResult, brief = false): string {
     fixedNumber(p.selfHeatingK * 1000, 3),
   ]);
   return head.join('\n') + table(['°C', 'mV', 'µA', 'code', 'mV/K', 'counts/K', '°C/count', 'heat mK'], rows) + residualReport(r.channel);
+}
+
+/** The channel's response (lag at the stated ramp, settling after a step, the chosen filter) when it states its dynamics: the hover's line, in plain text. */
+function responseLines(r: ChannelResult): string[] {
+  const d = channelDynamics(r);
+  return d ? [`  ${dynamicsLine(d).replace(/\*\*/g, '')}`] : [];
 }

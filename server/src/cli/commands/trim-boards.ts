@@ -7,7 +7,7 @@
 // (codegen/board-trims.ts). Output: a text report (default), CSV, JSON or a C initialiser.
 // Exit status by the one rule of cli/verb.ts: 1 also when any board is suspect.
 import * as path from 'node:path';
-import { boardTrims, CAUTION, conversionInput, parseBenchCsv, trimsC, trimsCsv, trimsJson, trimNumber, type BoardReading, type TrimRun } from '../../engine';
+import { boardTrims, cautionFor, conversionInput, parseBenchCsv, secondInputOf, trimsC, trimsCsv, trimsJson, trimNumber, type BoardReading, type TrimRun } from '../../engine';
 import { DiskHost } from '../io';
 import { defineVerb, ROOT_OPTION, shown, usageLine, type Outcome, type VerbSpec } from '../verb';
 import { table } from '../text';
@@ -39,6 +39,8 @@ export const runTrimBoards = defineVerb(TRIM_BOARDS, (args, io): Outcome => {
   const errors = a.diagnostics.filter((d) => d.severity === 'error');
   if (errors.length) return { diagnostics: a.diagnostics, unprinted: host, failed: `the spec has ${errors.length} error${errors.length === 1 ? '' : 's'}; fix them before trimming boards` };
   const c = r.channel;
+  const second = secondInputOf(c);
+  if (second) return { unusable: `channel ${shown(name)}: ${second}; trim-boards trims channels converted from their ADC code alone` };
   if (!c.calibration || c.calibration.mode === 'none') return { unusable: `channel ${shown(name)} states no calibration, so its generated code has no trims to set; add e.g. \`calibration = one point at 25 °C\`` };
   const budget = r.worstCaseBudget;
   if (!budget) return { failed: `channel ${shown(name)}: the error budget could not be worked out (see the diagnostics)`, diagnostics: a.diagnostics };
@@ -64,10 +66,12 @@ export const runTrimBoards = defineVerb(TRIM_BOARDS, (args, io): Outcome => {
     return { failed: `channel ${shown(name)}: ${err instanceof Error ? err.message : String(err)}`, diagnostics: a.diagnostics };
   }
   const format = args.text('format');
-  if (format === 'csv') io.out(trimsCsv(run, CAUTION));
-  else if (format === 'json') io.out(trimsJson(run, name, CAUTION));
-  else if (format === 'c') io.out(trimsC(run, CAUTION));
-  else io.out(trimsText(run, name) + '\n' + CAUTION + '\n');
+  // The general caution and the sensor kind's own, as report, budget, compare and plot carry them.
+  const caution = cautionFor([c]);
+  if (format === 'csv') io.out(trimsCsv(run, caution));
+  else if (format === 'json') io.out(trimsJson(run, name, caution));
+  else if (format === 'c') io.out(trimsC(run, caution));
+  else io.out(trimsText(run, name) + '\n' + caution + '\n');
   const suspect = run.trims.filter((t) => t.status === 'suspect').length;
   return { diagnostics: a.diagnostics, ...(suspect ? { failed: `${suspect} of ${run.trims.length} boards are suspect and were not trimmed` } : {}) };
 });

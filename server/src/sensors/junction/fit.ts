@@ -147,18 +147,25 @@ export function fitJunction(c: ChannelDef): FitResult | null {
     });
     if (worst >= 0) outlier = worst;
   }
-  const s = all.channel.sensor as JunctionDef;
   // The outlier is left out of the fit that the firmware and the budget use.
   let used = all.channel;
+  let usedNames = names;
   if (outlier !== null) {
     const rest = pts.filter((_, i) => i !== outlier);
-    const refit = fitOn(c, rest, paramsFor(c, rest.length));
+    usedNames = paramsFor(c, rest.length);
+    const refit = fitOn(c, rest, usedNames);
     if (refit) used = refit.channel;
+    else usedNames = names;
   }
+  const constants = (ch: ChannelDef, fitted: Param[]) => {
+    const p = (ch.sensor as JunctionDef).params;
+    return { ...(fitted.includes('lnIS') ? { IS: p.IS } : {}), N: p.N };
+  };
   return {
     used,
     channel: all.channel,
-    parameters: { ...(names.includes('lnIS') ? { IS: s.params.IS } : {}), N: s.params.N },
+    parameters: constants(all.channel, names),
+    usedParameters: constants(used, usedNames),
     points,
     rmsK,
     toleranceK,
