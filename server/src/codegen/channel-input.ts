@@ -129,10 +129,12 @@ function codeOptions(c: ChannelDef) {
 export function generatorInput(r: ChannelResult, specPath: string): ConversionInput | CompensatedInput {
   const c = r.channel;
   const kind = kindOf(c.sensor);
+  // The kind's safety cautions go into the generated block's comment, as under its reports.
+  const cautions = kind.cautions?.length ? { cautions: kind.cautions } : {};
   if (kind.conversionInput) {
-    return kind.conversionInput(r, { specHash: channelSpecHash(c), notes: [`Channel ${c.name} of ${path.basename(specPath)}.`], options: codeOptions });
+    return { ...kind.conversionInput(r, { specHash: channelSpecHash(c), notes: [`Channel ${c.name} of ${path.basename(specPath)}.`], options: codeOptions }), ...cautions };
   }
-  return conversionInput(r, specPath);
+  return { ...conversionInput(r, specPath), ...cautions };
 }
 
 /** A channel converted from its ADC code alone; a channel of a two-input kind is refused (generatorInput takes it). */

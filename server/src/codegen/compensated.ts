@@ -16,7 +16,7 @@
 // Nothing here knows which sensor it is: the sensor kind supplies q, r and the inverse.
 
 import { INT32_MAX, asr, fitsInt32 } from './arith';
-import { CAUTION_LINES, SHARED_IMPL, SHARED_STATUS, dataCode, kernelCode, lit32, names, roundFraction, type ChannelPlan } from './emit';
+import { CAUTION_LINES, SHARED_IMPL, cautionLines, SHARED_STATUS, dataCode, kernelCode, lit32, names, roundFraction, type ChannelPlan } from './emit';
 import { commentLines } from './names';
 import { kernelAt, planOne } from './design';
 import { rounded, type Samples } from './samples';
@@ -64,6 +64,7 @@ export interface CompensatedPlan {
   qUnit: string;
   describe: string[];
   note?: string;
+  cautions?: readonly string[];
   /** Estimated linked bytes, 8-bit AVR and Cortex-M0 (the two designed parts plus the combining code, about 120 bytes on the AVR; measured by the bench, not fitted). */
   bytes: number;
   bytesM0: number;
@@ -314,6 +315,7 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
         qUnit: c.qUnit,
         describe: r.describe,
         ...(c.note !== undefined ? { note: c.note } : {}),
+        ...(c.cautions?.length ? { cautions: c.cautions } : {}),
         bytes: refOne.bytes + hotOne.bytes + 120,
         bytesM0: refOne.bytesM0 + hotOne.bytesM0 + 120,
       };
@@ -368,7 +370,7 @@ function headComment(p: CompensatedPlan): string {
     lines.push('Note from the spec:');
     for (const l of commentLines(p.note)) lines.push(`  ${l}`);
   }
-  lines.push('Caution: verify against a calibrated reference thermometer; see the file header.');
+  lines.push(...cautionLines(p.cautions));
   return `/*\n${lines.map((l) => (l ? ` * ${l}` : ' *')).join('\n')}\n */`;
 }
 

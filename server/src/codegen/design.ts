@@ -423,6 +423,7 @@ export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan;
       ...(c.method === 'line' ? { line: true } : {}),
       ...(c.filter ? { filter: c.filter, ...(c.samplePeriodS !== undefined ? { samplePeriodS: c.samplePeriodS } : {}) } : {}),
       note: c.note,
+      ...(c.cautions?.length ? { cautions: c.cautions } : {}),
     };
     const extra = { faultSides: (c.faultBelow !== undefined ? 1 : 0) + (c.faultAbove !== undefined ? 1 : 0), out32: outBits === 32, floatVariant: c.floatVariant };
     // The estimate gen prints is of everything generated for the channel: the filter too.

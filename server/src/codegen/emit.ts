@@ -3,6 +3,7 @@
 
 import { GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, type TrimDesign } from './calibration';
 import { commentLines } from './names';
+import { wrap } from '../report/caution';
 import { filterDeclarations, filterDefinitions, type CodeFilter } from './filter';
 import type { PolyDesign } from './polynomial';
 import type { TableDesign } from './table';
@@ -47,6 +48,7 @@ export interface ChannelPlan {
   filter?: CodeFilter;
   samplePeriodS?: number;
   note?: string;
+  cautions?: readonly string[];
 }
 
 export const SHARED_STATUS = `#ifndef THSC_STATUS_CODES
@@ -162,6 +164,13 @@ export const CAUTION_LINES = [
   'applicable safety standards, local codes and licensed engineering practice.',
 ];
 
+/** A block comment's closing cautions: the general one, then the sensor kind's own (mains isolation, say). */
+export function cautionLines(kindCautions: readonly string[] | undefined): string[] {
+  const out = ['Caution: verify against a calibrated reference thermometer; see the file header.'];
+  for (const c of kindCautions ?? []) out.push(...commentLines(wrap(c, 92), 12));
+  return out;
+}
+
 export function lit32(v: number): string {
   return v === -2147483648 ? '(-2147483647L - 1)' : `${v}L`;
 }
@@ -276,7 +285,7 @@ function headComment(p: ChannelPlan): string {
     lines.push('Note from the spec:');
     for (const l of commentLines(p.note)) lines.push(`  ${l}`);
   }
-  lines.push('Caution: verify against a calibrated reference thermometer; see the file header.');
+  lines.push(...cautionLines(p.cautions));
   return `/*\n${lines.map((l) => (l ? ` * ${l}` : ' *')).join('\n')}\n */`;
 }
 

@@ -51,6 +51,8 @@ export interface ConversionInput {
   specHash: string;
   /** Free text from the spec, written into a comment after sanitising. */
   note?: string;
+  /** The sensor kind's safety cautions (sensors/kind.ts `cautions`), written into the block's comment. */
+  cautions?: readonly string[];
   /** Put before every identifier of this channel (the spec's `code_prefix`); wins over GenerateOptions.prefix. */
   prefix?: string;
   /** A firmware filter to emit beside the conversion (codegen/filter.ts); absent: none. */

@@ -31,7 +31,8 @@ export function cautionFor(channels: readonly ChannelDef[]): string {
   return [CAUTION, ...kindCautions(channels).map((l) => wrap(l, 98))].join('\n');
 }
 
-function wrap(text: string, width: number): string {
+/** Breaks text between words into lines of at most `width` characters (a longer word keeps its own line). */
+export function wrap(text: string, width: number): string {
   const lines: string[] = [];
   let line = '';
   for (const word of text.split(' ')) {

@@ -64,6 +64,8 @@ export interface CompensatedInput {
   optimise?: 'size' | 'speed' | 'balanced';
   specHash: string;
   note?: string;
+  /** The sensor kind's safety cautions, written into the block's comment. */
+  cautions?: readonly string[];
 }
 
 /** Thrown by generateC for input outside the documented ranges; `field` names the offending input. */

@@ -240,4 +240,16 @@ describe('thermocouple block, cautions and code generation', () => {
     expect(generatableResults(a.channels, a.diagnostics).map((r) => r.channel.name)).toEqual(['board', 'hot']);
     expect(tooWideMessage(a.channels.find((r) => r.channel.name === 'hot')!.channel)).toBeNull();
   });
+
+  it("writes the kind's cautions into its generated block's comment, and only into its own", async () => {
+    const { generatorInput } = await import('../../../server/src/codegen/channel-input');
+    const { generateC } = await import('../../../server/src/codegen/generate');
+    const a = analyseText(spec(HOT));
+    const order = ['board', 'hot'].map((n) => a.channels.find((r) => r.channel.name === n)!);
+    const out = generateC(order.map((r) => generatorInput(r, 'hot.tsense')), { fileStem: 'hot_conversion' });
+    const [board, hot] = out.channels.map((ch) => ch.code);
+    expect(hot).toMatch(/Caution \(thermocouple\): a thermocouple in a furnace, kiln or heater may touch live heating\n \* elements/);
+    expect(hot).toMatch(/independent over-temperature cut-out/);
+    expect(board).not.toMatch(/Caution \(thermocouple\)/);
+  });
 });
