@@ -7,6 +7,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import TOOLCHAIN_TESTS from '../../toolchain-tests.json';
+import LONG_TESTS from '../../long-tests.json';
 
 const ROOT = path.resolve(__dirname, '../../..');
 const TOOLCHAIN = path.join(ROOT, 'tests', 'fixtures', 'codegen', 'toolchain.ts');
@@ -48,8 +49,8 @@ describe('the fast and slow parts of the suite', () => {
   const files = [...testFiles(path.join(ROOT, 'tests', 'unit')), ...testFiles(path.join(ROOT, 'tests', 'protocol'))];
   const rel = (p: string) => path.relative(ROOT, p).split(path.sep).join('/');
 
-  it('every file of the slow list exists', () => {
-    for (const f of TOOLCHAIN_TESTS) expect(fs.existsSync(path.join(ROOT, f)), f).toBe(true);
+  it('every file of the slow list, and of the longest-first list (tests/long-tests.json, vitest.config.mts), exists', () => {
+    for (const f of [...TOOLCHAIN_TESTS, ...LONG_TESTS]) expect(fs.existsSync(path.join(ROOT, f)), f).toBe(true);
   });
 
   it('a test file is in the slow list exactly when it starts a C toolchain or a browser', () => {
