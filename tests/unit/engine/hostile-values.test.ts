@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { analyse } from '../../../server/src/engine';
 import { fixedNumber, formatSI, trimNumber } from '../../../server/src/model/read-value';
 import { allBlocks } from '../../../server/src/model/schema';
-import { CHANNEL_SLOTS, EXTREMES, GARBAGE, SENSOR_SLOTS, SLOTS, checkEachAlone, outputs, shownFigures, spec } from '../helpers/extreme-values';
+import { EXTREMES, FIRST_SLOTS, GARBAGE, OTHER_SLOTS, SLOTS, checkEachAlone, outputs, shownFigures, spec } from '../helpers/extreme-values';
 
 describe('extreme values in every numeric field', () => {
   it('the one figure formatter never shows NaN, Infinity or -0', () => {
@@ -36,13 +36,13 @@ describe('extreme values in every numeric field', () => {
   });
 
   it('each extreme in each slot alone, the two groups together cover every slot once', () => {
-    expect([...SENSOR_SLOTS, ...CHANNEL_SLOTS]).toEqual(Object.keys(SLOTS));
-    expect(SENSOR_SLOTS).toContain('cvdb');
-    expect(CHANNEL_SLOTS).toContain('bits');
+    expect([...FIRST_SLOTS, ...OTHER_SLOTS]).toEqual(Object.keys(SLOTS));
+    expect(FIRST_SLOTS).toContain('beta');
+    expect(OTHER_SLOTS).toContain('r0');
   });
 
-  it('each extreme in each sensor slot alone: an error diagnostic or sound figures, never garbage (the other slots: hostile-values-alone.test.ts)', () => {
-    checkEachAlone(SENSOR_SLOTS);
+  it('each extreme in each junction and thermistor slot alone: an error diagnostic or sound figures, never garbage (the other slots: hostile-values-alone.test.ts)', () => {
+    checkEachAlone(FIRST_SLOTS);
   }, 600_000);
 
   it('extremes in several slots at once (fast-check, 40 specs)', () => {
