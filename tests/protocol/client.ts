@@ -36,9 +36,10 @@ export function ensureBuilt(): void {
       fs.mkdirSync(lock);
       break;
     } catch {
-      // Another test file is building: wait for it (bounded by the lock's age).
+      // Another test file is building: wait for it (bounded by the lock's age: a build takes seconds,
+      // so a lock ten minutes old was left by a killed run, never by a slow one on a busy machine).
       const age = Date.now() - (fs.existsSync(lock) ? fs.statSync(lock).mtimeMs : 0);
-      if (age > 120_000) fs.rmSync(lock, { recursive: true, force: true });
+      if (age > 10 * 60_000) fs.rmSync(lock, { recursive: true, force: true });
       Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 100);
       if (fs.existsSync(CLI) && fs.statSync(CLI).mtimeMs >= newest && !fs.existsSync(lock)) return;
     }

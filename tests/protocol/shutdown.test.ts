@@ -12,11 +12,11 @@ let client: TestClient;
 beforeAll(async () => {
   ensureBuilt();
   client = await TestClient.start({ rootDir: FIX, settings: { debounceMs: 20 } });
-}, 120_000);
+});
 afterAll(async () => {
   await client.stop();
   expect(client.exited).toBe(0);
-}, 120_000);
+});
 
 describe('after shutdown', () => {
   it('refuses requests with InvalidRequest and publishes no more diagnostics', async () => {

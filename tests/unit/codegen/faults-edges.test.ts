@@ -46,9 +46,9 @@ function buildAndRun(cc: string, inputs: ConversionInput[], dir: WorkDir): Map<s
   dir.write('conv.c', generateC(inputs, { fileStem: 'conv' }).text);
   dir.write('conv.h', generateC(inputs, { fileStem: 'conv', header: true }).text);
   dir.write('main.c', main);
-  run(cc, [...STRICT, ...SANITIZE, 'main.c', 'conv.c', '-o', `run_${cc}`], dir.path, 120_000);
+  run(cc, [...STRICT, ...SANITIZE, 'main.c', 'conv.c', '-o', `run_${cc}`], dir.path);
   const out = new Map<string, { status: number; value: number }[]>();
-  for (const line of run(path.join(dir.path, `run_${cc}`), [], dir.path, 120_000).stdout.trim().split('\n')) {
+  for (const line of run(path.join(dir.path, `run_${cc}`), [], dir.path).stdout.trim().split('\n')) {
     const [i, code, st, v] = line.split(' ').map(Number);
     const name = inputs[i!]!.channelName;
     const list = out.get(name) ?? [];
@@ -147,19 +147,19 @@ describe.skipIf(COMPILERS.length === 0)('generated C at the edges, every code, s
     expect(src).toContain('#include "conv.h"');
     expect(src).not.toMatch(/typedef/);
     dir.write('user.c', `#include "conv.h"\n${src}`);
-    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'user.c', '-o', `user_${cc}.o`], dir.path, 120_000);
+    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'user.c', '-o', `user_${cc}.o`], dir.path);
     // A block pasted on its own (no header beside it) still declares what it needs.
     const pasted = generateC([oneCode], { fileStem: 'conv', selfContained: true }).text;
     expect(pasted).toContain('typedef');
     dir.write('pasted.c', pasted);
-    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'pasted.c', '-o', `pasted_${cc}.o`], dir.path, 120_000);
+    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'pasted.c', '-o', `pasted_${cc}.o`], dir.path);
     // The editor's code action splices a self-contained block into a file the CLI made (which
     // includes the header): the declarations are guarded, so both meet cleanly.
     const block = generateC([oneCode], { fileStem: 'conv', selfContained: true }).channels[0]!;
     const mixed = spliceGenerated(src, [{ channel: oneCode.channelName, hash: oneCode.specHash, text: block.code }]);
     expect(mixed.ok).toBe(true);
     dir.write('mixed.c', mixed.ok ? mixed.text : '');
-    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'mixed.c', '-o', `mixed_${cc}.o`], dir.path, 120_000);
+    for (const cc of COMPILERS) run(cc, [...STRICT, '-c', 'mixed.c', '-o', `mixed_${cc}.o`], dir.path);
   });
 
   it('the header says what a code stands for, the degC per count, the clamped values and how to set trims safely', () => {

@@ -52,8 +52,8 @@ describe.skipIf(!haveGcc)('hostile text in generated C compiles as plain comment
         const pre = run('gcc', ['-std=c99', '-E', '-P', f], dir.path).stdout;
         expect(pre, where).not.toMatch(/return\s*1337|\bbackdoor\s*\(/);
       }
-      run('gcc', [...HOST_FLAGS, '-c', `c${k}.c`, '-o', `c${k}.o`], dir.path, 120_000);
-      run('gcc', [...HOST_FLAGS, '-c', `m${k}.c`, '-o', `m${k}.o`], dir.path, 120_000);
+      run('gcc', [...HOST_FLAGS, '-c', `c${k}.c`, '-o', `c${k}.o`], dir.path);
+      run('gcc', [...HOST_FLAGS, '-c', `m${k}.c`, '-o', `m${k}.o`], dir.path);
       // Every global symbol defined is one the generator named from a channel's identifier.
       const syms = run('nm', ['-g', '--defined-only', `c${k}.o`], dir.path).stdout.split('\n').filter(Boolean).map((l) => l.split(' ').pop()!);
       for (const s of syms) expect(ids.some((id) => s.startsWith(id)), `${s} in ${where}`).toBe(true);
