@@ -12,7 +12,6 @@ import type { ChannelResult } from './analysis/types';
 import type { ChannelDef } from './model/types';
 import { loadWorkspace, type LoadedFile, type SourceHost } from './model/workspace';
 import { resolveModel } from './model/resolve';
-import { type Resolution } from './model/block-reader';
 import { attachBenchData } from './model/bench-data';
 import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './diagnostics/shown';
