@@ -13,7 +13,6 @@ import type { ChannelDef } from './model/types';
 import { loadWorkspace, reportSyntax, type LoadedFile, type SourceHost } from './model/workspace';
 import type { ParseResult } from './syntax/ast';
 import { resolveModel } from './model/resolve';
-import { type Resolution } from './model/block-reader';
 import { attachBenchData, benchDataPath } from './model/bench-data';
 import type { ChannelDerived, DocumentState } from './document-state';
 import { shown } from './diagnostics/shown';

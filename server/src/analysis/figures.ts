@@ -18,7 +18,6 @@ export const celsius = (c: number) => `${trimNumber(c, 4)} °C`;
 export const kelvinToCelsius = (k: number) => celsius(k - ZERO_CELSIUS_K);
 export const slopeMv = (voltsPerKelvin: number) => `${trimNumber(voltsPerKelvin * 1000, 3)} mV/K`;
 export const perCount = (cPerCount: number) => (Number.isFinite(cPerCount) ? `${trimNumber(cPerCount, 3)} °C/count` : 'no counts per kelvin');
-export const countsPerK = (n: number) => `${trimNumber(n, 3)} counts/K`;
 export const percent = (ratio: number) => `${trimNumber(ratio * 100, 3)} %`;
 
 /** A temperature rise: mK below 1 K, else K. */

@@ -5,5 +5,4 @@ export const fmtV = (v: number) => formatSI(v, 'V');
 export const fmtA = (v: number) => formatSI(v, 'A');
 export const fmtOhm = (v: number) => formatSI(v, 'Ω');
 export const fmtC = (celsius: number) => `${trimNumber(celsius, 4)} °C`;
-export const fmtK = (k: number, digits = 3) => `${trimNumber(k, digits)} K`;
 export { formatSI, trimNumber };

@@ -11,7 +11,6 @@
 import { planChannels, kernelAt } from './generate';
 import { rounded } from './samples';
 import { applyTrim, integerTrim, GAIN_Q, GAIN_Q_MAX, GAIN_Q_MIN, TWO_POINT_FRAC, type TrimDesign } from './calibration';
-import { asr } from './arith';
 import type { ConversionInput } from './types';
 import type { BudgetResult } from '../analysis/budget-types';
 import type { ChannelDef } from '../model/types';

@@ -18,8 +18,8 @@ import { ZERO_CELSIUS_K } from '../physics/constants';
 import { faultLimits, sensorFaults, usableCodes, type SensorFault } from '../analysis/sensor-faults';
 export { faultLimits } from '../analysis/sensor-faults';
 import { kindOf } from '../sensors/registry';
-import type { CompensatedInput } from '../sensors/conversion';
-import { CodegenInputError, type ConversionInput } from './types';
+import type { ConversionInput } from './types';
+import { CodegenInputError, type CompensatedInput } from '../sensors/conversion';
 
 /** Defaults when the channel gives no code options: hundredths of a degC, 0.02 degC, auto. */
 export const CODE_DEFAULTS = { outputScale: 100, errorC: 0.02, method: 'auto', floatVariant: false } as const;

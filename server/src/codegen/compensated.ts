@@ -16,7 +16,7 @@
 // Nothing here knows which sensor it is: the sensor kind supplies q, r and the inverse.
 
 import { INT32_MAX, asr, fitsInt32 } from './arith';
-import { CAUTION_LINES, SHARED_IMPL, cautionLines, SHARED_STATUS, dataCode, kernelCode, lit32, names, roundFraction, type ChannelPlan } from './emit';
+import { SHARED_IMPL, SHARED_STATUS, blockComment, dataCode, kernelCode, lit32, names, roundFraction, type ChannelPlan } from './emit';
 import { commentLines } from './names';
 import { kernelAt, planOne } from './design';
 import { rounded, type Samples } from './samples';
@@ -132,6 +132,11 @@ export function simulateCompensated(p: CompensatedPlan, code: number, v: number)
 /** Plans by input object and identifier: the source and the header of one run design once. */
 const planned = new WeakMap<CompensatedInput, Map<string, CompensatedPlan>>();
 
+/** One of the two one-input designs inside a two-input conversion: 16-bit input from 0, no trim, no float variant. */
+function innerInput(c: CompensatedInput, channelName: string, codeHigh: number, celsiusAtCode: (code: number) => number, outputScale: number, errorTarget: number, method: ConversionInput['method']): ConversionInput {
+  return { channelName, bits: 16, codeLow: 0, codeHigh, celsiusAtCode, outputScale, errorTarget, method, optimise: c.optimise ?? 'balanced', calibration: { mode: 'none', runtime: false }, floatVariant: false, specHash: '' };
+}
+
 /** The design: unit, guard bits, the two designed functions, the fixed-point line, the code range and the claimed error. */
 export function planCompensated(c: CompensatedInput, ident: string): CompensatedPlan {
   const mine = planned.get(c) ?? new Map<string, CompensatedPlan>();
@@ -175,21 +180,7 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
   let refSpan = 0;
   for (const v of [r.low, r.high, Math.round((r.low + r.high) / 2)]) refSpan = Math.max(refSpan, Math.abs(qAtV(v) - rBase));
   if (refSpan > 9000) fail(c, 'compensation', `the reference's ${c.qName} varies by ${(2 * refSpan).toFixed(0)} ${c.qUnit} over its range ${r.low}..${r.high}; narrow the reference range`);
-  const refInput: ConversionInput = {
-    channelName: `${c.channelName} (reference)`,
-    bits: 16,
-    codeLow: 0,
-    codeHigh: iMax,
-    celsiusAtCode: (i) => qAtV(bucketCentre(i)) - rBase,
-    anyShape: true,
-    outputScale: refScale,
-    errorTarget: u / 8,
-    method: 'auto',
-    optimise: c.optimise ?? 'balanced',
-    calibration: { mode: 'none', runtime: false },
-    floatVariant: false,
-    specHash: '',
-  };
+  const refInput: ConversionInput = { ...innerInput(c, `${c.channelName} (reference)`, iMax, (i) => qAtV(bucketCentre(i)) - rBase, refScale, u / 8, 'auto'), anyShape: true };
   const refOne = planOne(refInput, `${ident}_ref`);
 
   // --- em: the code's q in u / 2^G from X0 u, on a line with Q fraction bits, about the middle code.
@@ -255,20 +246,7 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
     fail(c, 'errorTarget', `${c.errorTarget} degC cannot be met: resolving the ${c.qName} to ${u} ${c.qUnit} (with the ADC line and the reference function) costs up to ${(deltaQ * slopeMax).toFixed(4)} degC alone, ${(slopeMax * u).toFixed(4)} degC per ${u} ${c.qUnit} where the sensor is least sensitive; raise the target (at least ${(deltaQ * slopeMax + 1 / c.outputScale).toFixed(3)} degC) or narrow the range`);
   for (let attempt = 0; attempt < 4; attempt++) {
     if (designTarget * c.outputScale < 0.5) tooCoarse();
-    const hotInput: ConversionInput = {
-      channelName: c.channelName,
-      bits: 16,
-      codeLow: 0,
-      codeHigh: xHigh,
-      celsiusAtCode: hotModel,
-      outputScale: c.outputScale,
-      errorTarget: designTarget,
-      method: c.method,
-      optimise: c.optimise ?? 'balanced',
-      calibration: { mode: 'none', runtime: false },
-      floatVariant: false,
-      specHash: '',
-    };
+    const hotInput = innerInput(c, c.channelName, xHigh, hotModel, c.outputScale, designTarget, c.method);
     const hotOne = planOne(hotInput, `${ident}_hot`);
     const hs = hotOne.samples;
     // Claimed error: design error at x plus the slope near x times the bound on x u - q.
@@ -366,12 +344,7 @@ function headComment(p: CompensatedPlan): string {
           'before acting on the value. SAFETY: on THSC_REF_CLAMPED put the load in its safe state.',
         ]),
   ];
-  if (p.note) {
-    lines.push('Note from the spec:');
-    for (const l of commentLines(p.note)) lines.push(`  ${l}`);
-  }
-  lines.push(...cautionLines(p.cautions));
-  return `/*\n${lines.map((l) => (l ? ` * ${l}` : ' *')).join('\n')}\n */`;
+  return blockComment(lines, p.note, p.cautions);
 }
 
 const REF_STATUS = `#ifndef THSC_REF_CLAMPED

@@ -10,7 +10,8 @@ import { uniqueIdentifiers } from './names';
 import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
 import { finish, makeIdeal, rounded, withFraction, type Samples } from './samples';
 import { designTable, tableKernel, type TableDesign } from './table';
-import { CodegenInputError, type ConversionInput } from './types';
+import type { ConversionInput } from './types';
+import { CodegenInputError } from '../sensors/conversion';
 import { prefixProblem } from '../model/code-prefix';
 
 /**

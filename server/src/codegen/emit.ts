@@ -165,7 +165,7 @@ export const CAUTION_LINES = [
 ];
 
 /** A block comment's closing cautions: the general one, then the sensor kind's own (mains isolation, say). */
-export function cautionLines(kindCautions: readonly string[] | undefined): string[] {
+function cautionLines(kindCautions: readonly string[] | undefined): string[] {
   const out = ['Caution: verify against a calibrated reference thermometer; see the file header.'];
   for (const c of kindCautions ?? []) out.push(...commentLines(wrap(c, 92), 12));
   return out;
@@ -279,13 +279,13 @@ function faultText(p: ChannelPlan): string[] {
   ];
 }
 
-function headComment(p: ChannelPlan): string {
-  const lines = describe(p);
-  if (p.note) {
+/** A channel block's head comment: its lines, then the spec's note and the caution. */
+export function blockComment(lines: string[], note: string | undefined, cautions: readonly string[] | undefined): string {
+  if (note) {
     lines.push('Note from the spec:');
-    for (const l of commentLines(p.note)) lines.push(`  ${l}`);
+    for (const l of commentLines(note)) lines.push(`  ${l}`);
   }
-  lines.push(...cautionLines(p.cautions));
+  lines.push(...cautionLines(cautions));
   return `/*\n${lines.map((l) => (l ? ` * ${l}` : ' *')).join('\n')}\n */`;
 }
 
@@ -312,7 +312,7 @@ function declarations(p: ChannelPlan): string {
 }
 
 export function emitHeaderBody(p: ChannelPlan): string {
-  return `${headComment(p)}\n#include <stdint.h>\n${SHARED_STATUS}\n${declarations(p)}\n`;
+  return `${blockComment(describe(p), p.note, p.cautions)}\n#include <stdint.h>\n${SHARED_STATUS}\n${declarations(p)}\n`;
 }
 
 function clampCode(p: ChannelPlan, early = false): string[] {
@@ -532,9 +532,8 @@ export function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {
 export function emitSourceBody(p: ChannelPlan, header?: string): string {
   const n = names(p);
   const k = kernelCode(p, n);
-  const outT = `int${p.outBits}_t`;
   const own = header ? [`#include "${header}" /* this channel's types, prototypes and status codes */`] : ['#include <stdint.h>', SHARED_STATUS, declarations(p)];
-  const parts: string[] = [headComment(p), ...own, SHARED_IMPL, dataCode(p, n)];
+  const parts: string[] = [blockComment(describe(p), p.note, p.cautions), ...own, SHARED_IMPL, dataCode(p, n)];
   if (p.trim.runtime) {
     const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int32_t add; uint16_t gain;';
     const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${lit32(p.trim.addC)}, ${p.trim.gainG}u`;

@@ -6,7 +6,8 @@ import { planOne, prefixProblem, validateInput } from './design';
 import { CAUTION_LINES, emitHeaderBody, emitSourceBody } from './emit';
 import { renderBlock } from './markers';
 import { commentLines, uniqueIdentifiers } from './names';
-import { CodegenInputError, type ConversionInput, type GenerateOptions, type GenerateResult, type GeneratedChannel } from './types';
+import type { ConversionInput, GenerateOptions, GenerateResult, GeneratedChannel } from './types';
+import { CodegenInputError } from '../sensors/conversion';
 
 export { kernelAt, planChannels, planOne, prefixProblem, validateInput } from './design';
 

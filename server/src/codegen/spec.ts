@@ -6,7 +6,8 @@ import type { DocumentNode } from '../syntax/ast';
 import { channelError, generatorInput, generatableResults, tooWideMessage } from './channel-input';
 import { generateC, type AnyConversionInput } from './generate';
 import { renderBlock } from './markers';
-import { CodegenInputError, type GenerateResult } from './types';
+import type { GenerateResult } from './types';
+import { CodegenInputError } from '../sensors/conversion';
 
 export interface SpecLike {
   path: string;

@@ -125,5 +125,3 @@ export interface FoundBlock {
   bodyStart: number;
   bodyEnd: number;
 }
-
-export { CodegenInputError } from '../sensors/conversion';

@@ -64,7 +64,3 @@ export const CATALOGUE = {
 } satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof CATALOGUE;
-
-export function codeInfo(code: DiagnosticCode): CodeInfo {
-  return CATALOGUE[code];
-}

@@ -5,7 +5,7 @@ import type { BlockNode, FieldNode, Span, Term } from '../syntax/ast';
 import type { DiagnosticSink } from '../diagnostics/diagnostic';
 import { fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './schema';
 import type { AdcDef, ChannelDef, SensorDef, Toleranced } from './types';
-import { noExtra, readQuantityField, readRange, spanOf, type ReadContext } from './read-value';
+import { askForRest, noExtra, readQuantityField, readRange, spanOf, type ReadContext } from './read-value';
 import { closest } from './suggest';
 import { shown } from '../diagnostics/shown';
 
@@ -56,6 +56,12 @@ export class BlockReader {
   }
   terms(name: string): Term[] | undefined {
     return this.fields.get(name)?.node.value;
+  }
+  /** Refuses a field's value (not ok): a half-typed phrase is asked for what it lacks, anything else gets `message`. */
+  refuse(name: string, terms: Term[], message: string): null {
+    this.ok = false;
+    if (!askForRest(terms, this.ctx(name))) this.sink.report('bad-value', this.ref.file, spanOf(terms), message);
+    return null;
   }
   missing(name: string): void {
     const fs = fieldSpec(this.spec, name)!;

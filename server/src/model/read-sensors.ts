@@ -1,11 +1,11 @@
-// Readers of the channel fields that concern its sensor: the sensor reference, the divider bias,
+// Readers of the channel fields that concern its sensor: the sensor reference, the bias,
 // ratiometric reading, amplifier, lead wiring and comparison group, each checked against what the
 // sensor's kind takes (sensors/kind.ts). resolve.ts builds the BlockReader and calls these; they
 // report with precise ranges and never throw.
 import type { QuantityTerm, Term } from '../syntax/ast';
 import type { BlockReader, Resolution } from './block-reader';
 import type { AdcDef, BiasDef, ChannelDef, SensorDef, WiringDef } from './types';
-import { askForRest, noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
+import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
 import { kindWithArticle, PART_DOMAINS } from './schema';
 import { closest } from './suggest';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
@@ -43,27 +43,48 @@ export function readSensorRef(r: BlockReader, res: Resolution): SensorDef | null
   return def ?? null;
 }
 
-/** `divider R above|below from V` with optional tolerances on R and V. */
-export function readDividerBias(r: BlockReader, terms: Term[]): BiasDef | null {
+/** `current I`, `resistor R from V` or `divider R above|below from V`, each value with an optional tolerance. */
+export function readBias(r: BlockReader): BiasDef | null {
+  const terms = r.terms('bias');
+  if (!terms) {
+    r.missing('bias');
+    return null;
+  }
   const ctx = r.ctx('bias');
   const span = spanOf(terms);
-  const bad = () => {
-    r.ok = false;
-    if (askForRest(terms, ctx)) return null;
-    r.sink.report('bad-value', r.ref.file, span, 'a divider bias reads `divider R above from V` (fixed resistor on the supply side) or `divider R below from V` (fixed resistor to ground), e.g. `divider 10k ± 0.1 % above from 3.3 V`');
-    r.ok = false;
-    return null;
-  };
-  const [, rq, pos, from, vq] = terms;
-  if (!rq || rq.kind !== 'quantity' || !pos || pos.kind !== 'word' || (pos.text !== 'above' && pos.text !== 'below') || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, 5, ctx)) return bad();
+  const head = terms[0]!;
+  const tol = (q: QuantityTerm, value: number, dim: 'resistance' | 'voltage' | 'current') => (q.tolerance ? readTolerance(q.tolerance, value, dim, ctx) : 0);
+  const word = head.kind === 'word' ? head.text : '';
+  if (word === 'current') {
+    const q = terms[1];
+    if (!q || q.kind !== 'quantity' || !noExtra(terms, 2, ctx)) return refuseBias(r, terms);
+    const amps = readPart(q, PART_DOMAINS.biasCurrent, ctx);
+    const t = amps === null ? null : tol(q, amps, 'current');
+    if (amps === null || t === null) return (r.ok = false), null;
+    return { kind: 'current', amps: { value: amps, tolerance: t, span: q.span }, span };
+  }
+  if (word !== 'resistor' && word !== 'divider') return refuseBias(r, terms);
+  // A resistor from a supply; a divider's also says which side the fixed resistor is on.
+  const divider = word === 'divider';
+  const [, rq, ...rest] = terms;
+  const pos = divider ? rest.shift() : undefined;
+  const [from, vq] = rest;
+  const position = pos?.kind === 'word' && (pos.text === 'above' || pos.text === 'below') ? pos.text : undefined;
+  if (!rq || rq.kind !== 'quantity' || (divider && !position) || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, divider ? 5 : 4, ctx)) return refuseBias(r, terms, divider);
   const ohms = readPart(rq, PART_DOMAINS.biasResistor, ctx);
   const volts = readPart(vq, PART_DOMAINS.supply, ctx);
   if (ohms === null || volts === null) return (r.ok = false), null;
-  const tol = (q: QuantityTerm, v: number, dim: 'resistance' | 'voltage') => (q.tolerance ? readTolerance(q.tolerance, v, dim, ctx) : 0);
   const rt = tol(rq, ohms, 'resistance');
   const vt = tol(vq, volts, 'voltage');
   if (rt === null || vt === null) return (r.ok = false), null;
-  return { kind: 'divider', ohms: { value: ohms, tolerance: rt, span: rq.span }, supply: { value: volts, tolerance: vt, span: vq.span }, position: pos.text, span };
+  const ends = { ohms: { value: ohms, tolerance: rt, span: rq.span }, supply: { value: volts, tolerance: vt, span: vq.span } };
+  return divider ? { kind: 'divider', ...ends, position: position!, span } : { kind: 'resistor', ...ends, span };
+}
+
+function refuseBias(r: BlockReader, terms: Term[], divider = false): null {
+  return r.refuse('bias', terms, divider
+    ? 'a divider bias reads `divider R above from V` (fixed resistor on the supply side) or `divider R below from V` (fixed resistor to ground), e.g. `divider 10k ± 0.1 % above from 3.3 V`'
+    : 'bias takes `resistor R from V` (e.g. `resistor 47k ± 1 % from 3.3 V`) or `current I` (e.g. `current 100 uA`)');
 }
 
 /** `2 wires 0.5 ohm`, `3 wires 0.5 ohm`, `4 wires`. */

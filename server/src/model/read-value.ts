@@ -22,7 +22,7 @@ export function spanOf(terms: Term[]): Span {
 }
 
 // The one way figures reach users (never NaN, Infinity or -0): diagnostics/numbers.ts, re-exported here.
-export { NO_FIGURE, formatSI, trimNumber, fixedNumber } from '../diagnostics/numbers';
+export { formatSI, trimNumber, fixedNumber } from '../diagnostics/numbers';
 import { trimNumber } from '../diagnostics/numbers';
 
 function unitOf(term: QuantityTerm, ctx: ReadContext): UnitInfo | null {

@@ -7,18 +7,16 @@ import { shiftOffsets } from '../syntax/shift';
 import { DiagnosticSink } from '../diagnostics/diagnostic';
 import { blockKinds, blockSpec, kindWithArticle, PART_DOMAINS } from './schema';
 import type { LoadedFile } from './workspace';
-import type { AdcDef, BiasDef, ChannelDef, CodegenSpec, DefBase } from './types';
-import { askForRest, noExtra, readPart, trimNumber, readTolerance, spanOf } from './read-value';
+import type { AdcDef, ChannelDef, CodegenSpec, DefBase } from './types';
+import { noExtra, readPart, trimNumber, spanOf } from './read-value';
 import { readUnit } from './units';
 import { closest } from './suggest';
 import { prefixProblem } from './code-prefix';
-import { readChannelExtras, readDividerBias, readSensorRef } from './read-sensors';
+import { readBias, readChannelExtras, readSensorRef } from './read-sensors';
 import { BlockReader, type BlockRef, type Resolution } from './block-reader';
 import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
 import { isTwoCurrentBias, readBenchRef, readDynamics, readCalReference, readCalibration, readLsbBound, readMeasured, readMonteCarlo, readNoise, readOversampling, readRelativeBound, readTwoCurrentBias } from './read-budget-spec';
 import { shown } from '../diagnostics/shown';
-
-const ZERO_C = 273.15;
 
 /**
  * `kept`: the document's definitions by piece (document-state.ts), read and added to, so the next
@@ -285,63 +283,11 @@ function readAdcRef(r: BlockReader, name: string, res: Resolution): AdcDef | nul
   return def ?? null;
 }
 
-function readBias(r: BlockReader): BiasDef | null {
-  const terms = r.terms('bias');
-  if (!terms) {
-    r.missing('bias');
-    return null;
-  }
-  const ctx = r.ctx('bias');
-  const span = spanOf(terms);
-  const bad = () => {
-    r.ok = false;
-    if (askForRest(terms, ctx)) return null;
-    r.sink.report('bad-value', r.ref.file, span, 'bias takes `resistor R from V` (e.g. `resistor 47k ± 1 % from 3.3 V`) or `current I` (e.g. `current 100 uA`)');
-    r.ok = false;
-    return null;
-  };
-  const head = terms[0]!;
-  if (head.kind !== 'word') return bad();
-  const tol = (q: import('../syntax/ast').QuantityTerm, value: number, dim: 'resistance' | 'voltage' | 'current'): number | null =>
-    q.tolerance ? readTolerance(q.tolerance, value, dim, ctx) : 0;
-  if (head.text === 'current') {
-    const q = terms[1];
-    if (!q || q.kind !== 'quantity' || !noExtra(terms, 2, ctx)) return bad();
-    const amps = readPart(q, PART_DOMAINS.biasCurrent, ctx);
-    if (amps === null) return (r.ok = false), null;
-    const t = tol(q, amps, 'current');
-    if (t === null) return (r.ok = false), null;
-    return { kind: 'current', amps: { value: amps, tolerance: t, span: q.span }, span };
-  }
-  if (head.text === 'resistor') {
-    const rq = terms[1];
-    const from = terms[2];
-    const vq = terms[3];
-    if (!rq || rq.kind !== 'quantity' || !from || from.kind !== 'word' || from.text !== 'from' || !vq || vq.kind !== 'quantity' || !noExtra(terms, 4, ctx)) return bad();
-    const ohms = readPart(rq, PART_DOMAINS.biasResistor, ctx);
-    const volts = readPart(vq, PART_DOMAINS.supply, ctx);
-    if (ohms === null || volts === null) return (r.ok = false), null;
-    const rt = tol(rq, ohms, 'resistance');
-    const vt = tol(vq, volts, 'voltage');
-    if (rt === null || vt === null) return (r.ok = false), null;
-    return { kind: 'resistor', ohms: { value: ohms, tolerance: rt, span: rq.span }, supply: { value: volts, tolerance: vt, span: vq.span }, span };
-  }
-  if (head.text === 'divider') return readDividerBias(r, terms);
-  return bad();
-}
-
 /** `0.1 °C per count`, `10 counts per °C`: returns kelvin per count. */
 function readResolution(r: BlockReader): number | null {
   const terms = r.terms('resolution');
   if (!terms) return null;
-  const span = spanOf(terms);
-  const bad = () => {
-    r.ok = false;
-    if (askForRest(terms, r.ctx('resolution'))) return null;
-    r.sink.report('bad-value', r.ref.file, span, 'resolution takes `0.1 °C per count` or `10 counts per °C`');
-    r.ok = false;
-    return null;
-  };
+  const bad = () => r.refuse('resolution', terms, 'resolution takes `0.1 °C per count` or `10 counts per °C`');
   const [q, per, what] = terms;
   if (!q || q.kind !== 'quantity' || !per || per.kind !== 'word' || per.text !== 'per' || !what || (what.kind !== 'word' && what.kind !== 'unit')) return bad();
   if (!noExtra(terms, 3, r.ctx('resolution'))) return bad();

@@ -198,5 +198,3 @@ export interface MonteCarloSpec {
   seed: number;
   distribution: 'uniform' | 'normal';
 }
-
-export type Definition = SensorDef | AdcDef | ChannelDef;

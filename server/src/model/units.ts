@@ -136,8 +136,3 @@ function readSimple(text: string): UnitInfo | string {
   }
   return `unknown unit '${text}'`;
 }
-
-/** Converts a temperature given in a unit to kelvin: absolute or as a difference. */
-export function temperatureToKelvin(value: number, unit: UnitInfo, asDifference: boolean): number {
-  return asDifference ? value * unit.scale : value * unit.scale + unit.offset;
-}

@@ -3,7 +3,7 @@
 // for input outside the documented ranges. It lives below the generator's layer so that a kind's
 // own module (sensors/<kind>/codegen.ts) can build the input without importing the generator.
 
-import type { ChannelDef } from '../model/types';
+import type { ChannelDef, CodegenSpec } from '../model/types';
 
 /** What a kind's `conversionInput` is given besides the channel (codegen/channel-input.ts fills it). */
 export interface ConversionContext {
@@ -16,7 +16,7 @@ export interface ConversionContext {
    * the channels it reads, such as its cold-junction channel). `errorC` is undefined when the spec
    * states none: the kind then picks its own default.
    */
-  options(c: ChannelDef): { outputScale: number; errorC: number | undefined; method: 'auto' | 'table' | 'polynomial'; optimise: 'size' | 'speed' | 'balanced'; floatVariant: boolean };
+  options(c: ChannelDef): Pick<CodegenSpec, 'outputScale' | 'method' | 'floatVariant'> & { errorC: number | undefined; optimise: NonNullable<CodegenSpec['optimise']> };
 }
 
 /**
@@ -60,8 +60,8 @@ export interface CompensatedInput {
   outputScale: number;
   /** degC, max error vs the exact model claimed and met over every in-range code and reference value. */
   errorTarget: number;
-  method: 'auto' | 'table' | 'polynomial';
-  optimise?: 'size' | 'speed' | 'balanced';
+  method: CodegenSpec['method'];
+  optimise?: CodegenSpec['optimise'];
   specHash: string;
   note?: string;
   /** The sensor kind's safety cautions, written into the block's comment. */

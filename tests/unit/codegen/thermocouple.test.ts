@@ -9,7 +9,7 @@
 
 import { beforeAll, describe, expect, it } from 'vitest';
 import { planCompensated, simulateCompensated, type CompensatedInput, type CompensatedPlan } from '../../../server/src/codegen/compensated';
-import { CodegenInputError } from '../../../server/src/codegen/types';
+import { CodegenInputError } from '../../../server/src/sensors/conversion';
 import { thermocoupleConversionInput, type TcCodegenInput } from '../../../server/src/sensors/thermocouple/codegen';
 import { TC_TYPES, emf, kelvinAtEmf } from '../../../server/src/sensors/thermocouple/its90';
 import { avrRows, hostRows, type Row, type Sweep } from '../../fixtures/codegen/compensated';

@@ -2,7 +2,7 @@
 // (cold-junction channel, isothermal difference, amplifier input offset and drift, output swing, loop
 // resistance), with precise diagnostics. The open-detection scheme is the channel's `bias`.
 import type { BlockReader } from '../../model/block-reader';
-import type { BiasDef, ChannelDef, DefBase } from '../../model/types';
+import type { BiasDef, DefBase } from '../../model/types';
 import type { Term } from '../../syntax/ast';
 import type { KindChannelReading } from '../kind';
 import { formatSI, noExtra, readPart, readRange, spanOf, trimNumber } from '../../model/read-value';
