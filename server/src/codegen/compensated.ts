@@ -18,7 +18,7 @@
 import { INT32_MAX, asr, fitsInt32 } from './arith';
 import { SHARED_IMPL, SHARED_STATUS, blockComment, dataCode, kernelCode, lit32, names, roundFraction, type ChannelPlan } from './emit';
 import { commentLines } from './names';
-import { kernelAt, planOne } from './design';
+import { SIZE_MODEL, kernelAt, planOne } from './design';
 import { rounded, type Samples } from './samples';
 import { CodegenInputError, type CompensatedInput } from '../sensors/conversion';
 import type { ConversionInput } from './types';
@@ -65,7 +65,7 @@ export interface CompensatedPlan {
   describe: string[];
   note?: string;
   cautions?: readonly string[];
-  /** Estimated linked bytes, 8-bit AVR and Cortex-M0 (the two designed parts plus the combining code, about 120 bytes on the AVR; measured by the bench, not fitted). */
+  /** Estimated linked bytes, 8-bit AVR and Cortex-M0: the two designed parts plus the combining code (design.ts SIZE_MODEL `combine`). */
   bytes: number;
   bytesM0: number;
 }
@@ -294,8 +294,8 @@ function designCompensated(c: CompensatedInput, ident: string): CompensatedPlan 
         describe: r.describe,
         ...(c.note !== undefined ? { note: c.note } : {}),
         ...(c.cautions?.length ? { cautions: c.cautions } : {}),
-        bytes: refOne.bytes + hotOne.bytes + 120,
-        bytesM0: refOne.bytesM0 + hotOne.bytesM0 + 120,
+        bytes: refOne.bytes + hotOne.bytes + SIZE_MODEL.avr.combine,
+        bytesM0: refOne.bytesM0 + hotOne.bytesM0 + SIZE_MODEL.m0.combine,
       };
       plan.outAtLow = hotAt(plan, 0);
       plan.outAtHigh = hotAt(plan, xHigh);

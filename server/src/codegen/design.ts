@@ -22,33 +22,39 @@ import { prefixProblem } from '../model/code-prefix';
  * arm-none-eabi-gcc with newlib-nano; 2026-12-02). Held to the links by tests/unit/codegen/filter-compile.test.ts.
  */
 const FILTER_SIZE = {
-  avr: { filterRecursive: 140, filterAverage: 162, filterAveragePerLog2: 8 },
-  m0: { filterRecursive: 64, filterAverage: 87, filterAveragePerLog2: 5 },
+  avr: { recursive: 140, average: 162, perLog2: 8 },
+  m0: { recursive: 64, average: 87, perLog2: 5 },
 } as const;
+
+/** The size model's counts of a firmware filter (what sizeFeatures adds for it). */
+function filterFeatures(f: NonNullable<ConversionInput['filter']>): Partial<Record<SizeFeature, number>> {
+  return f.kind === 'recursive' ? { filterRecursive: 1 } : { filterAverage: 1, filterAveragePerLog2: f.log2n };
+}
 
 /** Estimated linked bytes of a channel's firmware filter on a target; 0 without one. */
 export function filterBytes(f: ConversionInput['filter'], target: SizeTarget): number {
-  if (!f) return 0;
-  const m = SIZE_MODEL[target];
-  return f.kind === 'recursive' ? m.filterRecursive : m.filterAverage + m.filterAveragePerLog2 * f.log2n;
+  return f ? weigh(filterFeatures(f), target) : 0;
 }
 
 /**
  * Linked flash bytes of one channel's code around its data, per target, at -Os with
- * -ffunction-sections and --gc-sections: the ELF's .text + .data with the channel's functions
- * called (conversion, setter, float variant) minus without, library routines included
- * (atmega328p: avr-gcc 5.4; Cortex-M0: arm-none-eabi-gcc, newlib-nano). Fitted by least squares
- * (non-negative, weighted to the relative error) to 150 measured builds of the sample channels and
- * the test channels under auto, table, polynomial, 0.1 degC output, trims and float variants.
- * Re-measure when the emitted C changes; tests/unit/codegen/size-estimate.test.ts links the real
- * sizes and holds the estimate to them.
+ * -ffunction-sections and --gc-sections: the ELF's .text + .data of a minimal program calling the
+ * channel's functions (conversion, trim setter, float variant, filter) minus the same program
+ * without the calls, library routines included (atmega328p: avr-gcc 5.4; Cortex-M0: -mcpu=cortex-m0
+ * -mthumb, arm-none-eabi-gcc with newlib-nano). Bytes per count of sizeFeatures, fitted to minimise
+ * the largest relative error over 189 measured builds (every sample channel under auto, table,
+ * polynomial, line, 0.1 degC, fixed and run-time trims, both filters and the float variant, and the
+ * four invented thermocouple channels): worst 8.6 % on the AVR, 7.9 % on the Cortex-M0. Re-measure
+ * when the emitted C changes: tests/unit/codegen/size-estimate.test.ts links the real sizes
+ * (tests/fixtures/codegen/linked-size.ts) and holds every estimate to 10 %.
  */
-const SIZE_MODEL = {
-  avr: { direct: 81, polynomial: 354, split: 134, table16: 184, table32: 251, polyMulti: 28, fraction: 3, offsetTrim: 8, gainTrim: 55, runtimeOffset: 45, runtimeTwoPoint: 355, floatSplit: 1255, floatOther: 1230, faultSide: 16, out32: 29, ...FILTER_SIZE.avr },
-  m0: { direct: 64, polynomial: 104, split: 111, table16: 113, table32: 70, polyMulti: 39, fraction: 9, offsetTrim: 8, gainTrim: 40, runtimeOffset: 68, runtimeTwoPoint: 191, floatSplit: 3435, floatOther: 2742, faultSide: 14, out32: 14, ...FILTER_SIZE.m0 },
+export const SIZE_MODEL = {
+  avr: { direct: 32.7, polynomial: 306.9, split: 103.7, table16: 154.7, table32: 217.8, polyMulti: 8, oneSegment: -8.2, codeShift: 3.8, wideConst: 0.2, fraction: 0, offsetTrim: 8, gainTrim: 49, runtimeOffset: 60.3, runtimeTwoPoint: 318.9, floatInterp: 1288.6, floatOneSegment: 1076.9, floatPlain: 1230, floatTwoPoint: 0, floatOffset: 0, faultSide: 32.9, out32: 13, filterRecursive: FILTER_SIZE.avr.recursive, filterAverage: FILTER_SIZE.avr.average, filterAveragePerLog2: FILTER_SIZE.avr.perLog2, combine: 245.2 },
+  m0: { direct: 48.2, polynomial: 89.5, split: 88.3, table16: 93.3, table32: 85.5, polyMulti: 15.6, oneSegment: -37.4, codeShift: 1.1, wideConst: 8.7, fraction: 0, offsetTrim: 8, gainTrim: 30, runtimeOffset: 73.4, runtimeTwoPoint: 188.1, floatInterp: 3232.1, floatOneSegment: 2232.2, floatPlain: 2742, floatTwoPoint: 0, floatOffset: 0, faultSide: 8.1, out32: 0, filterRecursive: FILTER_SIZE.m0.recursive, filterAverage: FILTER_SIZE.m0.average, filterAveragePerLog2: FILTER_SIZE.m0.perLog2, combine: 41.9 },
 } as const;
 
 export type SizeTarget = keyof typeof SIZE_MODEL;
+export type SizeFeature = keyof typeof SIZE_MODEL.avr;
 
 const MAX_CODES = 65536;
 
@@ -188,27 +194,77 @@ function formOf(d: Design, s: Samples): 'direct' | 'polynomial' | 'split' | 'tab
   return d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 'split' : 'table16';
 }
 
-/**
- * Estimated linked bytes of the code around the data on a target (SIZE_MODEL); `extra` adds what
- * only a finished plan knows (fault tests, a 32-bit output, the float variant).
- */
-function codeBytes(d: Design, s: Samples, target: SizeTarget = 'avr', extra?: { faultSides: number; out32: boolean; floatVariant: boolean }): number {
-  const m = SIZE_MODEL[target];
-  const form = formOf(d, s);
-  let b: number = m[form];
-  if (d.kind === 'polynomial' && d.coefs.length > 1) b += m.polyMulti;
-  const twoPoint = s.trim.mode === 'two-point';
-  if (s.frac > 0 && !twoPoint) b += m.fraction;
-  if (s.trim.mode === 'offset') b += s.trim.runtime ? m.runtimeOffset : m.offsetTrim;
-  if (twoPoint) b += s.trim.runtime ? m.runtimeTwoPoint : m.gainTrim;
-  if (extra) {
-    b += extra.faultSides * m.faultSide + (extra.out32 ? m.out32 : 0);
-    if (extra.floatVariant) b += form === 'split' ? m.floatSplit : m.floatOther;
-  }
-  return b;
+/** What a plan adds that the design alone does not say (fault tests, a 32-bit output, float variant, filter). */
+export interface SizeExtra {
+  faultSides: number;
+  out32: boolean;
+  floatVariant: boolean;
+  filter?: ConversionInput['filter'];
 }
 
-function dataBytes(d: Design): number {
+/**
+ * The counts the size model weighs (SIZE_MODEL's keys): the emitted form, what the compiler folds
+ * (a one-segment table or polynomial has a constant index; a polynomial without a quadratic term
+ * loses a multiply), the rounding step, the trims, and with `extra` the plan's additions.
+ */
+export function sizeFeatures(d: Design, s: Samples, extra?: SizeExtra): Partial<Record<SizeFeature, number>> {
+  const f: Partial<Record<SizeFeature, number>> = {};
+  const form = formOf(d, s);
+  f[form] = 1;
+  // The byte-split form shifts the code left by 8 - shift bits, unrolled (emit.ts THSC_SHL16).
+  if (form === 'split' && d.kind === 'table') f.codeShift = 8 - d.shift;
+  if (d.kind === 'polynomial') {
+    if (d.coefs.length > 1) f.polyMulti = 1;
+  } else if (d.shift > 0 && d.entries.length === 2) f.oneSegment = 1;
+  if (d.kind === 'polynomial' && d.coefs.length === 1) f.oneSegment = 1;
+  const twoPoint = s.trim.mode === 'two-point';
+  if (s.frac > 0 && !twoPoint) f.fraction = 1;
+  if (s.trim.mode === 'offset') f[s.trim.runtime ? 'runtimeOffset' : 'offsetTrim'] = 1;
+  if (twoPoint) f[s.trim.runtime ? 'runtimeTwoPoint' : 'gainTrim'] = 1;
+  if (extra) {
+    if (extra.faultSides) f.faultSide = extra.faultSides;
+    if (extra.out32) f.out32 = 1;
+    // The float variant interpolates in float (table with spacing) or converts one integer result.
+    if (extra.floatVariant) {
+      // A float interpolation over one segment has constant points, which the compiler folds.
+      f[d.kind === 'table' && d.shift > 0 ? (d.entries.length === 2 ? 'floatOneSegment' : 'floatInterp') : 'floatPlain'] = 1;
+      if (s.trim.mode !== 'none') f[s.trim.mode === 'two-point' ? 'floatTwoPoint' : 'floatOffset'] = 1;
+    }
+    if (extra.filter) Object.assign(f, filterFeatures(extra.filter));
+  }
+  return f;
+}
+
+/** Estimated linked bytes of code on a target: SIZE_MODEL weighing the counts. */
+export function weigh(features: Partial<Record<SizeFeature, number>>, target: SizeTarget): number {
+  const m: Record<SizeFeature, number> = SIZE_MODEL[target];
+  let b = 0;
+  for (const [k, n] of Object.entries(features) as [SizeFeature, number][]) b += m[k] * n;
+  return Math.round(b);
+}
+
+/** Estimated linked bytes of the code around the data of a design, before its plan's additions. */
+function codeBytes(d: Design, s: Samples, target: SizeTarget = 'avr'): number {
+  return weigh(sizeFeatures(d, s), target);
+}
+
+/** The size model's counts of a finished plan (its design, trims and additions). */
+export function planSizeFeatures(p: ChannelPlan, s: Samples): Partial<Record<SizeFeature, number>> {
+  const extra: SizeExtra = { faultSides: (p.faultBelow !== undefined ? 1 : 0) + (p.faultAbove !== undefined ? 1 : 0), out32: p.outBits === 32, floatVariant: p.floatVariant, ...(p.filter ? { filter: p.filter } : {}) };
+  const f = sizeFeatures(p.design, s, extra);
+  // Constants the conversion compares with or returns, and the points a one-segment design folds
+  // into the code: on a Cortex-M0 each outside 0..255 is a literal-pool load, not an immediate.
+  const d = p.design;
+  const consts = [p.low, p.high - p.low, p.faultBelow, p.faultAbove, ...(p.trim.runtime ? [] : [p.outAtLow, p.outAtHigh])];
+  if (d.kind === 'table' && d.shift > 0 && d.entries.length === 2) consts.push(d.entries[0]!, d.entries[1]! - d.entries[0]!);
+  if (d.kind === 'polynomial' && d.coefs.length === 1) consts.push(...d.coefs[0]!);
+  const wide = consts.filter((v) => v !== undefined && (v < 0 || v > 255)).length;
+  if (wide) f.wideConst = wide;
+  return f;
+}
+
+/** Bytes of a design's constants (table points or coefficients). */
+export function dataBytes(d: Design): number {
   return d.kind === 'table' ? d.entries.length * (d.entryBits / 8) : d.coefs.length * 12;
 }
 
@@ -426,9 +482,7 @@ export function planOne(c: ConversionInput, ident: string): { plan: ChannelPlan;
       note: c.note,
       ...(c.cautions?.length ? { cautions: c.cautions } : {}),
     };
-    const extra = { faultSides: (c.faultBelow !== undefined ? 1 : 0) + (c.faultAbove !== undefined ? 1 : 0), out32: outBits === 32, floatVariant: c.floatVariant };
-    // The estimate gen prints is of everything generated for the channel: the filter too.
-    const bytes = (t: SizeTarget) => dataBytes(ch.design) + codeBytes(ch.design, s, t, extra) + filterBytes(c.filter, t);
+    const bytes = (t: SizeTarget) => dataBytes(ch.design) + weigh(planSizeFeatures(plan, s), t);
     return { plan, samples: s, bytes: bytes('avr'), bytesM0: bytes('m0') };
   }
 }
