@@ -194,13 +194,16 @@ export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined
 }
 
 /** A block kind with its article as read aloud: "an adc", "a channel"; a sensor kind says its own ("an rtd"). */
+/** Every form a `bias` takes, over all sensor kinds (completion offers them; an empty bias is asked for them). */
+export const BIAS_FORMS = ['resistor R from V', 'current I', 'divider R above|below from V', 'currents I1 and I2', 'resistors R1 and R2 from V'];
+
 export function kindWithArticle(kind: string): string {
   return sensorKind(kind)?.a ?? `${kind === 'adc' ? 'an' : 'a'} ${kind}`;
 }
 
 /**
  * What a half-typed phrase lacks, by field and by the word it ends with ('' when it ends with a
- * number): the readers ask for it (`bias = resistor 47k from` → "add the supply voltage after
+ * number; `word _` when it ends with a number right after that word): the readers ask for it (`bias = resistor 47k from` → "add the supply voltage after
  * 'from', such as 3.3 V"). Only the words of each field's phrase (its `words`, or the bias forms).
  */
 export const HALF_TYPED: Readonly<Record<string, Readonly<Record<string, string>>>> = {
@@ -214,6 +217,12 @@ export const HALF_TYPED: Readonly<Record<string, Readonly<Record<string, string>
     below: '\'from\' and the supply voltage, such as `below from 3.3 V`',
     from: 'the supply voltage after \'from\', such as `from 3.3 V`',
     and: 'the second value after \'and\', such as `and 100 uA`',
+    // After a value (`_`): what follows it in each form.
+    'resistor _': '\'from\' and the supply voltage after the resistance, such as `resistor 47k from 3.3 V`',
+    'resistors _': '\'and\' and the second resistance, then the supply, such as `resistors 330k and 33k from 3.3 V`',
+    'currents _': '\'and\' and the second current, such as `currents 10 uA and 100 uA`',
+    'divider _': 'the side of the fixed resistor, `above` or `below`, and the supply, such as `divider 10k above from 3.3 V`',
+    'and _': '\'from\' and the supply voltage after the second resistance, such as `resistors 330k and 33k from 3.3 V`',
   },
   resolution: {
     '': '`per count` after the figure, such as `0.1 °C per count` (or `10 counts per °C`)',
