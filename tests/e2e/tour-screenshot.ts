@@ -8,7 +8,7 @@
 // so that ordinary runs leave the committed image alone. Look at the image before committing it.
 import * as path from 'node:path';
 import type { BrowserContext } from 'playwright-core';
-import { GOTO, hoverUntilShown, quickOpen, runCommand, type Outcome } from './offline/browser';
+import { closeAllEditors, GOTO, hoverUntilShown, quickOpen, type Outcome } from './offline/browser';
 
 const LIMIT = 60_000;
 const FIRST = 120_000;
@@ -25,9 +25,7 @@ export async function tourStep(context: BrowserContext, baseUrl: string, workspa
     await page.goto(`${baseUrl}/?folder=${encodeURIComponent(workspace)}`, GOTO);
     await page.locator('.monaco-workbench .part.statusbar').waitFor({ state: 'visible', timeout: FIRST });
     // One editor group, no tabs left by earlier steps (the suite opens files and panels beside).
-    await runCommand(page, 'View: Close All Editor Groups');
-    await page.locator('.tabs-container .tab').first().waitFor({ state: 'detached', timeout: LIMIT });
-    await page.waitForFunction(`document.querySelectorAll('.editor-group-container').length === 1`, undefined, { timeout: LIMIT });
+    await closeAllEditors(page);
     await quickOpen(page, 'cold-chain-problems.tsense');
     await page.locator('.tab.active', { hasText: 'cold-chain-problems.tsense' }).first().waitFor({ timeout: LIMIT });
     // The server's answers: a squiggle, and a range line's figure beside the field.

@@ -150,6 +150,23 @@ export async function runCommand(page: Page, title: string): Promise<void> {
   await page.keyboard.press('Enter');
 }
 
+/**
+ * Closes every editor and editor group, answering "Don't Save" to any question about an unsaved
+ * editor (the workspace is a temporary copy), until one empty group is left.
+ */
+export async function closeAllEditors(page: Page): Promise<void> {
+  await runCommand(page, 'View: Close All Editor Groups');
+  const dontSave = page.locator('.monaco-dialog-box .monaco-button', { hasText: "Don't Save" });
+  const deadline = Date.now() + LIMIT;
+  const closed = `document.querySelectorAll('.tabs-container .tab').length === 0 && document.querySelectorAll('.editor-group-container').length === 1`;
+  for (;;) {
+    const done = await page.waitForFunction(closed, undefined, { timeout: 5_000 }).then(() => true, () => false);
+    if (done) return;
+    if (await dontSave.first().isVisible()) await dontSave.first().click();
+    if (Date.now() > deadline) throw new Error('the editors did not close');
+  }
+}
+
 export async function quickOpen(page: Page, fileName: string): Promise<void> {
   await page.keyboard.press('Control+P');
   const input = page.locator('.quick-input-widget input');
