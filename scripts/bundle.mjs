@@ -1,6 +1,6 @@
 // Bundles the CLI/language server (dist/cli.js) and the VS Code client (dist/client.js) with esbuild.
 import { build } from 'esbuild';
-import { existsSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 
 const common = { bundle: true, platform: 'node', target: 'node20', format: 'cjs', sourcemap: false, logLevel: 'warning', legalComments: 'none' };
 // vega-canvas's Node build loads the optional native `canvas` with a top-level await, which a CommonJS
@@ -19,4 +19,10 @@ if (process.argv.includes('--bench')) {
   // bench file also runs alone when it is the main module; in one bundle every file would think so.
   await build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js', alias: noNodeCanvas, define: { 'require.main': 'undefined' } });
 }
+// The packaged README (package.json "vsce".readmePath): README.md without its images. The editor
+// shows only https images in an extension's README, and the project names no public repository,
+// so the repository's screenshot (media/editor-tour.png) stays out of the package.
+const readme = readFileSync('README.md', 'utf8').split('\n').filter((l) => !/^!\[[^\]]*\]\((?![a-z]+:)[^)]*\)\s*$/i.test(l));
+mkdirSync('dist', { recursive: true });
+writeFileSync('dist/README.md', readme.join('\n').replace(/\n{3,}/g, '\n\n'));
 console.log('bundle: wrote dist/');

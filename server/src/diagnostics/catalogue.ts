@@ -10,6 +10,17 @@ export interface CodeInfo {
   doc: string;
 }
 
+/**
+ * The plain words for a junction channel's `current_window`: the one phrase that its diagnostic
+ * messages, hovers, field doc and catalogue entries use (kept here, the lowest layer that needs it).
+ */
+export const CURRENT_RANGE = 'the current range where the junction law holds well';
+
+/** The phrase with the channel's figures: "the current range where ... holds well (1 µA .. 1 mA)". */
+export function currentRangeText(low: string, high: string): string {
+  return `${CURRENT_RANGE} (${low} .. ${high})`;
+}
+
 export const CATALOGUE = {
   'syntax': { severity: 'error', title: 'Syntax error', doc: 'A line could not be read. The message says what was expected at the marked place.' },
   // The message lists the block kinds (from the schema); the catalogue stays below the model layer.
@@ -28,8 +39,8 @@ export const CATALOGUE = {
   'import-outside-root': { severity: 'error', title: 'Used file outside the workspace', doc: 'A `use` path leaves the workspace root (for the CLI, the folder given with --root, by default the file\'s own folder) and is refused.' },
   'more-problems': { severity: 'info', title: 'More problems than are listed', doc: 'A file has more than 200 diagnostics: the first 200 (by position) are listed and this one stands for the rest, from the first one left off, as severe as the worst of them. A file that broken needs its first problems fixed before the rest mean much; the cap also keeps a huge broken file from stalling the tool.' },
   'import-problems': { severity: 'error', title: 'Used file has errors', doc: 'A file brought in with `use` has errors of its own; they are listed against that file.' },
-  'bias-current-low': { severity: 'warning', title: 'Bias current below the range that works well', doc: 'Below the window (default 1 µA) reverse leakage, surface currents and ADC input leakage become a visible share of the bias and noise pickup grows (common practice).' },
-  'bias-current-high': { severity: 'warning', title: 'Bias current above the range that works well', doc: 'Above the window (default 1 mA) self-heating of a small-signal part and the drop on its series resistance become visible errors (common practice).' },
+  'bias-current-low': { severity: 'warning', title: `Bias current below ${CURRENT_RANGE}`, doc: `Under 1 µA by default (the channel's \`current_window\` sets the range) reverse leakage, surface currents and ADC input leakage become a visible share of the bias and noise pickup grows (common practice).` },
+  'bias-current-high': { severity: 'warning', title: `Bias current above ${CURRENT_RANGE}`, doc: `Over 1 mA by default (the channel's \`current_window\` sets the range) self-heating of a small-signal part and the drop on its series resistance become visible errors (common practice).` },
   'clip-high': { severity: 'error', title: 'Sensed voltage above the ADC reference', doc: 'Somewhere in the range the sensed voltage exceeds the reference: the ADC saturates at full scale.' },
   'clip-low': { severity: 'error', title: 'Sensed voltage below zero', doc: 'Somewhere in the range the sensed voltage is below 0 V: the ADC reads zero.' },
   'code-saturated': { severity: 'warning', title: 'Range reaches an end code of the converter', doc: 'The sensed voltage stays within 0 V .. the reference, but part of the range gives code 0 (below 1 LSB) or the full-scale code 2^bits - 1 (at or above (2^bits - 1) LSB). Each end code stands for every voltage beyond it, so the temperatures there read alike; the generated code reports an end code as outside the range, never as a temperature. The message gives the temperatures that share the code.' },

@@ -3,7 +3,7 @@
 // the names, options or forms the field takes; after a number the units of its dimension.
 import type { Analysis } from '../analysis/result';
 import type { BlockNode, Span } from '../syntax/ast';
-import { blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
+import { BIAS_FORMS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
 import { sensorKind } from '../sensors/registry';
 import { SUGGESTED_UNITS, type Dimension } from '../model/units';
 import { blockSpecs, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
@@ -129,9 +129,9 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   }
   if (form.form === 'bias' && onlyWord) {
     return [
-      { label: 'resistor', kind: 'form', detail: 'resistor R from V', documentation: 'A resistor from a supply rail; each value may carry a tolerance, e.g. `resistor 47k ± 1 % from 3.3 V ± 2 %`.', insertText: 'resistor ${1:47k} from ${2:3.3 V}', snippet: true, replace: wordSpan },
-      { label: 'current', kind: 'form', detail: 'current I', documentation: 'A constant-current source, e.g. `current 100 uA ± 2 %`.', insertText: 'current ${1:100 uA}', snippet: true, replace: wordSpan },
-      { label: 'divider', kind: 'form', detail: 'divider R above|below from V', documentation: 'A thermistor or RTD in a divider with a fixed resistor R from a supply: `above` puts R on the supply side (the sensor to ground), `below` puts the sensor on the supply side, e.g. `divider 10k ± 0.1 % above from 3.3 V`.', insertText: 'divider ${1:10k} ${2|above,below|} from ${3:3.3 V}', snippet: true, replace: wordSpan },
+      { label: 'resistor', kind: 'form', detail: BIAS_FORMS[0], documentation: 'A resistor from a supply rail; each value may carry a tolerance, e.g. `resistor 47k ± 1 % from 3.3 V ± 2 %`.', insertText: 'resistor ${1:47k} from ${2:3.3 V}', snippet: true, replace: wordSpan },
+      { label: 'current', kind: 'form', detail: BIAS_FORMS[1], documentation: 'A constant-current source, e.g. `current 100 uA ± 2 %`.', insertText: 'current ${1:100 uA}', snippet: true, replace: wordSpan },
+      { label: 'divider', kind: 'form', detail: BIAS_FORMS[2], documentation: 'A thermistor or RTD in a divider with a fixed resistor R from a supply: `above` puts R on the supply side (the sensor to ground), `below` puts the sensor on the supply side, e.g. `divider 10k ± 0.1 % above from 3.3 V`.', insertText: 'divider ${1:10k} ${2|above,below|} from ${3:3.3 V}', snippet: true, replace: wordSpan },
     ];
   }
   if (form.form === 'bias' && /^divider[ \t]+\S+(?:[ \t]*(?:±|\+\/-|\+-)[ \t]*\S+(?:[ \t]*%)?)?[ \t]+[A-Za-z]*$/.test(value) && !NUMBER_AT_END.test(value)) {

@@ -32,7 +32,7 @@ export function formatText(text: string): FormatResult {
       events.push({ start: item.span.start, end: brace + 1, kind: 'header', block: item, render: () => `${item.keyword.text} ${item.name.text} {` });
       for (const f of item.fields) {
         if (f.kind !== 'field') continue;
-        events.push({ start: f.span.start, end: f.span.end, kind: 'field', block: item, render: () => `${INDENT}${f.key.text.padEnd(keyWidth)} = ${f.value.map((t) => term(t, text)).join(' ')}` });
+        events.push({ start: f.span.start, end: f.span.end, kind: 'field', block: item, render: () => `${INDENT}${f.key.text.padEnd(keyWidth)} =${f.value.map((t) => ` ${term(t, text)}`).join('')}` });
       }
       const close = item.closeSpan!;
       events.push({ start: close.start, end: close.end, kind: 'close', block: item, render: () => '}' });

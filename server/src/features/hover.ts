@@ -168,11 +168,10 @@ export function biasHover(r: ChannelResult): string {
   const tol = b.kind === 'current'
     ? (b.amps.tolerance ? `current ± ${f.percent(b.amps.tolerance)}` : '')
     : [b.ohms.tolerance ? `resistor ± ${f.percent(b.ohms.tolerance)}` : '', b.supply.tolerance ? `supply ± ${f.percent(b.supply.tolerance)}` : ''].filter(Boolean).join(', ');
-  const inWindow = s.ampsMin >= c.windowLowA && s.ampsMax <= c.windowHighA;
   return [
     `**bias of ${c.name}**: ${biasText(r)}${tol ? ` (${tol}; figures at nominal values)` : ''}`,
     pointTable(r, ['amps', 'volts', 'heat']),
-    `Current ${f.ampsSpan(s.ampsMin, s.ampsMax)}: ${inWindow ? 'inside' : '**outside**'} the range of bias current that works well, ${f.amps(c.windowLowA)} .. ${f.amps(c.windowHighA)} (\`current_window\`)`,
+    ...(kindOf(c.sensor).biasHoverLines?.(r) ?? []),
     `Self-heating: up to ${f.rise(s.selfHeatingMaxK)}`,
   ].join('\n\n');
 }

@@ -7,6 +7,7 @@ import { fieldSpec, type BlockKind, type BlockSpec, type FieldSpec } from './sch
 import type { AdcDef, ChannelDef, SensorDef, Toleranced } from './types';
 import { askForRest, noExtra, readQuantityField, readRange, spanOf, type ReadContext } from './read-value';
 import { closest } from './suggest';
+import { askForValue } from './language';
 import { shown } from '../diagnostics/shown';
 
 export interface BlockRef {
@@ -23,8 +24,11 @@ export interface Resolution {
   channels: ChannelDef[];
 }
 
-/** Fields of a block by canonical name; reports unknown and repeated fields. */
-function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<string, { spec: FieldSpec; node: FieldNode }> {
+/**
+ * Fields of a block by canonical name; reports unknown and repeated fields, and a field with no
+ * value (`conversion =`) with the forms it takes; such a field is named in `empty`, not in the map.
+ */
+function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink, empty: Set<string>): Map<string, { spec: FieldSpec; node: FieldNode }> {
   const out = new Map<string, { spec: FieldSpec; node: FieldNode }>();
   for (const f of ref.node.fields) {
     if (f.kind !== 'field') continue;
@@ -34,8 +38,13 @@ function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<str
       sink.report('unknown-field', ref.file, f.key.span, `${spec.kind} has no field '${shown(f.key.text)}'${near ? ` (did you mean '${near}'?)` : `; its fields are ${spec.fields.map((x) => x.name).join(', ')}`}`);
       continue;
     }
-    if (out.has(fs.name)) {
+    if (out.has(fs.name) || empty.has(fs.name)) {
       sink.report('duplicate-field', ref.file, f.key.span, `'${fs.name}' is already given in this ${spec.kind}; this one is ignored`);
+      continue;
+    }
+    if (f.value.length === 0) {
+      sink.report('bad-value', ref.file, f.span, askForValue(fs));
+      empty.add(fs.name);
       continue;
     }
     out.set(fs.name, { spec: fs, node: f });
@@ -46,9 +55,12 @@ function fieldsOf(ref: BlockRef, spec: BlockSpec, sink: DiagnosticSink): Map<str
 export class BlockReader {
   readonly fields: Map<string, { spec: FieldSpec; node: FieldNode }>;
   readonly fieldSpans: Record<string, Span> = {};
+  /** Fields written with no value (already reported; the block is not usable). */
+  readonly empty = new Set<string>();
   ok = true;
   constructor(readonly ref: BlockRef, readonly spec: BlockSpec, readonly sink: DiagnosticSink) {
-    this.fields = fieldsOf(ref, spec, sink);
+    this.fields = fieldsOf(ref, spec, sink, this.empty);
+    if (this.empty.size > 0) this.ok = false;
     for (const [name, f] of this.fields) this.fieldSpans[name] = spanOf(f.node.value);
   }
   ctx(name: string): ReadContext {
@@ -64,6 +76,8 @@ export class BlockReader {
     return null;
   }
   missing(name: string): void {
+    this.ok = false;
+    if (this.empty.has(name)) return; // written without a value: asked for it already
     const fs = fieldSpec(this.spec, name)!;
     this.sink.report('missing-field', this.ref.file, this.ref.node.name.span, `${this.spec.kind} '${shown(this.ref.node.name.text)}' needs '${name}', e.g. \`${fs.example}\``);
     this.ok = false;

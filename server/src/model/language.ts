@@ -2,8 +2,9 @@
 // and unit table (units.ts): whether a field is needed, a new block's template, and the word lists
 // of the TextMate grammar. Completion reads this; scripts/gen-docs.ts writes the snippets, the
 // grammar and docs/reference.md from it.
-import { allBlocks, type BlockSpec, type FieldSpec } from './schema';
-import { UNIT_TEXTS } from './units';
+import { allBlocks, BIAS_FORMS, kindWithArticle, type BlockSpec, type FieldSpec } from './schema';
+import { DIMENSION_WORDS, UNIT_TEXTS } from './units';
+import { kindsInWords } from '../sensors/registry';
 
 /** Every block kind, in the schema's order (sensor kinds in the registry's, then adc, channel). */
 export function blockSpecs(): BlockSpec[] {
@@ -25,6 +26,28 @@ export function needText(f: FieldSpec): string {
   if (n.need === 'default') return `default ${n.text}`;
   if (n.need === 'alternative') return `one way of several: ${n.way}`;
   return n.need;
+}
+
+/**
+ * What a field with no value is asked for (`conversion =` at the end of a line): the forms it takes,
+ * from its schema entry, then its example (model/block-reader.ts reports it).
+ */
+export function askForValue(f: FieldSpec): string {
+  const form = f.form;
+  const takes =
+    form.form === 'choice' ? inWords(form.options.map((o) => `\`${o}\``))
+    : form.form === 'ref' ? `the name of ${form.targets ? kindsInWords() : kindWithArticle(form.target)} definition`
+    : form.form === 'bias' ? `one of its forms, ${inWords(BIAS_FORMS.map((b) => `\`${b}\``))} (which ones depends on the sensor's kind)`
+    : form.form === 'phrase' ? `the form \`${form.syntax}\``
+    : form.form === 'range' ? `a range \`low .. high\` of ${DIMENSION_WORDS[form.dimension]}`
+    : form.form === 'resolution' ? 'degrees per count or counts per degree'
+    : form.form === 'accuracy' ? 'a target `± t`'
+    : DIMENSION_WORDS[form.dimension];
+  return `${f.name} has no value: give ${takes}, such as \`${f.example}\``;
+}
+
+function inWords(list: string[]): string {
+  return list.length < 2 ? list.join('') : `${list.slice(0, -1).join(', ')} or ${list[list.length - 1]}`;
 }
 
 /** The field's example value (the text after `=`). */

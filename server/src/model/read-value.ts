@@ -186,8 +186,12 @@ export function noExtra(terms: Term[], used: number, ctx: ReadContext): boolean 
  */
 export function askForRest(terms: Term[], ctx: ReadContext): boolean {
   const last = terms[terms.length - 1];
+  const table = HALF_TYPED[ctx.field];
+  const before = terms[terms.length - 2];
+  // A number after a word (`resistor 47k`) is looked up as `resistor _`, else as ''.
+  const afterWord = last?.kind === 'quantity' && before?.kind === 'word' ? table?.[`${before.text} _`] : undefined;
   const key = last?.kind === 'word' ? last.text : last?.kind === 'quantity' ? '' : undefined;
-  const want = key === undefined ? undefined : HALF_TYPED[ctx.field]?.[key];
+  const want = afterWord ?? (key === undefined ? undefined : table?.[key]);
   if (!last || want === undefined) return false;
   ctx.sink.report('bad-value', ctx.file, last.span, `${ctx.field} is not finished: add ${want}`);
   return true;

@@ -4,6 +4,7 @@
 // channel blocks are here; each sensor kind's block is in its folder, found through the registry.
 import type { Dimension } from './units';
 import { sensorKind, sensorKinds } from '../sensors/registry';
+import { CURRENT_RANGE } from '../diagnostics/catalogue';
 
 /** A block keyword: `adc`, `channel` or a sensor kind's name (sensors/registry.ts). */
 export type BlockKind = string;
@@ -94,7 +95,7 @@ const channel = (): BlockSpec => ({
     { name: 'accuracy', form: { form: 'accuracy' }, doc: 'Accuracy target, e.g. `± 0.5 °C`. Used for the self-heating and nonlinearity checks. Unchecked when absent.', example: 'accuracy = ± 0.5 °C', optional: true },
     { name: 'theta_ja', form: { form: 'quantity', dimension: 'thermal-resistance', min: 0, minInclusive: true, max: 1e5 }, defaultText: 'the sensor\'s theta_ja', doc: 'Thermal resistance for this channel\'s mounting, overriding the sensor\'s.', example: 'theta_ja = 250 K/W' },
     { name: 'conversion', form: { form: 'choice', options: ['table', 'line'] }, defaultText: 'table', doc: 'How firmware converts codes to temperature: `table` (generated table, model-exact) or `line` (a straight line; its nonlinearity is checked against the accuracy).', example: 'conversion = table', optionDocs: { table: 'Firmware converts codes through a generated table (model-exact).', line: 'Firmware converts codes with a straight line; its nonlinearity is checked against the accuracy target.' } },
-    { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: 'Range of bias current that works well for the sensor: below it leakage and noise, above it self-heating (see bias-current-low/high).', example: 'current_window = 5 uA .. 500 uA' },
+    { name: 'current_window', form: { form: 'range', dimension: 'current' }, defaultText: '1 uA .. 1 mA', doc: `On a junction channel, ${CURRENT_RANGE}: below it leakage and noise, above it self-heating (see bias-current-low/high). Other kinds do not use it.`, example: 'current_window = 5 uA .. 500 uA' },
     { name: 'calibration', form: { form: 'phrase', syntax: 'none | one point at T | two points at T1 and T2' }, defaultText: 'none', doc: 'Calibration done on each built board: `none`, `one point at 25 °C` (an offset trim) or `two points at 0 °C and 70 °C` (offset and gain trim). The error budget gives the residual error after it.', example: 'calibration = one point at 25 °C', words: ['none', 'one', 'two', 'point', 'points', 'at', 'and'] },
     { name: 'cal_reference', form: { form: 'phrase', syntax: '± t' }, defaultText: '± 0 °C (exact)', doc: 'Uncertainty of the reference thermometer each board is calibrated against (half-width, 0 to 10 K). The error budget passes it, with the quantisation and INL of the calibration readings, through the trim to every temperature.', example: 'cal_reference = ± 0.05 °C' },
     { name: 'measured', form: { form: 'phrase', syntax: 'code counts at T [and code counts at T ...]' }, doc: 'ADC codes read on a real board at known temperatures. On a junction channel the model is fitted to them (IS with one point; IS and N with two or more) and the error budget and generated code use the fitted model; a point that disagrees with the others is flagged and left out of that fit. Codes are whole numbers inside the converter scale (not 0 or full scale); thermistor and RTD channels do not use the points (a warning says so).', example: 'measured = 2110 counts at 25 °C and 1790 counts at 70 °C', optional: true, words: ['at', 'and'] },
@@ -193,13 +194,16 @@ export function fieldSpec(block: BlockSpec, name: string): FieldSpec | undefined
 }
 
 /** A block kind with its article as read aloud: "an adc", "a channel"; a sensor kind says its own ("an rtd"). */
+/** Every form a `bias` takes, over all sensor kinds (completion offers them; an empty bias is asked for them). */
+export const BIAS_FORMS = ['resistor R from V', 'current I', 'divider R above|below from V', 'currents I1 and I2', 'resistors R1 and R2 from V'];
+
 export function kindWithArticle(kind: string): string {
   return sensorKind(kind)?.a ?? `${kind === 'adc' ? 'an' : 'a'} ${kind}`;
 }
 
 /**
  * What a half-typed phrase lacks, by field and by the word it ends with ('' when it ends with a
- * number): the readers ask for it (`bias = resistor 47k from` → "add the supply voltage after
+ * number; `word _` when it ends with a number right after that word): the readers ask for it (`bias = resistor 47k from` → "add the supply voltage after
  * 'from', such as 3.3 V"). Only the words of each field's phrase (its `words`, or the bias forms).
  */
 export const HALF_TYPED: Readonly<Record<string, Readonly<Record<string, string>>>> = {
@@ -213,6 +217,12 @@ export const HALF_TYPED: Readonly<Record<string, Readonly<Record<string, string>
     below: '\'from\' and the supply voltage, such as `below from 3.3 V`',
     from: 'the supply voltage after \'from\', such as `from 3.3 V`',
     and: 'the second value after \'and\', such as `and 100 uA`',
+    // After a value (`_`): what follows it in each form.
+    'resistor _': '\'from\' and the supply voltage after the resistance, such as `resistor 47k from 3.3 V`',
+    'resistors _': '\'and\' and the second resistance, then the supply, such as `resistors 330k and 33k from 3.3 V`',
+    'currents _': '\'and\' and the second current, such as `currents 10 uA and 100 uA`',
+    'divider _': 'the side of the fixed resistor, `above` or `below`, and the supply, such as `divider 10k above from 3.3 V`',
+    'and _': '\'from\' and the supply voltage after the second resistance, such as `resistors 330k and 33k from 3.3 V`',
   },
   resolution: {
     '': '`per count` after the figure, such as `0.1 °C per count` (or `10 counts per °C`)',

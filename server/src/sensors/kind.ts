@@ -109,6 +109,8 @@ export interface SensorKind<S extends SensorDef = SensorDef> {
   hover(a: Analysis, s: S): string;
   /** Extra lines of a channel's hover (its parts beyond bias and ADC). */
   channelHoverLines?(r: ChannelResult): string[];
+  /** Extra lines of a channel's `bias` hover (the junction's current range). */
+  biasHoverLines?(r: ChannelResult): string[];
   /** One line for completion of a `sensor = ` value. */
   summary(s: S): string;
   // ---- generated code (codegen/channel-input.ts)

@@ -224,6 +224,7 @@ function errorSpan(err: unknown, base: number, limit: number): Span {
 // term kinds, grammar/tsense.peggy): a message names them together as "a value".
 const TERM_EXPECTATIONS = new Set(['±', 'a name', 'a number such as 4k7, 1.5e-3 or 3.3 V', 'a quoted path such as "parts.tsense"', 'a unit such as °C', '"±"', '"+/-"', '"+-"', '".."']);
 const VALUE_WORDS = 'a value such as 4k7, 3.3 V ± 1 %, -40 °C .. 125 °C or a name';
+const LINE_END_WORDS = new Set(['";"', 'a comment', 'end of line', 'the end of the line']);
 
 /**
  * Peggy's expectations in plain words: the term kinds as "a value" (after `=`) or "another value
@@ -243,7 +244,10 @@ function plainMessage(err: unknown, line: string): string {
   let list = words;
   if (words.includes('a number such as 4k7, 1.5e-3 or 3.3 V')) {
     const afterEquals = /=\s*$/.test(line.slice(0, e.location.start.offset));
-    list = [afterEquals ? VALUE_WORDS : 'another value or word', ...words.filter((w) => !TERM_EXPECTATIONS.has(w))];
+    // After `=` a value may also be missing (the reader then asks for it), but what stands there
+    // was not one: ask for the value alone.
+    const rest = words.filter((w) => !TERM_EXPECTATIONS.has(w) && !(afterEquals && LINE_END_WORDS.has(w)));
+    list = [afterEquals ? VALUE_WORDS : 'another value or word', ...rest];
   }
   list = [...new Set(list.map((w) => (w === 'end of line' ? 'the end of the line' : w)))];
   const expected = list.length <= 1 ? (list[0] ?? 'something else') : `${list.slice(0, -1).join(', ')} or ${list[list.length - 1]}`;

@@ -1,7 +1,7 @@
 // Drives code-server's page with Debian's chromium through playwright-core: (1) the in-editor suite
 // through the smoke-test driver's payload, (2) a user's path through the workbench.
 import * as path from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { CHROMIUM } from './paths';
 
 export interface Outcome {
@@ -105,23 +105,7 @@ export async function walkAsUser(context: BrowserContext, baseUrl: string, works
       await page.keyboard.press('Control+Shift+M');
       const name = page.locator('.monaco-editor .view-line span', { hasText: /^door_seal$/ }).first();
       await name.waitFor({ state: 'visible', timeout: LIMIT });
-      // The widget shows "Loading..." until the server answers; wait for real content.
-      // (A string: this runs in the page, and the project compiles without DOM types.)
-      const shown = `(() => {
-        const el = document.querySelector('.monaco-hover:not(.hidden)');
-        const text = el ? el.innerText : '';
-        return text.trim().length > 0 && !/Loading/.test(text);
-      })()`;
-      // Code lenses and inlay hints arriving after the pointer came to rest can move the line away
-      // from under it, and the editor then shows no hover: point at the name again until one shows.
-      const deadline = Date.now() + LIMIT;
-      for (;;) {
-        await page.mouse.move(0, 0);
-        await name.hover();
-        const ok = await page.waitForFunction(shown, undefined, { timeout: 10_000 }).then(() => true, () => false);
-        if (ok) break;
-        if (Date.now() > deadline) throw new Error(`no hover with content within ${LIMIT} ms`);
-      }
+      await hoverUntilShown(page, name);
       const text = (await page.locator('.monaco-hover:not(.hidden)').first().innerText()).replace(/\s+/g, ' ').trim();
       await page.screenshot({ path: path.join(outDir, 'hover.png') });
       if (text.length === 0) throw new Error('hover is empty');
@@ -134,7 +118,56 @@ export async function walkAsUser(context: BrowserContext, baseUrl: string, works
   return outcomes;
 }
 
-async function quickOpen(page: Page, fileName: string): Promise<void> {
+/**
+ * Points the mouse at `target` until the editor shows a hover with content (not "Loading..."):
+ * code lenses and inlay hints arriving after the pointer came to rest can move the line away from
+ * under it, and the editor then shows no hover, so it points again until one shows.
+ */
+export async function hoverUntilShown(page: Page, target: Locator, limit = LIMIT): Promise<void> {
+  // (A string: this runs in the page, and the project compiles without DOM types.)
+  const shown = `(() => {
+    const el = document.querySelector('.monaco-hover:not(.hidden)');
+    const text = el ? el.innerText : '';
+    return text.trim().length > 0 && !/Loading/.test(text);
+  })()`;
+  const deadline = Date.now() + limit;
+  for (;;) {
+    await page.mouse.move(0, 0);
+    await target.hover();
+    const ok = await page.waitForFunction(shown, undefined, { timeout: 10_000 }).then(() => true, () => false);
+    if (ok) return;
+    if (Date.now() > deadline) throw new Error(`no hover with content within ${limit} ms`);
+  }
+}
+
+/** F1 and a command by its title; waits until the focused row is that command before Enter. */
+export async function runCommand(page: Page, title: string): Promise<void> {
+  await page.keyboard.press('F1');
+  const input = page.locator('.quick-input-widget input');
+  await input.waitFor({ state: 'visible', timeout: LIMIT });
+  await input.fill(`>${title}`);
+  await page.locator('.quick-input-list .monaco-list-row.focused', { hasText: title.replace(/^.*: /, '') }).first().waitFor({ timeout: LIMIT });
+  await page.keyboard.press('Enter');
+}
+
+/**
+ * Closes every editor and editor group, answering "Don't Save" to any question about an unsaved
+ * editor (the workspace is a temporary copy), until one empty group is left.
+ */
+export async function closeAllEditors(page: Page): Promise<void> {
+  await runCommand(page, 'View: Close All Editor Groups');
+  const dontSave = page.locator('.monaco-dialog-box .monaco-button', { hasText: "Don't Save" });
+  const deadline = Date.now() + LIMIT;
+  const closed = `document.querySelectorAll('.tabs-container .tab').length === 0 && document.querySelectorAll('.editor-group-container').length === 1`;
+  for (;;) {
+    const done = await page.waitForFunction(closed, undefined, { timeout: 5_000 }).then(() => true, () => false);
+    if (done) return;
+    if (await dontSave.first().isVisible()) await dontSave.first().click();
+    if (Date.now() > deadline) throw new Error('the editors did not close');
+  }
+}
+
+export async function quickOpen(page: Page, fileName: string): Promise<void> {
   await page.keyboard.press('Control+P');
   const input = page.locator('.quick-input-widget input');
   await input.waitFor({ state: 'visible', timeout: LIMIT });

@@ -35,8 +35,14 @@ export function firstContactChecks(open: (relative: string) => Promise<vscode.Te
       fn: async () => {
         const doc = await vscode.workspace.openTextDocument({ language: 'tsense', content: 'channel c {\n  range = 0 °C .. \n}\n' });
         await vscode.window.showTextDocument(doc, { preview: false });
-        const ds = await waitForDiagnostics(doc.uri, (d) => d.some((x) => /upper end/.test(x.message)), DIAGNOSTICS_MS, 'a message asking for the upper end');
-        assert(!ds.some((d) => /found "\."/.test(d.message)), 'the old message about "." is still there');
+        try {
+          const ds = await waitForDiagnostics(doc.uri, (d) => d.some((x) => /upper end/.test(x.message)), DIAGNOSTICS_MS, 'a message asking for the upper end');
+          assert(!ds.some((d) => /found "\."/.test(d.message)), 'the old message about "." is still there');
+        } finally {
+          // Leave no unsaved editor behind: the page steps after the suite restore the window, and
+          // closing an unsaved editor there asks whether to save it.
+          await vscode.commands.executeCommand('workbench.action.revertAndCloseActiveEditor');
+        }
       },
     },
   ];

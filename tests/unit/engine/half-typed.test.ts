@@ -28,4 +28,17 @@ describe('half-typed values ask for what is missing', () => {
     expect(rows).toMatch(/expected the upper end of a range, such as 125 °C, found the end of the line/);
     expect(rows).not.toMatch(/expected a comment|found "\."/);
   });
+  it('no half-typed form gets the generic parser message; an empty value is asked for the forms its field takes', () => {
+    for (const form of FORMS) {
+      const rows = diagnosticRows(analyseFile(path.join(DIR, `${form}.tsense`)), DIR).join('\n');
+      expect(rows, form).not.toMatch(/expected a value such as|expected a comment/);
+    }
+    const choice = diagnosticRows(analyseFile(path.join(DIR, 'choice.tsense')), DIR).join('\n');
+    expect(choice).toContain('conversion has no value: give `table` or `line`');
+    const ref = diagnosticRows(analyseFile(path.join(DIR, 'ref.tsense')), DIR).join('\n');
+    expect(ref).toContain('sensor has no value: give the name of');
+    expect(ref).not.toContain("needs 'sensor'"); // written without a value is not missing
+    const bias = diagnosticRows(analyseFile(path.join(DIR, 'bias.tsense')), DIR).join('\n');
+    expect(bias).toContain("add 'from' and the supply voltage after the resistance, such as `resistor 47k from 3.3 V`");
+  });
 });

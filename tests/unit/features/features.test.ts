@@ -165,6 +165,14 @@ describe('independent checks: resistive sensor hovers', () => {
     // (CVD quadratic 1000 (1 + 150 A + 150² B), published equation).
   });
 
+  it("an RTD's bias hover has no line on the junction's current range (a junction rule)", () => {
+    const md = at('rtd-bias.tsense');
+    // 2 mA through 100 Ω: the table row shows the bias current (Ohm's law; common practice, no source).
+    expect(md).toContain('**bias of pt_ch**');
+    expect(md).toContain('2 mA');
+    expect(md).not.toMatch(/current range where|current_window|works well/);
+  });
+
   it('shows a beta-model thermistor with R at the channel range ends', () => {
     const md = at('thermistor-block.tsense');
     // Beta model R(T) = R25 exp(beta (1/T - 1/298.15 K)) (published equation; Steinhart & Hart 1968

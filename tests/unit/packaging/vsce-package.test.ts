@@ -28,16 +28,32 @@ describe('packaging with vsce and no options', () => {
     expect(fs.statSync(out).size).toBeGreaterThan(0);
   });
 
-  it('the packaged README links only to files in the package (DEVELOPERS.md is not one)', () => {
+  it('the packaged README links only to files in the package (DEVELOPERS.md is not one) and shows no image', () => {
     const r = vsce(['ls']);
     expect(r.status, r.stderr).toBe(0);
     const packaged = new Set(r.stdout.split('\n').map((l) => l.trim()).filter(Boolean));
     expect(packaged.has('README.md')).toBe(true);
     expect(packaged.has('DEVELOPERS.md')).toBe(false);
-    const readme = fs.readFileSync(path.join(ROOT, 'README.md'), 'utf8');
+    // The package's README is the build's copy of README.md without its screenshot (vsce takes only
+    // https images in a packaged README, and no public repository is named to make one of it).
+    const manifest = JSON.parse(fs.readFileSync(path.join(ROOT, 'package.json'), 'utf8')) as { vsce: { readmePath?: string } };
+    expect(manifest.vsce.readmePath).toBe('dist/README.md');
+    const readme = fs.readFileSync(path.join(ROOT, manifest.vsce.readmePath!), 'utf8');
     const links = [...readme.matchAll(/\]\(([^)\s]+)\)|<img[^>]+src="([^"]+)"/g)].map((m) => (m[1] ?? m[2])!);
     const relative = links.filter((l) => !/^[a-z]+:/i.test(l) && !l.startsWith('#')).map((l) => l.replace(/^\.\//, '').replace(/#.*$/, ''));
     for (const target of relative) expect(packaged, `README links to ${target}, which the .vsix does not hold`).toContain(target);
     expect(readme).not.toMatch(/\]\(DEVELOPERS\.md/);
+    expect(readme).not.toMatch(/!\[|<img/);
+    // Nothing else differs from the repository's README.
+    const source = fs.readFileSync(path.join(ROOT, 'README.md'), 'utf8');
+    const strip = (t: string) => t.split('\n').filter((l) => !l.startsWith('![')).join('\n').replace(/\n{3,}/g, '\n\n');
+    expect(readme).toBe(strip(source));
+  });
+
+  it("the repository's README shows the editor screenshot that the editor run takes", () => {
+    const source = fs.readFileSync(path.join(ROOT, 'README.md'), 'utf8');
+    expect(source).toMatch(/^!\[[^\]]+\]\(media\/editor-tour\.png\)$/m);
+    const png = fs.readFileSync(path.join(ROOT, 'media', 'editor-tour.png'));
+    expect(png.subarray(1, 4).toString('latin1')).toBe('PNG');
   });
 });

@@ -6,6 +6,8 @@ import { ZERO_CELSIUS_K } from '../../physics/constants';
 import { formatSI, trimNumber } from '../../model/read-value';
 import * as f from '../../analysis/figures';
 import type { JunctionDef } from './types';
+import type { ChannelResult } from '../../analysis/types';
+import { currentRangeOf, insideCurrentRange } from './bias-window';
 
 const ROOM_K = 25 + ZERO_CELSIUS_K;
 
@@ -28,4 +30,10 @@ export function junctionHover(a: Analysis, j: JunctionDef): string {
 /** One line for completion of a `sensor = ` value. */
 export function junctionSummary(j: JunctionDef): string {
   return `${j.params.kind}, IS ${formatSI(j.params.IS, 'A')}, N ${trimNumber(j.params.N, 4)}`;
+}
+
+/** The bias hover's line on the current range (`current_window`), judged as bias-window.ts judges it. */
+export function junctionBiasLines(r: ChannelResult): string[] {
+  const inside = insideCurrentRange(r);
+  return [`Current ${f.ampsSpan(r.summary.ampsMin, r.summary.ampsMax)}: ${inside ? 'inside' : '**outside**'} ${currentRangeOf(r.channel)}, set by \`current_window\``];
 }

@@ -9,7 +9,7 @@ import { fitJunction } from './fit';
 import { checkSupply } from './supply';
 import { checkBiasWindow } from './bias-window';
 import { checkTwoCurrent } from './two-current';
-import { junctionHover, junctionSummary } from './hover';
+import { junctionBiasLines, junctionHover, junctionSummary } from './hover';
 import type { JunctionDef } from './types';
 
 export const junction: SensorKind<JunctionDef> = {
@@ -29,5 +29,6 @@ export const junction: SensorKind<JunctionDef> = {
   faults: junctionFaultVolts,
   checks: { first: [checkSupply, checkBiasWindow], last: [checkTwoCurrent] },
   hover: junctionHover,
+  biasHoverLines: junctionBiasLines,
   summary: junctionSummary,
 };

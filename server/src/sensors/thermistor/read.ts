@@ -70,7 +70,8 @@ export function readThermistor(r: BlockReader, base: DefBase): ThermistorDef | n
   const name = r.ref.node.name;
   const rated = r.range('rated', [-40 + ZERO_C, 125 + ZERO_C]);
   const theta = readDissipation(r, 1.5e-3);
-  const has = (f: string) => r.terms(f) !== undefined;
+  // A field written with no value (asked for already) still says which way the curve is given.
+  const has = (f: string) => r.terms(f) !== undefined || r.empty.has(f);
   const forms = [
     has('beta') ? 'beta' : null,
     has('sh_a') || has('sh_b') || has('sh_c') ? 'coefficients' : null,
