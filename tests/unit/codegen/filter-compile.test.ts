@@ -131,27 +131,33 @@ const sizeMissing = missingTools(['avr-gcc', 'avr-size', 'arm-none-eabi-gcc', 'a
 if (sizeMissing.length > 0) console.log(`filter-compile: size check skipped, missing ${sizeMissing.join(', ')}`);
 
 describe.skipIf(sizeMissing.length > 0)('the filter\'s term of the byte estimate (codegen/design.ts filterBytes) against real links', () => {
-  // Linked .text + .data with the filter's reset and update called, minus without (-Os, gc-sections),
-  // as the size model's other terms are measured; within 15 % on both targets.
+  // Linked .text + .data of a program converting with the filter's reset and update called, minus
+  // the same program converting without them (-Os, gc-sections); within 15 % on both targets.
   it('is within 15 % of the linked bytes on the atmega328p and the Cortex-M0', () => {
     const lines: string[] = [];
+    const rel: { f: CodeFilter; avr: number; m0: number }[] = [];
     for (const f of FILTERS) {
       const dir = new WorkDir();
       try {
         const input = syntheticDiodeChannel({ channelName: 'sized', filter: f });
         dir.write('conv.c', generateC([input], { fileStem: 'conv' }).text);
         dir.write('conv.h', generateC([input], { fileStem: 'conv', header: true }).text);
-        dir.write('main.c', `#include <stdint.h>\n#include "conv.h"\nvolatile uint16_t sink_in, sink_out;\nint main(void)\n{\n#if WHICH == 1\n    static sized_filter_t f;\n    sized_filter_reset(&f, sink_in);\n    sink_out = sized_filter_update(&f, sink_in);\n#endif\n    for (;;) {\n    }\n}\n`);
+        // Both programs convert, as firmware does: the filter's term is what it adds beside a conversion
+        // (on the Cortex-M0 it shares start-up and literal-pool code with it; alone it links about 15 B more).
+        dir.write('main.c', `#include <stdint.h>\n#include "conv.h"\nvolatile uint16_t sink_in, sink_out;\nvolatile uint8_t sink;\nint16_t reading;\nint main(void)\n{\n    uint16_t in = sink_in;\n#if WHICH == 1\n    static sized_filter_t f;\n    sized_filter_reset(&f, in);\n    in = sized_filter_update(&f, in);\n#endif\n    sink = sized_code_to_temp(in, &reading);\n    for (;;) {\n    }\n}\n`);
         const avr = [0, 1].map((w) => elfBytes('avr-size', dir, avrElf(dir, ['main.c', 'conv.c'], `a${w}.elf`, [`WHICH=${w}`])));
         const m0 = [0, 1].map((w) => elfBytes('arm-none-eabi-size', dir, m0Elf(dir, ['main.c', 'conv.c'], `m${w}.elf`, [`WHICH=${w}`])));
         const linked = { avr: avr[1]! - avr[0]!, m0: m0[1]! - m0[0]! };
         lines.push(`${JSON.stringify(f)}: AVR about ${filterBytes(f, 'avr')} / linked ${linked.avr}; M0 about ${filterBytes(f, 'm0')} / linked ${linked.m0}`);
-        expect(Math.abs(filterBytes(f, 'avr') / linked.avr - 1), JSON.stringify(f)).toBeLessThanOrEqual(0.15);
-        expect(Math.abs(filterBytes(f, 'm0') / linked.m0 - 1), JSON.stringify(f)).toBeLessThanOrEqual(0.15);
+        rel.push({ f, avr: Math.abs(filterBytes(f, 'avr') / linked.avr - 1), m0: Math.abs(filterBytes(f, 'm0') / linked.m0 - 1) });
       } finally {
         dir.dispose();
       }
     }
     console.log(lines.join('\n'));
+    for (const r of rel) {
+      expect(r.avr, JSON.stringify(r.f)).toBeLessThanOrEqual(0.15);
+      expect(r.m0, JSON.stringify(r.f)).toBeLessThanOrEqual(0.15);
+    }
   }, 300_000);
 });
