@@ -5,7 +5,7 @@
 import { INT16_MAX, INT16_MIN, clamp } from './arith';
 import { MAX_AVERAGE_LOG2, MAX_RECURSIVE_SHIFT } from '../analysis/dynamics';
 import { GAIN_Q, GAIN_Q_MAX, TWO_POINT_FRAC, applyTrim, trimDesign } from './calibration';
-import type { ChannelPlan } from './emit';
+import { roundsByShift, type ChannelPlan } from './emit';
 import { uniqueIdentifiers } from './names';
 import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
 import { finish, makeIdeal, rounded, withFraction, type Samples } from './samples';
@@ -53,8 +53,8 @@ export function filterBytes(f: ConversionInput['filter'], target: SizeTarget): n
  * all eight thermocouple types (the fit over four left type N 12 % under).
  */
 export const SIZE_MODEL = {
-  avr: { direct: 32.7, polynomial: 306.9, split: 103.7, table16: 154.7, table32: 217.8, polyMulti: 8, oneSegment: -8.2, codeShift: 3.8, wideConst: 0.2, fraction: 0, offsetTrim: 8, gainTrim: 49, runtimeOffset: 60.3, runtimeTwoPoint: 318.9, floatInterp: 1288.6, floatOneSegment: 1076.9, floatPlain: 1230, floatTwoPoint: 0, floatOffset: 0, faultSide: 32.9, out32: 13, filterRecursive: FILTER_SIZE.avr.recursive, filterAverage: FILTER_SIZE.avr.average, filterAveragePerLog2: FILTER_SIZE.avr.perLog2, combine: 245.2 },
-  m0: { direct: 48.2, polynomial: 89.5, split: 88.3, table16: 93.3, table32: 85.5, polyMulti: 15.6, oneSegment: -37.4, codeShift: 1.1, wideConst: 8.7, fraction: 0, offsetTrim: 8, gainTrim: 30, runtimeOffset: 73.4, runtimeTwoPoint: 188.1, floatInterp: 3232.1, floatOneSegment: 2232.2, floatPlain: 2742, floatTwoPoint: 0, floatOffset: 0, faultSide: 8.1, out32: 0, filterRecursive: FILTER_SIZE.m0.recursive, filterAverage: FILTER_SIZE.m0.average, filterAveragePerLog2: FILTER_SIZE.m0.perLog2, combine: 92 },
+  avr: { direct: 32.7, polynomial: 306.9, split: 103.7, table16: 154.7, table32: 217.8, polyMulti: 8, oneSegment: -8.2, codeShift: 3.8, wideConst: 0.2, fraction: 0, fractionShift: 4, offsetTrim: 8, gainTrim: 49, runtimeOffset: 60.3, runtimeTwoPoint: 318.9, floatInterp: 1288.6, floatOneSegment: 1076.9, floatPlain: 1230, floatTwoPoint: 0, floatOffset: 0, faultSide: 32.9, out32: 13, filterRecursive: FILTER_SIZE.avr.recursive, filterAverage: FILTER_SIZE.avr.average, filterAveragePerLog2: FILTER_SIZE.avr.perLog2, combine: 245.2 },
+  m0: { direct: 48.2, polynomial: 89.5, split: 88.3, table16: 93.3, table32: 85.5, polyMulti: 15.6, oneSegment: -37.4, codeShift: 1.1, wideConst: 8.7, fraction: 0, fractionShift: 0, offsetTrim: 8, gainTrim: 30, runtimeOffset: 73.4, runtimeTwoPoint: 188.1, floatInterp: 3232.1, floatOneSegment: 2232.2, floatPlain: 2742, floatTwoPoint: 0, floatOffset: 0, faultSide: 8.1, out32: 0, filterRecursive: FILTER_SIZE.m0.recursive, filterAverage: FILTER_SIZE.m0.average, filterAveragePerLog2: FILTER_SIZE.m0.perLog2, combine: 92 },
 } as const;
 
 export type SizeTarget = keyof typeof SIZE_MODEL;
@@ -112,7 +112,8 @@ export function validateInput(c: ConversionInput): void {
   if (typeof c.celsiusAtCode !== 'function') fail(c, 'celsiusAtCode', 'must be a function');
 }
 
-function sample(c: ConversionInput): Samples {
+/** The model sampled at every in-range code of a validated input, without fraction bits. */
+export function sample(c: ConversionInput): Samples {
   const n = c.codeHigh - c.codeLow + 1;
   if (n > MAX_CODES) fail(c, 'codeHigh', `range too wide (${n} codes)`);
   const f = new Float64Array(n);
@@ -191,7 +192,7 @@ function perCount(c: ConversionInput, s: Samples): { min: number; max: number } 
 type Design = TableDesign | PolyDesign;
 
 /** The emitted form of a design, as the size model tells them apart. */
-function formOf(d: Design, s: Samples): 'direct' | 'polynomial' | 'split' | 'table16' | 'table32' {
+export function formOf(d: Design, s: Samples): 'direct' | 'polynomial' | 'split' | 'table16' | 'table32' {
   if (d.kind === 'polynomial') return 'polynomial';
   if (d.shift === 0) return 'direct';
   if (d.entryBits !== 16 || d.spanMax > 32767) return 'table32';
@@ -222,7 +223,13 @@ export function sizeFeatures(d: Design, s: Samples, extra?: SizeExtra): Partial<
   } else if (d.shift > 0 && d.entries.length === 2) f.oneSegment = 1;
   if (d.kind === 'polynomial' && d.coefs.length === 1) f.oneSegment = 1;
   const twoPoint = s.trim.mode === 'two-point';
-  if (s.frac > 0 && !twoPoint) f.fraction = 1;
+  if (s.frac > 0 && !twoPoint) {
+    f.fraction = 1;
+    // The 16-bit table kernel's rounding is one arithmetic shift (emit.ts roundFraction), measured
+    // with avr-gcc 5.4 -Os: an asr/ror pair (4 bytes, 2 cycles) per bit for 1 or 2 bits, a
+    // 10-byte loop for 3 or more (counted as 2.5 pairs); on a Cortex-M0 one asrs at any count.
+    if (roundsByShift(d)) f.fractionShift = roundingShifts(s.frac);
+  }
   if (s.trim.mode === 'offset') f[s.trim.runtime ? 'runtimeOffset' : 'offsetTrim'] = 1;
   if (twoPoint) f[s.trim.runtime ? 'runtimeTwoPoint' : 'gainTrim'] = 1;
   if (extra) {
@@ -237,6 +244,16 @@ export function sizeFeatures(d: Design, s: Samples, extra?: SizeExtra): Partial<
     if (extra.filter) Object.assign(f, filterFeatures(extra.filter));
   }
   return f;
+}
+
+/** The size model's count of the rounding shift of F fraction bits (SIZE_MODEL `fractionShift`: asr/ror pairs). */
+export function roundingShifts(frac: number): number {
+  return frac <= 2 ? frac : 2.5;
+}
+
+/** AVR cycles of the rounding shift of F fraction bits: 2 a bit inline, about 5 a bit in avr-gcc's loop from 3 bits. */
+export function roundingCycles(frac: number): number {
+  return frac === 0 ? 0 : frac <= 2 ? 2 * frac : 1 + 5 * frac;
 }
 
 /** Estimated linked bytes of code on a target: SIZE_MODEL weighing the counts. */
@@ -298,7 +315,8 @@ function cyclesEstimate(d: Design, s: Samples): number {
     base = narrow && d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 72 : narrow && d.mulBits === 16 ? 110 : 231;
   }
   const twoPoint = s.trim.mode === 'two-point';
-  return base + (s.frac > 0 && !twoPoint ? 2 * s.frac : 0) + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
+  const rounding = s.frac > 0 && !twoPoint ? roundingCycles(s.frac) : 0;
+  return base + rounding + (s.trim.mode === 'none' ? 0 : s.trim.mode === 'offset' ? 25 : 35);
 }
 
 /** Largest number of internal fraction bits tried. */

@@ -524,9 +524,13 @@ function trimRuntimeSetter(p: ChannelPlan, n: ReturnType<typeof names>): string 
  * point plus or minus a step, so every point moving by a constant moves it by the same).
  */
 function foldedBias(p: ChannelPlan): number {
-  const d = p.design;
-  if (d.kind !== 'table' || d.shift === 0 || p.fracBits === 0 || p.trim.mode === 'two-point') return 0;
-  return d.entryBits === 16 && d.spanMax <= 32767 ? 2 ** (p.fracBits - 1) : 0;
+  if (p.fracBits === 0 || p.trim.mode === 'two-point') return 0;
+  return roundsByShift(p.design) ? 2 ** (p.fracBits - 1) : 0;
+}
+
+/** An interpolating table with a 16-bit kernel: its fraction bits go with one arithmetic shift (foldedBias). */
+export function roundsByShift(d: TableDesign | PolyDesign): boolean {
+  return d.kind === 'table' && d.shift > 0 && d.entryBits === 16 && d.spanMax <= 32767;
 }
 
 export function dataCode(p: ChannelPlan, n: ReturnType<typeof names>): string {

@@ -1,76 +1,117 @@
 // A coarse output unit must not blow up the generated code: table points and constant terms carry
-// internal fraction bits and the result is rounded to the output unit once, at the end.
+// internal fraction bits and the result is rounded to the output unit once, at the end. The rule:
+// a coarser unit never costs more bytes or cycles than a finer one for the same channel. It holds
+// strictly on every sample channel unless the test shows that no design without the rounding step
+// exists at the fine design's spacing or wider; then the coarse design may cost the fine one plus
+// that one shift and nothing else (common practice, no source: the shift is the least instruction
+// that drops bits; DEVELOPERS.md "Coarse output units" gives the measured table).
 import { describe, expect, it } from 'vitest';
 import { generateC } from '../../../server/src/codegen';
 import type { ConversionInput } from '../../../server/src/codegen/types';
 import { sampleChannelInputs } from '../../fixtures/codegen/samples';
 import { junctionChannel, loadOperatingPoint } from '../../fixtures/codegen/channels';
-import { compareOnTargets } from '../../fixtures/codegen/measure';
+import { compareOnTargets, type Comparison } from '../../fixtures/codegen/measure';
 import { planChannels } from '../../../server/src/codegen/generate';
-import { SIZE_MODEL } from '../../../server/src/codegen/design';
+import { SIZE_MODEL, formOf, roundingCycles, roundingShifts, sample } from '../../../server/src/codegen/design';
+import { roundsByShift } from '../../../server/src/codegen/emit';
+import { designTable } from '../../../server/src/codegen/table';
 import { missingTools } from '../../fixtures/codegen/toolchain';
-import { measureLinkedSizes } from '../../fixtures/codegen/linked-size';
 
-const missAvr = [...missingTools(['avr-gcc', 'avr-size', 'simavr'])];
+const missAvr = [...missingTools(['avr-gcc', 'avr-size', 'simavr', 'arm-none-eabi-gcc', 'arm-none-eabi-size'])];
 
-/** Bytes of the final rounding step in the generator's AVR estimate (design.ts SIZE_MODEL.avr.fraction). */
-const ROUNDING_BYTES = Math.ceil(SIZE_MODEL.avr.fraction);
+const FINE = { optimise: 'size', outputScale: 100, errorTarget: 0.02 } as const;
+const COARSE = { optimise: 'size', outputScale: 10, errorTarget: 0.08 } as const;
+
+/**
+ * Why a coarse design may not drop its rounding shift, or undefined when it could: the design rounds
+ * fraction bits by a shift, and no table of the same emitted form without fraction bits meets the
+ * coarse target at its spacing or any wider one (a narrower one has more points and one more
+ * code-shift pair, which costs the rounding's cycles and more bytes; another form, such as the
+ * generic table past a spacing of 256 codes, costs tens of bytes and cycles more). The designer's
+ * own table search decides it.
+ */
+function roundingUnavoidable(c: ConversionInput): string | undefined {
+  const p = planChannels([c]).plans[0]!;
+  const d = p.design;
+  if (p.fracBits === 0 || d.kind !== 'table' || !roundsByShift(d)) return undefined;
+  const s0 = sample(c);
+  const form = formOf(d, planChannels([c]).samples[0]!);
+  const target = c.errorTarget * c.outputScale;
+  const best: string[] = [];
+  for (let sh = d.shift; sh <= 15; sh++) {
+    const r = designTable(s0, sh);
+    if (!r || formOf(r.design, s0) !== form) continue;
+    if (r.maxErr <= target + 1e-9) return undefined;
+    if (sh <= d.shift + 1) best.push(`spacing ${2 ** sh}: ${(r.maxErr / c.outputScale).toFixed(3)} degC`);
+  }
+  return `without fraction bits ${best.join(', ')} > ${c.errorTarget} degC`;
+}
+
+/** Checks the rule on one channel's measured pair; returns the table row. */
+function checkPair(c: ConversionInput, fine: Comparison, coarse: Comparison): string {
+  const coarseIn = { ...c, ...COARSE };
+  const frac = planChannels([coarseIn]).plans[0]!.fracBits;
+  const fig = (r: Comparison) => `${r.ours.avrBytes} B / ${r.ours.avrCyclesMean!.toFixed(1)} cycles / M0 ${r.ours.m0Bytes} B (${r.method} ${r.entries})`;
+  const row = `${c.channelName}: 0.01 degC ${fig(fine)}; 0.1 degC ${fig(coarse)}, ${frac} fraction bit(s)`;
+  expect(fine.avrMismatches, row).toBe(0);
+  expect(coarse.avrMismatches, row).toBe(0);
+  expect(coarse.ours.maxErrorC, row).toBeLessThanOrEqual(0.08);
+  // The Cortex-M0 rounds with one asrs and holds the rule on every channel.
+  expect(coarse.ours.m0Bytes!, row).toBeLessThanOrEqual(fine.ours.m0Bytes!);
+  const over = coarse.ours.avrBytes! > fine.ours.avrBytes! || coarse.ours.avrCyclesMean! > fine.ours.avrCyclesMean!;
+  if (!over) return row;
+  const why = roundingUnavoidable(coarseIn);
+  // Strict unless the rounding step cannot go; then the excess is that shift and nothing more.
+  expect(why, `${row}: costs more on the 8-bit target and a design without the rounding step meets the target`).toBeDefined();
+  expect(coarse.ours.avrBytes!, row).toBeLessThanOrEqual(fine.ours.avrBytes! + SIZE_MODEL.avr.fractionShift * roundingShifts(frac));
+  expect(coarse.ours.avrCyclesMean!, row).toBeLessThanOrEqual(fine.ours.avrCyclesMean! + roundingCycles(frac));
+  return `${row}  [rounding shift unavoidable: ${why}]`;
+}
 
 describe('coarse output units', () => {
-  it('0.1 degC with a 0.08 degC target costs at most the final rounding step more than 0.01 degC with 0.02 degC by the estimate (no more, as the fitted model prices that step at 0 bytes), on every sample channel', () => {
+  it('0.1 degC with a 0.08 degC target is estimated no larger than 0.01 degC with 0.02 degC, beyond a rounding shift that cannot go, on every sample channel', () => {
     const inputs = sampleChannelInputs().filter((c) => c.method !== 'line');
     expect(inputs.length).toBeGreaterThan(8);
     for (const c of inputs) {
       // Compared on bytes alone (optimise = size); balanced may trade a few bytes for cycles.
-      const fine = generateC([{ ...c, optimise: 'size', outputScale: 100, errorTarget: 0.02 }], { fileStem: 'f' }).channels[0]!;
-      const coarse = generateC([{ ...c, optimise: 'size', outputScale: 10, errorTarget: 0.08 }], { fileStem: 'c' }).channels[0]!;
+      const fine = generateC([{ ...c, ...FINE }], { fileStem: 'f' }).channels[0]!;
+      const coarse = generateC([{ ...c, ...COARSE }], { fileStem: 'c' }).channels[0]!;
+      const frac = planChannels([{ ...c, ...COARSE }]).plans[0]!.fracBits;
+      const rounding = Math.ceil(SIZE_MODEL.avr.fractionShift * roundingShifts(frac));
       // Before: the kiln's chamber took a 1,700-point table at 0.1 degC against 7 segments at 0.01 degC.
-      // The fewest bytes may be a few more points without the rounding step; never a blow-up.
       const data = (g: typeof fine) => (g.method === 'table' ? g.entries * 2 : g.entries * 12);
-      expect(data(coarse), c.channelName).toBeLessThanOrEqual(2 * data(fine) + 2 * ROUNDING_BYTES);
-      expect(coarse.bytesEstimate, c.channelName).toBeLessThanOrEqual(fine.bytesEstimate + ROUNDING_BYTES);
+      expect(data(coarse), c.channelName).toBeLessThanOrEqual(data(fine));
+      if (coarse.bytesEstimate > fine.bytesEstimate) {
+        expect(roundingUnavoidable({ ...c, ...COARSE }), `${c.channelName}: estimate ${coarse.bytesEstimate} B against ${fine.bytesEstimate} B`).toBeDefined();
+        expect(coarse.bytesEstimate, c.channelName).toBeLessThanOrEqual(fine.bytesEstimate + rounding);
+      }
       expect(coarse.maxErrorC, c.channelName).toBeLessThanOrEqual(0.08);
     }
   });
 
-  it.skipIf(missAvr.length > 0)('linked on the 8-bit target: 0.1 degC never costs more than 0.01 degC beyond its final rounding, on every sample channel', () => {
+  it.skipIf(missAvr.length > 0)('measured on both targets (linked bytes, simulated AVR cycles, every code checked on simavr): 0.1 degC costs no more than 0.01 degC, on every sample channel', () => {
     const inputs = sampleChannelInputs().filter((c) => c.method !== 'line');
-    const rows = measureLinkedSizes(inputs, [], [
-      ['fine', { optimise: 'size', outputScale: 100, errorTarget: 0.02 }],
-      ['coarse', { optimise: 'size', outputScale: 10, errorTarget: 0.08 }],
-    ]);
-    const lines: string[] = [];
-    let cheaperOrEqual = 0;
-    let pairs = 0;
+    const rows: string[] = [];
+    let strict = 0;
     for (const c of inputs) {
-      const fine = rows.find((r) => r.name === `${c.channelName} (fine)`);
-      const coarse = rows.find((r) => r.name === `${c.channelName} (coarse)`);
-      if (!fine || !coarse) continue;
-      pairs++;
-      if (coarse.linked.avr <= fine.linked.avr) cheaperOrEqual++;
-      lines.push(`${c.channelName}: 0.01 degC ${fine.linked.avr} B (${fine.method} ${fine.entries}), 0.1 degC ${coarse.linked.avr} B (${coarse.method} ${coarse.entries}, ${coarse.fracBits} fraction bit(s))`);
-      // The final rounding is one arithmetic shift per fraction bit (asr, ror: 4 bytes); nothing else may grow.
-      expect(coarse.linked.avr, lines[lines.length - 1]).toBeLessThanOrEqual(fine.linked.avr + 4 * coarse.fracBits);
+      const fine = compareOnTargets({ ...c, ...FINE }, { baselines: false });
+      const coarse = compareOnTargets({ ...c, ...COARSE }, { baselines: false });
+      const row = checkPair(c, fine, coarse);
+      if (!row.includes('[rounding')) strict++;
+      rows.push(row);
     }
-    console.log(`${lines.join('\n')}\n${cheaperOrEqual} of ${pairs} channels: 0.1 degC no larger than 0.01 degC`);
-    expect(pairs).toBeGreaterThan(8);
-  }, 900_000);
+    console.log(`${rows.join('\n')}\n${strict} of ${inputs.length} channels: 0.1 degC no larger and no slower than 0.01 degC`);
+    expect(inputs.length).toBeGreaterThan(8);
+  }, 1_800_000);
 
-  it.skipIf(missAvr.length > 0)('on the 8-bit target (linked bytes, simulated cycles): 0.1 degC costs the fine unit plus at most one arithmetic shift per fraction bit', async () => {
+  it.skipIf(missAvr.length > 0)('the invented junction channel on both targets: 0.1 degC costs no more than 0.01 degC', async () => {
     const op = await loadOperatingPoint();
     if (!op) return;
     const base = junctionChannel(op);
-    const fine = compareOnTargets({ ...base, outputScale: 100, errorTarget: 0.02 }, { baselines: false });
-    const coarseInput = { ...base, outputScale: 10, errorTarget: 0.08 };
-    const coarse = compareOnTargets(coarseInput, { baselines: false });
-    const frac = planChannels([coarseInput]).plans[0]!.fracBits;
-    console.log(`coarse output on atmega328p: 0.01 degC ${fine.ours.avrBytes} B / ${fine.ours.avrCyclesMean} cycles; 0.1 degC ${coarse.ours.avrBytes} B / ${coarse.ours.avrCyclesMean} cycles (${frac} fraction bit(s))`);
-    expect(fine.avrMismatches).toBe(0);
-    expect(coarse.avrMismatches).toBe(0);
+    const fine = compareOnTargets({ ...base, ...FINE }, { baselines: false });
+    const coarse = compareOnTargets({ ...base, ...COARSE }, { baselines: false });
     // Before: 188 B / 90 cycles against 164 B / 72 (a biased 16-bit rounding and the compiler's
-    // 24-bit multiply). Now the rounding's half unit rides in the table points and the shift is one
-    // asr/ror pair per bit (2 cycles, 4 bytes): the least a coarser unit with fraction bits costs.
-    expect(coarse.ours.avrBytes!).toBeLessThanOrEqual(fine.ours.avrBytes! + 4 * frac);
-    expect(coarse.ours.avrCyclesMean!).toBeLessThanOrEqual(fine.ours.avrCyclesMean! + 2 * frac);
+    // 24-bit multiply); then the rounding's half unit rode in the table points, one asr/ror a bit.
+    console.log(checkPair(base, fine, coarse));
   }, 600_000);
 });
