@@ -16,7 +16,7 @@
 // Nothing here knows which sensor it is: the sensor kind supplies q, r and the inverse.
 
 import { INT32_MAX, asr, fitsInt32 } from './arith';
-import { SHARED_IMPL, SHARED_STATUS, blockComment, dataCode, kernelCode, lit32, names, roundFraction, type ChannelPlan } from './emit';
+import { SHARED_IMPL, SHARED_STATUS, blockComment, dataCode, kernelCode, kernelHelpers, lit32, names, roundFraction, type ChannelPlan } from './emit';
 import { commentLines } from './names';
 import { SIZE_MODEL, kernelAt, planOne } from './design';
 import { rounded, type Samples } from './samples';
@@ -416,6 +416,7 @@ export function emitCompensatedSource(p: CompensatedPlan, header?: string): stri
     headComment(p),
     ...own,
     SHARED_IMPL,
+    ...new Set([...kernelHelpers(p.ref.plan), ...kernelHelpers(p.hot.plan)]),
     dataCode(p.ref.plan, names(p.ref.plan)),
     dataCode(p.hot.plan, names(p.hot.plan)),
     kernelFunction(p.ref.plan, `${id}_ref_part`, `${p.qName} of the ${p.ref.param} minus ${p.ref.rBase} ${p.qUnit}, in 1/${2 ** p.G} of ${2 ** -p.k} ${p.qUnit}, from (${p.ref.param} - (${p.ref.low})) >> ${p.ref.shift}`),

@@ -174,6 +174,56 @@ static inline __attribute__((always_inline)) uint16_t thsc_mul_hi16(uint16_t u, 
 #endif
 #endif`;
 
+/**
+ * Helpers of the byte-split table when every span between neighbouring points is 0..255 (emitted
+ * only by such a channel, so other files stay as they were): the span is the difference of the
+ * points' low bytes (one flash read, not two), and a +- floor((span * f + 128) / 256) is one 8 x 8
+ * hardware multiply whose product's bit 7 is the rounding carry, added into the point in place.
+ * Same value as THSC_MUL_HI8 on a 16-bit span, so table.ts simulates both alike.
+ */
+export const SHARED_NARROW = `#ifndef THSC_NARROW_HELPERS
+#define THSC_NARROW_HELPERS 1
+#ifdef __AVR__
+#define THSC_RD16LO(p) ((uint8_t)pgm_read_byte((const uint8_t *)(p))) /* little-endian: the low byte */
+#else
+#define THSC_RD16LO(p) ((uint8_t)*(p))
+#endif
+#if defined(__AVR__) && defined(__GNUC__) && defined(__AVR_HAVE_MUL__)
+static inline __attribute__((always_inline)) int16_t thsc_add_mul8(int16_t a, uint8_t s, uint8_t f)
+{
+    __asm__ ("mul %[s], %[f]\\n\\tlsl __tmp_reg__\\n\\tadc %A[a], __zero_reg__\\n\\tclr __zero_reg__\\n\\tadc %B[a], __zero_reg__"
+             : [a] "+r" (a) : [s] "r" (s), [f] "r" (f));
+    return a;
+}
+static inline __attribute__((always_inline)) int16_t thsc_sub_mul8(int16_t a, uint8_t s, uint8_t f)
+{
+    __asm__ ("mul %[s], %[f]\\n\\tlsl __tmp_reg__\\n\\tsbc %A[a], __zero_reg__\\n\\tclr __zero_reg__\\n\\tsbc %B[a], __zero_reg__"
+             : [a] "+r" (a) : [s] "r" (s), [f] "r" (f));
+    return a;
+}
+#define THSC_ADD_MUL8(a, s, f) thsc_add_mul8((a), (uint8_t)(s), (uint8_t)(f))
+#define THSC_SUB_MUL8(a, s, f) thsc_sub_mul8((a), (uint8_t)(s), (uint8_t)(f))
+#else
+#define THSC_ADD_MUL8(a, s, f) ((int16_t)((a) + (int16_t)(((uint16_t)(uint8_t)(s) * (uint8_t)(f) + 128u) >> 8)))
+#define THSC_SUB_MUL8(a, s, f) ((int16_t)((a) - (int16_t)(((uint16_t)(uint8_t)(s) * (uint8_t)(f) + 128u) >> 8)))
+#endif
+#endif`;
+
+/** The shared helpers a plan's kernel needs beyond SHARED_IMPL. */
+export function kernelHelpers(p: ChannelPlan): string[] {
+  return splitForm(p) && narrowSpans(p.design) ? [SHARED_NARROW] : [];
+}
+
+/** Every span between neighbouring points fits a byte: the byte-split table reads and multiplies 8 bits. */
+export function narrowSpans(d: TableDesign | PolyDesign): boolean {
+  return d.kind === 'table' && d.shift > 0 && d.spanMax <= 255;
+}
+
+function splitForm(p: ChannelPlan): boolean {
+  const d = p.design;
+  return d.kind === 'table' && d.shift > 0 && d.entryBits === 16 && d.spanMax <= 32767 && d.shift <= 8 && p.high < 2 ** (8 + d.shift);
+}
+
 export const CAUTION_LINES = [
   'CAUTION: generated from a design model, not from measurements of your hardware. Not for',
   'safety-critical use on its own (heaters, cold chains, batteries, mains). Verify the whole',
@@ -411,7 +461,7 @@ export function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>, input = 
   }
   const h = 2 ** d.shift;
   const wide = d.entryBits === 32 || d.spanMax > 32767;
-  if (!wide && d.shift <= 8 && p.high < 2 ** (8 + d.shift)) {
+  if (splitForm(p)) {
     // Byte-split form for 8-bit MCUs: w = code << (8 - shift) holds the point index in its high
     // byte and the fraction (scaled to /256) in its low byte, so neither needs a shift of its own;
     // the first point sits at a multiple of 2^shift, so the index offset folds into the address.
@@ -419,14 +469,23 @@ export function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>, input = 
     // floor((span * frac + 2^(shift-1)) / 2^shift), which table.ts simulates.
     const up = 8 - d.shift;
     const first = d.base / h;
+    const head = [up > 0 ? `    w = THSC_SHL16(${input}, ${up}u);` : `    w = ${input};`, '    f = (uint8_t)(w & 0xFFu);', `    p = &${n.data}[(w >> 8)${first > 0 ? ` - ${first}u` : ''}];`, `    a = ${rd}(p);`];
+    if (narrowSpans(d)) {
+      return {
+        wide,
+        decl: ['    uint16_t w;', '    uint8_t f, span;', '    const int16_t *p;', '    int16_t a, kernel;'],
+        body: [
+          ...head,
+          `    span = (uint8_t)(${p.dir > 0 ? 'THSC_RD16LO(p + 1) - (uint8_t)a' : '(uint8_t)a - THSC_RD16LO(p + 1)'}); /* 0..255: the points are monotonic, no span wider */`,
+          `    kernel = ${p.dir > 0 ? 'THSC_ADD_MUL8' : 'THSC_SUB_MUL8'}(a, span, f);`,
+        ],
+      };
+    }
     return {
       wide,
       decl: ['    uint16_t w, span, step;', '    uint8_t f;', `    const int16_t *p;`, '    int16_t a, kernel;'],
       body: [
-        up > 0 ? `    w = THSC_SHL16(${input}, ${up}u);` : `    w = ${input};`,
-        '    f = (uint8_t)(w & 0xFFu);',
-        `    p = &${n.data}[(w >> 8)${first > 0 ? ` - ${first}u` : ''}];`,
-        `    a = ${rd}(p);`,
+        ...head,
         `    span = (uint16_t)(${p.dir > 0 ? `${rd}(p + 1) - a` : `a - ${rd}(p + 1)`}); /* >= 0: the points are monotonic */`,
         '    step = THSC_MUL_HI8(span, f);',
         `    kernel = (int16_t)(a ${p.dir > 0 ? '+' : '-'} (int16_t)step);`,
@@ -554,7 +613,7 @@ export function emitSourceBody(p: ChannelPlan, header?: string): string {
   const n = names(p);
   const k = kernelCode(p, n);
   const own = header ? [`#include "${header}" /* this channel's types, prototypes and status codes */`] : ['#include <stdint.h>', SHARED_STATUS, declarations(p)];
-  const parts: string[] = [blockComment(describe(p), p.note, p.cautions), ...own, SHARED_IMPL, dataCode(p, n)];
+  const parts: string[] = [blockComment(describe(p), p.note, p.cautions), ...own, SHARED_IMPL, ...kernelHelpers(p), dataCode(p, n)];
   if (p.trim.runtime) {
     const fields = p.trim.mode === 'offset' ? 'int16_t offset;' : 'int32_t add; uint16_t gain;';
     const init = p.trim.mode === 'offset' ? `${p.trim.offsetScaled}` : `${lit32(p.trim.addC)}, ${p.trim.gainG}u`;

@@ -1,10 +1,10 @@
 // A coarse output unit must not blow up the generated code: table points and constant terms carry
 // internal fraction bits and the result is rounded to the output unit once, at the end. The rule:
 // a coarser unit never costs more bytes or cycles than a finer one for the same channel. It holds
-// strictly on every sample channel unless the test shows that no design without the rounding step
-// exists at the fine design's spacing or wider; then the coarse design may cost the fine one plus
-// that one shift and nothing else (common practice, no source: the shift is the least instruction
-// that drops bits; DEVELOPERS.md "Coarse output units" gives the measured table).
+// strictly on every sample channel unless the test shows that no table without the rounding step
+// meets the target in the same emitted form at the coarse design's spacing or wider; then the
+// coarse design may cost the fine one plus that one shift and nothing else (common practice, no source: the shift is the least instruction
+// that drops bits; DEVELOPERS.md, code map, server/src/codegen/, says which channels and why).
 import { describe, expect, it } from 'vitest';
 import { generateC } from '../../../server/src/codegen';
 import type { ConversionInput } from '../../../server/src/codegen/types';
