@@ -14,7 +14,7 @@ import { ZERO_CELSIUS_K } from '../physics/constants';
 import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
 import { fittedChannel } from '../calibration/fit';
 import { NominalInverse } from './nominal-inverse';
-import { contributorsOf, perturb } from './contributors';
+import { contributorsOf, perturb, sensingDraws } from './contributors';
 import type { CalSetting, Contributor } from '../analysis/budget-types';
 import { effectiveOversamplingBits } from './oversampling';
 import { calibrationContributors, type CalShift } from './calibration-readings';
@@ -37,6 +37,8 @@ export interface BudgetFrame {
   readingK: number[][];
   /** Per temperature of evalK: kelvins reported per LSB of code there (signed: the nominal slope's sign). */
   kPerLsb: Float64Array;
+  /** Per temperature of evalK: the volts the nominal channel senses there (read with kPerLsb's slope). */
+  nominalVolts: Float64Array;
   full: number;
 }
 
@@ -81,22 +83,62 @@ export function frameAt(base: Pick<BudgetFrame, 'channel' | 'inverse' | 'modes' 
     }),
   );
   const lsbVolts = c.adc.reference.value / 2 ** c.adc.bits;
-  const kPerLsb = Float64Array.from(evalK, (t) => lsbVolts / sense(c, t).slope);
+  const kPerLsb = new Float64Array(evalK.length);
+  const nominalVolts = new Float64Array(evalK.length);
+  for (let i = 0; i < evalK.length; i++) {
+    const p = sense(c, evalK[i]!);
+    kPerLsb[i] = lsbVolts / p.slope;
+    nominalVolts[i] = p.volts;
+  }
   const readingK = base.reading.map((k) => gridK.map((_, t) => k.amount * Math.abs(kPerLsb[t]!)));
-  return { ...base, gridK, evalK, calIndex, readingK, kPerLsb, full: 2 ** c.adc.bits };
+  // Every frame is built with its fields in this one order (not spread from its base, which may be
+  // a frame itself): one hidden class for all, so the budget's loops stay optimised for every frame.
+  const { inverse, modes, board, reading, calibration } = base;
+  return { channel: c, inverse, gridK, evalK, modes, calIndex, board, reading, calibration, readingK, kPerLsb, nominalVolts, full: 2 ** c.adc.bits };
+}
+
+/** Volts a board's channel (perturb's `channel`) senses at every temperature of evalK. */
+function sensedVolts(f: BudgetFrame, channel: ChannelDef): Float64Array {
+  const out = new Float64Array(f.evalK.length);
+  for (let i = 0; i < f.evalK.length; i++) out[i] = sense(channel, f.evalK[i]!).volts;
+  return out;
+}
+
+/**
+ * The volts each board of one frame senses, kept by its sensing draws (`sensingDraws`): the corners
+ * of a worst case come in groups that differ only in the converter's draws, which change the code
+ * but not the volts, so each group is sensed once. The board with no draw senses what the nominal
+ * channel does (every draw scales by 1 + 0 or adds 0, exactly), the frame's `nominalVolts`. Made
+ * for one worst-case evaluation and dropped with it (a Monte Carlo board never repeats its draws).
+ */
+export class SensedBoards {
+  private readonly byDraws = new Map<string, Float64Array>();
+
+  constructor(readonly frame: BudgetFrame) {
+    this.byDraws.set(sensingDraws(frame.board, new Float64Array(frame.board.length)), frame.nominalVolts);
+  }
+
+  volts(u: ArrayLike<number>, channel: ChannelDef): Float64Array {
+    const key = sensingDraws(this.frame.board, u);
+    let v = this.byDraws.get(key);
+    if (!v) this.byDraws.set(key, (v = sensedVolts(this.frame, channel)));
+    return v;
+  }
 }
 
 /**
  * Error (reported - true, K) of the board with draws u at every temperature of evalK, before
- * calibration; `codes` (optional) receives the board's continuous code there.
+ * calibration; `codes` (optional) receives the board's continuous code there; `sensed` (optional,
+ * for the frame f) gives the volts of boards sensed before.
  */
-export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length), codes?: Float64Array): Float64Array {
+export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length), codes?: Float64Array, sensed?: SensedBoards): Float64Array {
   const { channel, adc } = perturb(f.channel, f.board, u);
+  const volts = sensed ? sensed.volts(u, channel) : undefined;
   const vref = f.channel.adc.reference.value;
   const scale = (f.full * adc.gain) / (vref * adc.referenceScale);
   for (let i = 0; i < f.evalK.length; i++) {
     const k = f.evalK[i]!;
-    const v = sense(channel, k).volts;
+    const v = volts ? volts[i]! : sense(channel, k).volts;
     const code = Math.min(f.full, Math.max(0, v * scale + adc.offsetLsb));
     if (codes) codes[i] = code;
     out[i] = f.inverse.kelvinAt((code * vref) / f.full) - k;
