@@ -45,11 +45,15 @@ interface Bands {
   gains: number[];
 }
 
-/** Bands of the frame `sensed` is for (over every corner, or the corners `only`). */
-function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: number[]): Bands {
+/**
+ * Bands of the frame `sensed` is for (over every corner, or the corners `only`), for every
+ * calibration mode or the one mode `just` (its entries only are filled).
+ */
+function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: number[], just?: number): Bands {
   const f = sensed.frame;
   const G = f.gridK.length;
   const M = f.modes.length;
+  const modes = just === undefined ? f.modes.map((_, m) => m) : [just];
   const k = f.board.length;
   const u = new Float64Array(k);
   const errs = new Float64Array(f.evalK.length);
@@ -57,7 +61,7 @@ function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: n
   const readSum = new Float64Array(G);
   for (const r of f.readingK) for (let t = 0; t < G; t++) readSum[t]! += r[t]!;
   const all = f.calibration.map(() => true);
-  const shifts: CalShift[][] = f.modes.map((_, m) => calCorners(f.calibration, all, kPerLsbAtCal(f, m)));
+  const shifts: CalShift[][] = f.modes.map((_, m) => (modes.includes(m) ? calCorners(f.calibration, all, kPerLsbAtCal(f, m)) : []));
 
   const low = Array.from({ length: M }, () => new Float64Array(G).fill(Infinity));
   const high = Array.from({ length: M }, () => new Float64Array(G).fill(-Infinity));
@@ -79,13 +83,12 @@ function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: n
   };
 
   // Nominal board and one-at-a-time draws.
-  const nominal: Float64Array[] = [];
-  const gains: number[] = [];
+  const nominal: Float64Array[] = new Array<Float64Array>(M);
+  const gains: number[] = new Array<number>(M).fill(NaN);
   const nominalErrors = boardErrors(f, u, undefined, undefined, sensed);
-  for (let m = 0; m < M; m++) {
-    const c0 = new Float64Array(G);
-    gains.push(calibrated(f, m, nominalErrors, c0));
-    nominal.push(c0);
+  for (const m of modes) {
+    nominal[m] = new Float64Array(G);
+    gains[m] = calibrated(f, m, nominalErrors, nominal[m]);
   }
   const up: Float64Array[][] = Array.from({ length: M }, () => []);
   const down: Float64Array[][] = Array.from({ length: M }, () => []);
@@ -95,7 +98,7 @@ function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: n
         u.fill(0);
         u[i] = s;
         boardErrors(f, u, errs, undefined, sensed);
-        for (let m = 0; m < M; m++) {
+        for (const m of modes) {
           const d = new Float64Array(G);
           calibrated(f, m, errs, d);
           for (let t = 0; t < G; t++) d[t] = d[t]! - nominal[m]![t]!;
@@ -109,12 +112,12 @@ function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: n
     for (const idx of only ?? Array.from({ length: 2 ** k }, (_, i) => i)) {
       for (let i = 0; i < k; i++) u[i] = (idx >> i) & 1 ? 1 : -1;
       boardErrors(f, u, errs, undefined, sensed);
-      for (let m = 0; m < M; m++) widen(m, idx);
+      for (const m of modes) widen(m, idx);
     }
   } else {
     // The nominal board at every calibration corner, plus the summed one-at-a-time board swings.
     errs.set(nominalErrors);
-    for (let m = 0; m < M; m++) {
+    for (const m of modes) {
       widen(m, -1);
       for (let t = 0; t < G; t++) {
         for (let i = 0; i < k; i++) {
@@ -171,7 +174,7 @@ export function worstCase(f: BudgetFrame, maxCorners = 12): WorstCase {
     const local = sub.frame.gridK;
     const candidates = new Set<number>();
     for (let t = Math.max(0, at - 1); t <= Math.min(G - 1, at + 1); t++) candidates.add(b.argHigh[m]![t]!).add(b.argLow[m]![t]!);
-    const r = bands(sub, method, method === 'corners' ? [...candidates] : undefined);
+    const r = bands(sub, method, method === 'corners' ? [...candidates] : undefined, m);
     for (let t = 0; t < local.length; t++) {
       const a = Math.max(Math.abs(r.low[m]![t]!), Math.abs(r.high[m]![t]!));
       if (a > best.absK) (best.absK = a), (best.atK = local[t]!);
