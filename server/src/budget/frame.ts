@@ -9,7 +9,7 @@
 // (calibration-readings.ts), then the reading terms (quantisation, INL), converted to K with the
 // nominal slope (kelvins per LSB at T).
 import type { ChannelDef } from '../model/types';
-import { sense } from '../analysis/sense';
+import { senseEach } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
 import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
 import { fittedChannel } from '../calibration/fit';
@@ -83,13 +83,10 @@ export function frameAt(base: Pick<BudgetFrame, 'channel' | 'inverse' | 'modes' 
     }),
   );
   const lsbVolts = c.adc.reference.value / 2 ** c.adc.bits;
-  const kPerLsb = new Float64Array(evalK.length);
   const nominalVolts = new Float64Array(evalK.length);
-  for (let i = 0; i < evalK.length; i++) {
-    const p = sense(c, evalK[i]!);
-    kPerLsb[i] = lsbVolts / p.slope;
-    nominalVolts[i] = p.volts;
-  }
+  const kPerLsb = new Float64Array(evalK.length);
+  senseEach(c, evalK, { volts: nominalVolts, slope: kPerLsb });
+  for (let i = 0; i < evalK.length; i++) kPerLsb[i] = lsbVolts / kPerLsb[i]!;
   const readingK = base.reading.map((k) => gridK.map((_, t) => k.amount * Math.abs(kPerLsb[t]!)));
   // Every frame is built with its fields in this one order (not spread from its base, which may be
   // a frame itself): one hidden class for all, so the budget's loops stay optimised for every frame.
@@ -99,9 +96,9 @@ export function frameAt(base: Pick<BudgetFrame, 'channel' | 'inverse' | 'modes' 
 
 /** Volts a board's channel (perturb's `channel`) senses at every temperature of evalK. */
 function sensedVolts(f: BudgetFrame, channel: ChannelDef): Float64Array {
-  const out = new Float64Array(f.evalK.length);
-  for (let i = 0; i < f.evalK.length; i++) out[i] = sense(channel, f.evalK[i]!).volts;
-  return out;
+  const volts = new Float64Array(f.evalK.length);
+  senseEach(channel, f.evalK, { volts });
+  return volts;
 }
 
 /**
@@ -133,12 +130,12 @@ export class SensedBoards {
  */
 export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length), codes?: Float64Array, sensed?: SensedBoards): Float64Array {
   const { channel, adc } = perturb(f.channel, f.board, u);
-  const volts = sensed ? sensed.volts(u, channel) : undefined;
+  const volts = sensed ? sensed.volts(u, channel) : sensedVolts(f, channel);
   const vref = f.channel.adc.reference.value;
   const scale = (f.full * adc.gain) / (vref * adc.referenceScale);
   for (let i = 0; i < f.evalK.length; i++) {
     const k = f.evalK[i]!;
-    const v = volts ? volts[i]! : sense(channel, k).volts;
+    const v = volts[i]!;
     const code = Math.min(f.full, Math.max(0, v * scale + adc.offsetLsb));
     if (codes) codes[i] = code;
     out[i] = f.inverse.kelvinAt((code * vref) / f.full) - k;

@@ -2,11 +2,9 @@
 // temperature). A table of the nominal channel's sensed voltage and its exact slope (sense.ts) over
 // the range widened on both sides, with cubic Hermite interpolation between nodes (the slope is
 // known exactly, so each segment matches value and derivative at both ends), solved by Newton.
-// A node is sensed when a search first reaches it: the boards' codes span little more than the
-// channel's range, so about a third of the widened table is never needed.
 // Checked against the bracketing solver analysis/inverse.ts in tests/unit/budget.
 import type { ChannelDef } from '../model/types';
-import { sense } from '../analysis/sense';
+import { sense, senseEach } from '../analysis/sense';
 
 const SEGMENTS = 800;
 
@@ -40,15 +38,8 @@ export class NominalInverse {
     this.v = new Float64Array(SEGMENTS + 1);
     this.s = new Float64Array(SEGMENTS + 1);
     for (let i = 0; i <= SEGMENTS; i++) this.t[i] = lo + ((hi - lo) * i) / SEGMENTS;
-    this.v.fill(NaN);
-    this.rising = this.node(SEGMENTS) > this.node(0);
-  }
-
-  /** Senses node i (NaN in v until then): its voltage, kept with its slope. */
-  private node(i: number): number {
-    const p = sense(this.channel, this.t[i]!);
-    this.s[i] = p.slope;
-    return (this.v[i] = p.volts);
+    senseEach(channel, this.t, { volts: this.v, slope: this.s });
+    this.rising = this.v[SEGMENTS]! > this.v[0]!;
   }
 
   /** Nominal slope dV/dT at a temperature inside the table, V/K (Hermite derivative). */
@@ -68,13 +59,9 @@ export class NominalInverse {
     let b = n;
     while (b - a > 1) {
       const m = (a + b) >> 1;
-      let vm = v[m]!;
-      if (vm !== vm) vm = this.node(m);
-      if (sign * vm <= x) a = m;
+      if (sign * v[m]! <= x) a = m;
       else b = m;
     }
-    if (v[a] !== v[a]) this.node(a);
-    if (v[b] !== v[b]) this.node(b);
     const h = t[b]! - t[a]!;
     const v0 = v[a]!;
     const v1 = v[b]!;
