@@ -11,7 +11,7 @@
 import type { ChannelDef } from '../model/types';
 import { senseEach } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
+import { applyTrimK, trimFrom, type CalReading, type Trim } from '../calibration/trim';
 import { fittedChannel } from '../calibration/fit';
 import { NominalInverse } from './nominal-inverse';
 import { contributorsOf, perturb, sensingDraws } from './contributors';
@@ -149,7 +149,15 @@ export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Ar
  * thermometer's (ref, K on the value the trim aims at).
  */
 export function boardTrim(f: BudgetFrame, m: number, errors: ArrayLike<number>, shift?: CalShift): Trim {
-  return trimFrom(f.calIndex[m]!.map((i, j) => ({ trueK: f.evalK[i]! + (shift ? shift.ref[j]! : 0), reportedK: f.evalK[i]! + errors[i]! + (shift ? shift.rep[j]! : 0) })));
+  // Pushed, not mapped: `map` gives a mode without points an array of another elements kind, and
+  // optimised code meeting it was thrown away (two of a cold `check`'s deoptimisations).
+  const readings: CalReading[] = [];
+  const at = f.calIndex[m]!;
+  for (let j = 0; j < at.length; j++) {
+    const i = at[j]!;
+    readings.push({ trueK: f.evalK[i]! + (shift ? shift.ref[j]! : 0), reportedK: f.evalK[i]! + errors[i]! + (shift ? shift.rep[j]! : 0) });
+  }
+  return trimFrom(readings);
 }
 
 /** Calibrated error at each grid temperature (before reading terms); returns the trim's gain. */

@@ -71,8 +71,9 @@ function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: n
   const widen = (m: number, corner: number) => {
     const lo = low[m]!;
     const hi = high[m]!;
-    for (const s of shifts[m]!) {
-      const g = Math.abs(calibrated(f, m, errs, ce, s));
+    const ss = shifts[m]!;
+    for (let j = 0; j < ss.length; j++) {
+      const g = Math.abs(calibrated(f, m, errs, ce, ss[j]));
       for (let t = 0; t < G; t++) {
         const r = readSum[t]! * g;
         const c = ce[t]!;
