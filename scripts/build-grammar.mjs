@@ -25,7 +25,7 @@ export declare class SyntaxError extends Error {
   found: string | null;
   location: PeggyLocation;
 }
-export declare function parse(input: string, options?: { startRule?: 'Document' | 'FieldLine' | 'TopLine' }): unknown;
+export declare function parse(input: string, options?: { startRule?: 'Document' | 'FieldLine' | 'TopLine'; syntaxOnly?: boolean }): unknown;
 `,
 );
 console.log('grammar: wrote server/src/syntax/parser.generated.js');

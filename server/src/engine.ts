@@ -11,7 +11,7 @@ import { channelKey } from './analysis/cache';
 import type { ChannelResult } from './analysis/types';
 import type { ChannelDef } from './model/types';
 import { loadWorkspace, reportSyntax, type LoadedFile, type SourceHost } from './model/workspace';
-import type { ParseResult } from './syntax/ast';
+import { syntaxProblems } from './syntax/parse';
 import { resolveModel } from './model/resolve';
 import { attachBenchData, benchDataPath } from './model/bench-data';
 import type { ChannelDerived, DocumentState } from './document-state';
@@ -88,12 +88,13 @@ export function analyse(input: AnalyseInput): Analysis {
 }
 
 /**
- * The syntax diagnostics of one file's parse alone, as `analyse` reports them (the language server
- * publishes these first when a large spec is opened, before its analysis).
+ * The syntax diagnostics of one file's text alone, as `analyse` reports them, from a parse that keeps
+ * no field (syntax/parse.ts `syntaxProblems`, half the cost of a full parse): the language server
+ * publishes these first when a large spec is opened, before its analysis.
  */
-export function syntaxDiagnostics(file: string, parsed: ParseResult): Diagnostic[] {
+export function syntaxDiagnostics(file: string, text: string): Diagnostic[] {
   const sink = new DiagnosticSink();
-  reportSyntax(path.resolve(file), parsed, sink);
+  reportSyntax(path.resolve(file), syntaxProblems(text), sink);
   return capPerFile(sink.items.sort((a, b) => a.span.start - b.span.start));
 }
 

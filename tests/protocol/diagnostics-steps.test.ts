@@ -2,9 +2,8 @@
 // opened gets its diagnostics first with the worst-case budgets of at most INLINE_BUDGETS channels,
 // and the rest (the budget checks of the other channels) follow for the same version; an older
 // version is never published after a newer one, and the last publication is the full analysis of
-// the last version. A large spec just opened may get its syntax diagnostics alone first (when its
-// parse is costly; how costly depends on the machine, so the test holds either way). LSP 3.17
-// publishDiagnostics with versions; waits on notifications, never timers.
+// the last version. A large spec just opened (100,000 characters or more) gets its syntax diagnostics
+// alone first. LSP 3.17 publishDiagnostics with versions; waits on notifications, never timers.
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -87,6 +86,7 @@ describe('diagnostics in two steps', () => {
     const first = await client.diagnostics(uri, 1);
     const syntax = (d: LspDiagnostic[]) => d.filter((x) => x.code === 'syntax').map((x) => `${x.range.start.line}:${x.message}`);
     expect(syntax(first)).toHaveLength(1);
+    expect(first).toHaveLength(1); // the syntax step: nothing of the analysis yet
     const at = text.slice(0, text.indexOf('channel probe_3 ')).split('\n').length - 1;
     const hover = client.request<{ contents: unknown } | null>('textDocument/hover', { textDocument: { uri }, position: { line: at, character: 'channel '.length + 1 } });
     // The analysis (the channels' diagnostics), with the same syntax errors.

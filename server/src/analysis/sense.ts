@@ -33,3 +33,30 @@ export function physicsBias(b: BiasDef): Bias {
 export function sense(c: ChannelDef, kelvin: number): SensedPoint {
   return kindOf(c.sensor).sense(c, kelvin);
 }
+
+/** Columns `senseEach` fills, each as long as its temperatures; the ones left out are not computed into. */
+export interface SensedColumns {
+  volts?: Float64Array;
+  amps?: Float64Array;
+  slope?: Float64Array;
+  powerW?: Float64Array;
+  sourceOhms?: Float64Array;
+}
+
+/**
+ * sense() at every temperature of `kelvin`, into the columns asked for. Every sweep of many
+ * temperatures (the analysis sweep, the budget's grids and boards, its nominal inverse) runs this
+ * one loop, so a cold process optimises the sensor's model once, here, instead of once inside
+ * each caller (inlined into several, it was the larger part of a cold `check`'s compile time).
+ */
+export function senseEach(c: ChannelDef, kelvin: ArrayLike<number>, out: SensedColumns): void {
+  const { volts, amps, slope, powerW, sourceOhms } = out;
+  for (let i = 0; i < kelvin.length; i++) {
+    const p = sense(c, kelvin[i]!);
+    if (volts) volts[i] = p.volts;
+    if (amps) amps[i] = p.amps;
+    if (slope) slope[i] = p.slope;
+    if (powerW) powerW[i] = p.powerW;
+    if (sourceOhms) sourceOhms[i] = p.sourceOhms;
+  }
+}

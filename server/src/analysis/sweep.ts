@@ -1,6 +1,6 @@
 // Sweeps a channel over its range: operating point, ADC code and resolution at each step.
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { sense } from './sense';
+import { sense, senseEach } from './sense';
 import type { ChannelDef } from '../model/types';
 import type { ChannelResult, ChannelSummary, SweepColumns, SweepPoint } from './types';
 import { nonlinearity } from './nonlinearity';
@@ -73,14 +73,7 @@ export class SweepTable {
     const view = (k: number) => new Float64Array(buffer, k * n * Float64Array.BYTES_PER_ELEMENT, n);
     const columns = { volts: view(0), amps: view(1), slope: view(2), powerW: view(3), sourceOhms: view(4) };
     Object.assign(this, columns);
-    for (let i = 0; i < n; i++) {
-      const p = sense(channel, kelvin[i]!);
-      columns.volts[i] = p.volts;
-      columns.amps[i] = p.amps;
-      columns.slope[i] = p.slope;
-      columns.powerW[i] = p.powerW;
-      columns.sourceOhms[i] = p.sourceOhms;
-    }
+    senseEach(channel, kelvin, columns);
   }
 
   get length(): number {

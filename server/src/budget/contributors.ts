@@ -48,6 +48,26 @@ export interface BoardAdc {
   offsetLsb: number;
 }
 
+/**
+ * The contributors that act on the converter alone (a board's `BoardAdc`), by id, with how a draw
+ * sets it: they change the code, never the volts the channel senses (`sensingDraws`).
+ */
+const CONVERTER: ReadonlyMap<string, (adc: BoardAdc, d: number) => void> = new Map([
+  ['reference', (adc: BoardAdc, d: number) => void (adc.referenceScale = 1 + d)],
+  ['gain', (adc: BoardAdc, d: number) => void (adc.gain = 1 + d)],
+  ['offset', (adc: BoardAdc, d: number) => void (adc.offsetLsb = d)],
+]);
+
+/**
+ * The draws of u that change what the board's channel senses (every board contributor but the
+ * converter's), as a key: two boards with the same key sense the same volts at every temperature.
+ */
+export function sensingDraws(board: Contributor[], u: ArrayLike<number>): string {
+  let key = '';
+  for (let i = 0; i < board.length; i++) if (!CONVERTER.has(board[i]!.id)) key += `${u[i]!},`;
+  return key;
+}
+
 function scaleBias(b: BiasDef, x: number, supplyScale: number): BiasDef {
   if (b.kind === 'current') return { ...b, amps: { ...b.amps, value: b.amps.value * x } };
   return { ...b, ohms: { ...b.ohms, value: b.ohms.value * x }, supply: { ...b.supply, value: b.supply.value * supplyScale } };
@@ -65,13 +85,15 @@ export function perturb(c: ChannelDef, board: Contributor[], u: ArrayLike<number
   for (let i = 0; i < board.length; i++) {
     const k = board[i]!;
     const d = u[i]! * k.amount;
+    const setConverter = CONVERTER.get(k.id);
+    if (setConverter) {
+      setConverter(adc, d);
+      continue;
+    }
     switch (k.id) {
       case 'bias': b1 = 1 + d; break;
       case 'bias2': b2 = 1 + d; break;
       case 'supply': supply = 1 + d; break;
-      case 'reference': adc.referenceScale = 1 + d; break;
-      case 'gain': adc.gain = 1 + d; break;
-      case 'offset': adc.offsetLsb = d; break;
       case 'amp-gain': ampGain = 1 + d; break;
       default: element.set(k.id, d);
     }

@@ -9,12 +9,12 @@
 // (calibration-readings.ts), then the reading terms (quantisation, INL), converted to K with the
 // nominal slope (kelvins per LSB at T).
 import type { ChannelDef } from '../model/types';
-import { sense } from '../analysis/sense';
+import { senseEach } from '../analysis/sense';
 import { ZERO_CELSIUS_K } from '../physics/constants';
-import { applyTrimK, trimFrom, type Trim } from '../calibration/trim';
+import { applyTrimK, trimFrom, type CalReading, type Trim } from '../calibration/trim';
 import { fittedChannel } from '../calibration/fit';
 import { NominalInverse } from './nominal-inverse';
-import { contributorsOf, perturb } from './contributors';
+import { contributorsOf, perturb, sensingDraws } from './contributors';
 import type { CalSetting, Contributor } from '../analysis/budget-types';
 import { effectiveOversamplingBits } from './oversampling';
 import { calibrationContributors, type CalShift } from './calibration-readings';
@@ -37,6 +37,8 @@ export interface BudgetFrame {
   readingK: number[][];
   /** Per temperature of evalK: kelvins reported per LSB of code there (signed: the nominal slope's sign). */
   kPerLsb: Float64Array;
+  /** Per temperature of evalK: the volts the nominal channel senses there (read with kPerLsb's slope). */
+  nominalVolts: Float64Array;
   full: number;
 }
 
@@ -81,22 +83,59 @@ export function frameAt(base: Pick<BudgetFrame, 'channel' | 'inverse' | 'modes' 
     }),
   );
   const lsbVolts = c.adc.reference.value / 2 ** c.adc.bits;
-  const kPerLsb = Float64Array.from(evalK, (t) => lsbVolts / sense(c, t).slope);
+  const nominalVolts = new Float64Array(evalK.length);
+  const kPerLsb = new Float64Array(evalK.length);
+  senseEach(c, evalK, { volts: nominalVolts, slope: kPerLsb });
+  for (let i = 0; i < evalK.length; i++) kPerLsb[i] = lsbVolts / kPerLsb[i]!;
   const readingK = base.reading.map((k) => gridK.map((_, t) => k.amount * Math.abs(kPerLsb[t]!)));
-  return { ...base, gridK, evalK, calIndex, readingK, kPerLsb, full: 2 ** c.adc.bits };
+  // Every frame is built with its fields in this one order (not spread from its base, which may be
+  // a frame itself): one hidden class for all, so the budget's loops stay optimised for every frame.
+  const { inverse, modes, board, reading, calibration } = base;
+  return { channel: c, inverse, gridK, evalK, modes, calIndex, board, reading, calibration, readingK, kPerLsb, nominalVolts, full: 2 ** c.adc.bits };
+}
+
+/** Volts a board's channel (perturb's `channel`) senses at every temperature of evalK. */
+function sensedVolts(f: BudgetFrame, channel: ChannelDef): Float64Array {
+  const volts = new Float64Array(f.evalK.length);
+  senseEach(channel, f.evalK, { volts });
+  return volts;
+}
+
+/**
+ * The volts each board of one frame senses, kept by its sensing draws (`sensingDraws`): the corners
+ * of a worst case come in groups that differ only in the converter's draws, which change the code
+ * but not the volts, so each group is sensed once. The board with no draw senses what the nominal
+ * channel does (every draw scales by 1 + 0 or adds 0, exactly), the frame's `nominalVolts`. Made
+ * for one worst-case evaluation and dropped with it (a Monte Carlo board never repeats its draws).
+ */
+export class SensedBoards {
+  private readonly byDraws = new Map<string, Float64Array>();
+
+  constructor(readonly frame: BudgetFrame) {
+    this.byDraws.set(sensingDraws(frame.board, new Float64Array(frame.board.length)), frame.nominalVolts);
+  }
+
+  volts(u: ArrayLike<number>, channel: ChannelDef): Float64Array {
+    const key = sensingDraws(this.frame.board, u);
+    let v = this.byDraws.get(key);
+    if (!v) this.byDraws.set(key, (v = sensedVolts(this.frame, channel)));
+    return v;
+  }
 }
 
 /**
  * Error (reported - true, K) of the board with draws u at every temperature of evalK, before
- * calibration; `codes` (optional) receives the board's continuous code there.
+ * calibration; `codes` (optional) receives the board's continuous code there; `sensed` (optional,
+ * for the frame f) gives the volts of boards sensed before.
  */
-export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length), codes?: Float64Array): Float64Array {
+export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Array = new Float64Array(f.evalK.length), codes?: Float64Array, sensed?: SensedBoards): Float64Array {
   const { channel, adc } = perturb(f.channel, f.board, u);
+  const volts = sensed ? sensed.volts(u, channel) : sensedVolts(f, channel);
   const vref = f.channel.adc.reference.value;
   const scale = (f.full * adc.gain) / (vref * adc.referenceScale);
   for (let i = 0; i < f.evalK.length; i++) {
     const k = f.evalK[i]!;
-    const v = sense(channel, k).volts;
+    const v = volts[i]!;
     const code = Math.min(f.full, Math.max(0, v * scale + adc.offsetLsb));
     if (codes) codes[i] = code;
     out[i] = f.inverse.kelvinAt((code * vref) / f.full) - k;
@@ -110,7 +149,15 @@ export function boardErrors(f: BudgetFrame, u: ArrayLike<number>, out: Float64Ar
  * thermometer's (ref, K on the value the trim aims at).
  */
 export function boardTrim(f: BudgetFrame, m: number, errors: ArrayLike<number>, shift?: CalShift): Trim {
-  return trimFrom(f.calIndex[m]!.map((i, j) => ({ trueK: f.evalK[i]! + (shift ? shift.ref[j]! : 0), reportedK: f.evalK[i]! + errors[i]! + (shift ? shift.rep[j]! : 0) })));
+  // Pushed, not mapped: `map` gives a mode without points an array of another elements kind, and
+  // optimised code meeting it was thrown away (two of a cold `check`'s deoptimisations).
+  const readings: CalReading[] = [];
+  const at = f.calIndex[m]!;
+  for (let j = 0; j < at.length; j++) {
+    const i = at[j]!;
+    readings.push({ trueK: f.evalK[i]! + (shift ? shift.ref[j]! : 0), reportedK: f.evalK[i]! + errors[i]! + (shift ? shift.rep[j]! : 0) });
+  }
+  return trimFrom(readings);
 }
 
 /** Calibrated error at each grid temperature (before reading terms); returns the trim's gain. */

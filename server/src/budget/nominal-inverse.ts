@@ -4,9 +4,11 @@
 // known exactly, so each segment matches value and derivative at both ends), solved by Newton.
 // Checked against the bracketing solver analysis/inverse.ts in tests/unit/budget.
 import type { ChannelDef } from '../model/types';
-import { sense } from '../analysis/sense';
+import { sense, senseEach } from '../analysis/sense';
 
 const SEGMENTS = 800;
+/** Nodes sensed together (one call of senseEach). */
+const BLOCK = 16;
 
 export class NominalInverse {
   readonly lowK: number;
@@ -37,14 +39,21 @@ export class NominalInverse {
     this.t = new Float64Array(SEGMENTS + 1);
     this.v = new Float64Array(SEGMENTS + 1);
     this.s = new Float64Array(SEGMENTS + 1);
-    for (let i = 0; i <= SEGMENTS; i++) {
-      const k = lo + ((hi - lo) * i) / SEGMENTS;
-      const p = sense(channel, k);
-      this.t[i] = k;
-      this.v[i] = p.volts;
-      this.s[i] = p.slope;
-    }
+    for (let i = 0; i <= SEGMENTS; i++) this.t[i] = lo + ((hi - lo) * i) / SEGMENTS;
+    this.v.fill(NaN);
+    this.sense(0);
+    this.sense(SEGMENTS);
     this.rising = this.v[SEGMENTS]! > this.v[0]!;
+  }
+
+  /**
+   * Senses the block of BLOCK nodes holding node i (v is NaN until then). A board's codes reach
+   * only part of the widened range, so about a third of the table is never sensed.
+   */
+  private sense(i: number): void {
+    const from = i - (i % BLOCK);
+    const to = Math.min(SEGMENTS + 1, from + BLOCK);
+    senseEach(this.channel, this.t.subarray(from, to), { volts: this.v.subarray(from, to), slope: this.s.subarray(from, to) });
   }
 
   /** Nominal slope dV/dT at a temperature inside the table, V/K (Hermite derivative). */
@@ -64,9 +73,12 @@ export class NominalInverse {
     let b = n;
     while (b - a > 1) {
       const m = (a + b) >> 1;
+      if (v[m] !== v[m]) this.sense(m);
       if (sign * v[m]! <= x) a = m;
       else b = m;
     }
+    if (v[a] !== v[a]) this.sense(a);
+    if (v[b] !== v[b]) this.sense(b);
     const h = t[b]! - t[a]!;
     const v0 = v[a]!;
     const v1 = v[b]!;

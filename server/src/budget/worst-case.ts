@@ -11,7 +11,7 @@
 // spread over the two grid intervals around it, for the boards that were extreme at that point and
 // at its two neighbours (every one-at-a-time board for the sensitivity method), and the larger
 // figure is kept.
-import { boardErrors, calibrated, frameAt, kPerLsbAtCal, type BudgetFrame } from './frame';
+import { boardErrors, calibrated, frameAt, kPerLsbAtCal, SensedBoards, type BudgetFrame } from './frame';
 import { calCorners, type CalShift } from './calibration-readings';
 
 /** Temperatures evaluated between the grid neighbours of each worst point. */
@@ -38,14 +38,22 @@ interface Bands {
   argHigh: Int32Array[];
   argLow: Int32Array[];
   nominal: Float64Array[];
+  /** The nominal board's errors before calibration (boardErrors). */
+  nominalErrors: Float64Array;
   up: Float64Array[][];
   down: Float64Array[][];
   gains: number[];
 }
 
-function bands(f: BudgetFrame, method: 'corners' | 'sensitivity', only?: number[]): Bands {
+/**
+ * Bands of the frame `sensed` is for (over every corner, or the corners `only`), for every
+ * calibration mode or the one mode `just` (its entries only are filled).
+ */
+function bands(sensed: SensedBoards, method: 'corners' | 'sensitivity', only?: number[], just?: number): Bands {
+  const f = sensed.frame;
   const G = f.gridK.length;
   const M = f.modes.length;
+  const modes = just === undefined ? f.modes.map((_, m) => m) : [just];
   const k = f.board.length;
   const u = new Float64Array(k);
   const errs = new Float64Array(f.evalK.length);
@@ -53,21 +61,22 @@ function bands(f: BudgetFrame, method: 'corners' | 'sensitivity', only?: number[
   const readSum = new Float64Array(G);
   for (const r of f.readingK) for (let t = 0; t < G; t++) readSum[t]! += r[t]!;
   const all = f.calibration.map(() => true);
-  const shifts: CalShift[][] = f.modes.map((_, m) => calCorners(f.calibration, all, kPerLsbAtCal(f, m)));
+  const shifts: CalShift[][] = f.modes.map((_, m) => (modes.includes(m) ? calCorners(f.calibration, all, kPerLsbAtCal(f, m)) : []));
 
   const low = Array.from({ length: M }, () => new Float64Array(G).fill(Infinity));
   const high = Array.from({ length: M }, () => new Float64Array(G).fill(-Infinity));
   const argHigh = Array.from({ length: M }, () => new Int32Array(G));
   const argLow = Array.from({ length: M }, () => new Int32Array(G));
   /** Widens the band of mode m with the board whose errors are in errs (every calibration corner). */
-  const widen = (m: number, corner: number, offset?: Float64Array) => {
+  const widen = (m: number, corner: number) => {
     const lo = low[m]!;
     const hi = high[m]!;
-    for (const s of shifts[m]!) {
-      const g = Math.abs(calibrated(f, m, errs, ce, s));
+    const ss = shifts[m]!;
+    for (let j = 0; j < ss.length; j++) {
+      const g = Math.abs(calibrated(f, m, errs, ce, ss[j]));
       for (let t = 0; t < G; t++) {
         const r = readSum[t]! * g;
-        const c = ce[t]! + (offset ? offset[t]! : 0);
+        const c = ce[t]!;
         if (c + r > hi[t]!) (hi[t] = c + r), (argHigh[m]![t] = corner);
         if (c - r < lo[t]!) (lo[t] = c - r), (argLow[m]![t] = corner);
       }
@@ -75,13 +84,12 @@ function bands(f: BudgetFrame, method: 'corners' | 'sensitivity', only?: number[
   };
 
   // Nominal board and one-at-a-time draws.
-  const nominal: Float64Array[] = [];
-  const gains: number[] = [];
-  boardErrors(f, u, errs);
-  for (let m = 0; m < M; m++) {
-    const c0 = new Float64Array(G);
-    gains.push(calibrated(f, m, errs, c0));
-    nominal.push(c0);
+  const nominal: Float64Array[] = new Array<Float64Array>(M);
+  const gains: number[] = new Array<number>(M).fill(NaN);
+  const nominalErrors = boardErrors(f, u, undefined, undefined, sensed);
+  for (const m of modes) {
+    nominal[m] = new Float64Array(G);
+    gains[m] = calibrated(f, m, nominalErrors, nominal[m]);
   }
   const up: Float64Array[][] = Array.from({ length: M }, () => []);
   const down: Float64Array[][] = Array.from({ length: M }, () => []);
@@ -90,8 +98,8 @@ function bands(f: BudgetFrame, method: 'corners' | 'sensitivity', only?: number[
       for (const s of [1, -1]) {
         u.fill(0);
         u[i] = s;
-        boardErrors(f, u, errs);
-        for (let m = 0; m < M; m++) {
+        boardErrors(f, u, errs, undefined, sensed);
+        for (const m of modes) {
           const d = new Float64Array(G);
           calibrated(f, m, errs, d);
           for (let t = 0; t < G; t++) d[t] = d[t]! - nominal[m]![t]!;
@@ -104,14 +112,13 @@ function bands(f: BudgetFrame, method: 'corners' | 'sensitivity', only?: number[
   if (method === 'corners') {
     for (const idx of only ?? Array.from({ length: 2 ** k }, (_, i) => i)) {
       for (let i = 0; i < k; i++) u[i] = (idx >> i) & 1 ? 1 : -1;
-      boardErrors(f, u, errs);
-      for (let m = 0; m < M; m++) widen(m, idx);
+      boardErrors(f, u, errs, undefined, sensed);
+      for (const m of modes) widen(m, idx);
     }
   } else {
     // The nominal board at every calibration corner, plus the summed one-at-a-time board swings.
-    u.fill(0);
-    boardErrors(f, u, errs);
-    for (let m = 0; m < M; m++) {
+    errs.set(nominalErrors);
+    for (const m of modes) {
       widen(m, -1);
       for (let t = 0; t < G; t++) {
         for (let i = 0; i < k; i++) {
@@ -123,18 +130,17 @@ function bands(f: BudgetFrame, method: 'corners' | 'sensitivity', only?: number[
       }
     }
   }
-  return { low, high, argHigh, argLow, nominal, up, down, gains };
+  return { low, high, argHigh, argLow, nominal, nominalErrors, up, down, gains };
 }
 
 export function worstCase(f: BudgetFrame, maxCorners = 12): WorstCase {
   const G = f.gridK.length;
   const k = f.board.length;
   const method = k <= maxCorners ? 'corners' : 'sensitivity';
-  const b = bands(f, method);
+  const b = bands(new SensedBoards(f), method);
 
   // One-at-a-time swings: board inputs, reading terms at their bounds, calibration readings.
-  const u = new Float64Array(k);
-  const errs = boardErrors(f, u);
+  const errs = b.nominalErrors;
   const ce = new Float64Array(G);
   const swings = f.modes.map((_, m) => {
     const board = b.up[m]!.map((d, i) => d.map((x, t) => Math.max(Math.abs(x), Math.abs(b.down[m]![i]![t]!))));
@@ -150,7 +156,9 @@ export function worstCase(f: BudgetFrame, maxCorners = 12): WorstCase {
     return [...board, ...reading, ...cal];
   });
 
-  // Refine each mode's worst grid point between its neighbours.
+  // Refine each mode's worst grid point between its neighbours (modes worst at the same point share
+  // its temperatures, and so the boards sensed there).
+  const around = new Map<number, SensedBoards>();
   const refined = f.modes.map((_, m) => {
     let absK = -1;
     let at = 0;
@@ -162,11 +170,12 @@ export function worstCase(f: BudgetFrame, maxCorners = 12): WorstCase {
     if (G < 2) return best;
     const from = f.gridK[Math.max(0, at - 1)]!;
     const to = f.gridK[Math.min(G - 1, at + 1)]!;
-    const local = Array.from({ length: REFINE }, (_, i) => from + ((to - from) * (i + 0.5)) / REFINE);
+    let sub = around.get(at);
+    if (!sub) around.set(at, (sub = new SensedBoards(frameAt(f, Array.from({ length: REFINE }, (_, i) => from + ((to - from) * (i + 0.5)) / REFINE)))));
+    const local = sub.frame.gridK;
     const candidates = new Set<number>();
     for (let t = Math.max(0, at - 1); t <= Math.min(G - 1, at + 1); t++) candidates.add(b.argHigh[m]![t]!).add(b.argLow[m]![t]!);
-    const sub = frameAt(f, local);
-    const r = bands(sub, method, method === 'corners' ? [...candidates] : undefined);
+    const r = bands(sub, method, method === 'corners' ? [...candidates] : undefined, m);
     for (let t = 0; t < local.length; t++) {
       const a = Math.max(Math.abs(r.low[m]![t]!), Math.abs(r.high[m]![t]!));
       if (a > best.absK) (best.absK = a), (best.atK = local[t]!);

@@ -33,7 +33,8 @@ export function trimFrom(readings: CalReading[]): Trim {
   // Reported temperatures that do not move between the points: no gain can be fitted; offset only.
   if (!(Math.abs(dr) > 1e-9)) return { mode: 'offset', offset: c(a.trueK) - c(a.reportedK), gain: 1 };
   const gain = (b.trueK - a.trueK) / dr;
-  return { mode: 'two-point', gain, offset: c(a.trueK) - gain * c(a.reportedK) };
+  // Fields in NO_TRIM's order in every trim: one hidden class (the budget makes thousands).
+  return { mode: 'two-point', offset: c(a.trueK) - gain * c(a.reportedK), gain };
 }
 
 /** A reported temperature after the trim, K. */

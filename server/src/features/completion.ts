@@ -3,6 +3,7 @@
 // the names, options or forms the field takes; after a number the units of its dimension.
 import type { Analysis } from '../analysis/result';
 import type { BlockNode, Span } from '../syntax/ast';
+import type { BiasDef } from '../model/types';
 import { BIAS_FORMS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
 import { sensorKind } from '../sensors/registry';
 import { SUGGESTED_UNITS, type Dimension } from '../model/units';
@@ -127,13 +128,7 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
     if (!onlyWord) return [];
     return form.options.map((o) => ({ label: o, kind: 'option' as const, detail: fs.name, documentation: fs.optionDocs?.[o] ?? fs.doc, replace: wordSpan }));
   }
-  if (form.form === 'bias' && onlyWord) {
-    return [
-      { label: 'resistor', kind: 'form', detail: BIAS_FORMS[0], documentation: 'A resistor from a supply rail; each value may carry a tolerance, e.g. `resistor 47k ± 1 % from 3.3 V ± 2 %`.', insertText: 'resistor ${1:47k} from ${2:3.3 V}', snippet: true, replace: wordSpan },
-      { label: 'current', kind: 'form', detail: BIAS_FORMS[1], documentation: 'A constant-current source, e.g. `current 100 uA ± 2 %`.', insertText: 'current ${1:100 uA}', snippet: true, replace: wordSpan },
-      { label: 'divider', kind: 'form', detail: BIAS_FORMS[2], documentation: 'A thermistor or RTD in a divider with a fixed resistor R from a supply: `above` puts R on the supply side (the sensor to ground), `below` puts the sensor on the supply side, e.g. `divider 10k ± 0.1 % above from 3.3 V`.', insertText: 'divider ${1:10k} ${2|above,below|} from ${3:3.3 V}', snippet: true, replace: wordSpan },
-    ];
-  }
+  if (form.form === 'bias' && onlyWord) return biasForms(a, block, wordSpan);
   if (form.form === 'bias' && /^divider[ \t]+\S+(?:[ \t]*(?:±|\+\/-|\+-)[ \t]*\S+(?:[ \t]*%)?)?[ \t]+[A-Za-z]*$/.test(value) && !NUMBER_AT_END.test(value)) {
     return [
       { label: 'above', kind: 'keyword', detail: 'fixed resistor on the supply side', documentation: 'The fixed resistor sits between the supply and the ADC node; the sensor runs from the node to ground.', replace: wordSpan },
@@ -174,6 +169,30 @@ function valueItems(a: Analysis, fs: FieldSpec, value: string, offset: number, w
   return SUGGESTED_UNITS[dim].map(([label, doc]) => ({ label, kind: 'unit' as const, detail: doc, replace }));
 }
 
+/** Illustrative values of each bias form's probe: the kind's own check (`biasProblem`) says whether it takes the form. */
+const PROBE = { value: 1e4, tolerance: 0, span: { start: 0, end: 0 } };
+
+/**
+ * The bias forms (schema BIAS_FORMS, in that order), as snippets: those the channel's sensor kind
+ * takes (its `biasProblem` and `twoCurrent`), or all five while the sensor is not known yet.
+ */
+function biasForms(a: Analysis, block: BlockNode, replace: Span): CompletionItem[] {
+  const forms: (CompletionItem & { probe: BiasDef | 'two' })[] = [
+    { label: 'resistor', kind: 'form', detail: BIAS_FORMS[0], documentation: 'A resistor from a supply rail; each value may carry a tolerance, e.g. `resistor 47k ± 1 % from 3.3 V ± 2 %`.', insertText: 'resistor ${1:47k} from ${2:3.3 V}', snippet: true, replace, probe: { kind: 'resistor', ohms: PROBE, supply: PROBE, span: PROBE.span } },
+    { label: 'current', kind: 'form', detail: BIAS_FORMS[1], documentation: 'A constant-current source, e.g. `current 100 uA ± 2 %`.', insertText: 'current ${1:100 uA}', snippet: true, replace, probe: { kind: 'current', amps: PROBE, span: PROBE.span } },
+    { label: 'divider', kind: 'form', detail: BIAS_FORMS[2], documentation: 'A thermistor or RTD in a divider with a fixed resistor R from a supply: `above` puts R on the supply side (the sensor to ground), `below` puts the sensor on the supply side, e.g. `divider 10k ± 0.1 % above from 3.3 V`.', insertText: 'divider ${1:10k} ${2|above,below|} from ${3:3.3 V}', snippet: true, replace, probe: { kind: 'divider', ohms: PROBE, supply: PROBE, position: 'above', span: PROBE.span } },
+    { label: 'currents', kind: 'form', detail: BIAS_FORMS[3], documentation: 'Two currents switched in turn (the two-current method): the channel reads the difference of the two voltages, e.g. `currents 10 uA and 100 uA`.', insertText: 'currents ${1:10 uA} and ${2:100 uA}', snippet: true, replace, probe: 'two' },
+    { label: 'resistors', kind: 'form', detail: BIAS_FORMS[4], documentation: 'Two resistors from one supply, switched in turn (the two-current method), e.g. `resistors 330k and 33k from 3.3 V`.', insertText: 'resistors ${1:330k} and ${2:33k} from ${3:3.3 V}', snippet: true, replace, probe: 'two' },
+  ];
+  const sensorName = block.fields.find((f) => f.kind === 'field' && f.key.text === 'sensor' && f.value[0]?.kind === 'word');
+  const word = sensorName?.kind === 'field' ? sensorName.value[0] : undefined;
+  const sensor = word?.kind === 'word' ? a.model.sensors.get(word.text) : undefined;
+  const kind = sensor ? sensorKind(sensor.kind) : undefined;
+  return forms
+    .filter((f) => !sensor || !kind || (f.probe === 'two' ? kind.twoCurrent : kind.biasProblem(sensor, f.probe) === null))
+    .map(({ probe: _probe, ...item }) => item);
+}
+
 /** Dimension of a number being typed in a field, from its place in the value. */
 function numberDimension(fs: FieldSpec, before: string): Dimension | null {
   if (/(±|\+\/-|\+-)[ \t]*$/.test(before)) return 'ratio';
@@ -185,9 +204,9 @@ function numberDimension(fs: FieldSpec, before: string): Dimension | null {
     case 'accuracy':
       return 'temperature';
     case 'bias':
-      if (/^[ \t]*current\b/.test(before)) return 'current';
+      if (/^[ \t]*currents?\b/.test(before)) return 'current';
       if (/\bfrom[ \t]*$/.test(before)) return 'voltage';
-      if (/^[ \t]*(?:resistor|divider)[ \t]*$/.test(before)) return 'resistance';
+      if (/^[ \t]*(?:resistors?|divider)[ \t]*$/.test(before) || /^[ \t]*resistors\b.*\band[ \t]*$/.test(before)) return 'resistance';
       return null;
     default:
       return null;

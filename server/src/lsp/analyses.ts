@@ -2,14 +2,15 @@
 // when they drop it), its analysis at the current version (reused by every request on that version:
 // hover, completion, inlay hints...) and its parse at the current version (for the syntax-only
 // features: folding, outline, semantic tokens, which never wait for an analysis). An analysis is also
-// stale when a file it uses or a data file it names (bench data) has changed (an open document's
-// version, or a disk change notice, workspace/didChangeWatchedFiles).
+// stale when a file it uses or a data file it names (bench data) has changed: an open document's
+// version, or a disk change notice for that file (workspace/didChangeWatchedFiles, `diskChanged`).
 // Closing the document drops all of it. An analysis here computes at most INLINE_BUDGETS missing
 // worst-case budgets (a keystroke changes one channel); on open the rest follow a few at a time
 // (lsp/diagnostics.ts), so the first diagnostics and every request in between need not wait for them.
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { analyse, DocumentState, type Analysis, type SyntaxFile } from '../engine';
 import { uriToPath, type OpenDocuments } from './documents';
+import { realPathOnDisk } from '../disk';
 
 /** Missing worst-case budgets an analysis here computes at once; the rest are left pending. */
 export const INLINE_BUDGETS = 8;
@@ -18,7 +19,6 @@ interface Analysed {
   version: number;
   /** Version of every used file when analysed: an open document's version, or -1 for the disk. */
   deps: Map<string, number>;
-  diskGeneration: number;
   analysis: Analysis;
 }
 
@@ -30,8 +30,6 @@ interface Entry {
 
 export class AnalysisCache {
   private readonly entries = new Map<string, Entry>();
-  /** Bumped when the client reports changed files on disk. */
-  diskGeneration = 0;
 
   constructor(private readonly docs: OpenDocuments) {}
 
@@ -49,7 +47,7 @@ export class AnalysisCache {
     for (const f of analysis.files.slice(1)) deps.set(f.path, this.docs.byPath(f.path)?.version ?? -1);
     // Bench data files are read from the disk (or an open document) like used files, so their changes count the same way.
     for (const f of analysis.dataFiles) if (!deps.has(f)) deps.set(f, this.docs.byPath(f)?.version ?? -1);
-    entry.analysed = { version: doc.version, deps, diskGeneration: this.diskGeneration, analysis };
+    entry.analysed = { version: doc.version, deps, analysis };
     return analysis;
   }
 
@@ -87,8 +85,19 @@ export class AnalysisCache {
     return e;
   }
 
+  /**
+   * Files changed on disk (absolute paths): the analyses that read one of them from the disk are
+   * dropped, the others kept. Compared by real path too, so a file reached through a link counts.
+   */
+  diskChanged(paths: readonly string[]): void {
+    const changed = new Set(paths.flatMap((p) => [p, realPathOnDisk(p)]));
+    for (const e of this.entries.values()) {
+      const deps = e.analysed?.deps;
+      if (deps && [...deps].some(([p, v]) => v === -1 && (changed.has(p) || changed.has(realPathOnDisk(p))))) e.analysed = undefined;
+    }
+  }
+
   private fresh(e: Analysed): boolean {
-    if (e.diskGeneration !== this.diskGeneration && [...e.deps.values()].some((v) => v === -1)) return false;
     for (const [p, v] of e.deps) if ((this.docs.byPath(p)?.version ?? -1) !== v) return false;
     return true;
   }

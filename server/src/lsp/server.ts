@@ -100,8 +100,10 @@ export function createServer(connection: Connection): ServerContext {
     diagnostics.all();
   });
 
-  connection.onDidChangeWatchedFiles(() => {
-    ctx.analyses.diskGeneration++;
+  // Analyses that read a changed file from the disk are made again; every open spec is published
+  // again, as its generated C file's check reads the disk at each publication.
+  connection.onDidChangeWatchedFiles((p) => {
+    ctx.analyses.diskChanged(p.changes.map((c) => uriToPath(c.uri, ctx.documents.roots)));
     diagnostics.all();
   });
 

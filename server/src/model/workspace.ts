@@ -5,7 +5,7 @@
 // ever new files. The walk keeps its own stack, so a long chain of used files cannot overflow.
 import * as path from 'node:path';
 import { parse, type ParseCache } from '../syntax/parse';
-import type { ParseResult, UseNode } from '../syntax/ast';
+import type { ParseResult, SyntaxProblem, UseNode } from '../syntax/ast';
 import type { DiagnosticSink } from '../diagnostics/diagnostic';
 import { shown } from '../diagnostics/shown';
 
@@ -46,8 +46,8 @@ interface Frame {
 }
 
 /** A file's syntax problems as diagnostics (also what the language server publishes first on a large open). */
-export function reportSyntax(file: string, parsed: ParseResult, sink: DiagnosticSink): void {
-  for (const p of parsed.problems) sink.report('syntax', file, p.span, p.message);
+export function reportSyntax(file: string, problems: readonly SyntaxProblem[], sink: DiagnosticSink): void {
+  for (const p of problems) sink.report('syntax', file, p.span, p.message);
 }
 
 /** Files in load order, the entry first. */
@@ -65,7 +65,7 @@ export function loadWorkspace(entry: string, entryText: string, root: string, ho
     const loaded: LoadedFile = { path: file, text, parse: parsed, uses: [] };
     byReal.set(realFile, loaded);
     order.push(loaded);
-    reportSyntax(file, parsed, sink);
+    reportSyntax(file, parsed.problems, sink);
     return { loaded, real: realFile, next: 0 };
   };
 

