@@ -3,7 +3,8 @@
 // and the rest (the budget checks of the other channels) follow for the same version; an older
 // version is never published after a newer one, and the last publication is the full analysis of
 // the last version. A large spec just opened (100,000 characters or more) gets its syntax diagnostics
-// alone first. LSP 3.17 publishDiagnostics with versions; waits on notifications, never timers.
+// alone first, then its analysis with no budget computed inline (all follow in slices, so a hover
+// waits for the analysis alone), then the budgets. LSP 3.17 publishDiagnostics with versions; waits on notifications, never timers.
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -89,9 +90,14 @@ describe('diagnostics in two steps', () => {
     expect(first).toHaveLength(1); // the syntax step: nothing of the analysis yet
     const at = text.slice(0, text.indexOf('channel probe_3 ')).split('\n').length - 1;
     const hover = client.request<{ contents: unknown } | null>('textDocument/hover', { textDocument: { uri }, position: { line: at, character: 'channel '.length + 1 } });
-    // The analysis (the channels' diagnostics), with the same syntax errors.
-    const analysed = await client.diagnosticsWhere(uri, (d) => d.some((x) => x.code === 'accuracy-unmet'));
+    // The analysis (the channels' diagnostics), with the same syntax errors and no budget yet.
+    const analysed = await client.diagnosticsWhere(uri, () => true, 1);
     expect(syntax(analysed)).toEqual(syntax(first));
+    expect(analysed.length).toBeGreaterThan(1);
+    expect(accuracy(analysed)).toBe(0);
+    // Then every budget check.
+    const complete = await client.diagnosticsWhere(uri, (d) => d.some((x) => x.code === 'accuracy-unmet'));
+    expect(syntax(complete)).toEqual(syntax(first));
     expect((await hover)?.contents).toBeTruthy();
     expect(client.publications(uri).every((p) => p.version === 1)).toBe(true);
     client.close(uri);

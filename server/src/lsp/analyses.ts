@@ -36,13 +36,14 @@ export class AnalysisCache {
   /**
    * The analysis of a document at its current version (computed when missing or stale; `complete`:
    * also when the kept one has budgets pending, then with every budget, once they have been kept).
+   * `inline`: missing budgets computed at once when not complete (a large spec's open takes none).
    */
-  get(doc: TextDocument, complete = false): Analysis {
+  get(doc: TextDocument, complete = false, inline = INLINE_BUDGETS): Analysis {
     const entry = this.entryFor(doc.uri);
     const hit = entry.analysed;
     if (hit && hit.version === doc.version && this.fresh(hit) && !(complete && hit.analysis.budgetsPending.length > 0)) return hit.analysis;
     const p = uriToPath(doc.uri, this.docs.roots);
-    const analysis = analyse({ path: p, text: doc.getText(), root: this.docs.rootFor(p), host: this.docs.host(), state: entry.state, errorBudget: complete ? true : INLINE_BUDGETS });
+    const analysis = analyse({ path: p, text: doc.getText(), root: this.docs.rootFor(p), host: this.docs.host(), state: entry.state, errorBudget: complete ? true : inline });
     const deps = new Map<string, number>();
     for (const f of analysis.files.slice(1)) deps.set(f.path, this.docs.byPath(f.path)?.version ?? -1);
     // Bench data files are read from the disk (or an open document) like used files, so their changes count the same way.

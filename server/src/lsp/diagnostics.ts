@@ -12,7 +12,10 @@
 //
 // Syntax first: when a document of SYNTAX_FIRST_CHARS or more is first checked (a large spec opened),
 // its syntax diagnostics, from a parse that keeps no field (engine `syntaxDiagnostics`, half a full
-// parse's cost), are published at once and the analysis follows on a later turn.
+// parse's cost), are published at once and the analysis follows on a later turn, with no budget
+// computed inline: every one follows in slices, so a hover sent meanwhile waits for the analysis
+// alone, never for a budget (the bench's 1,600 channels showed no difference: their first eight
+// budgets are cheap; a spec whose first channels run costly budgets gains).
 //
 // Two steps: the first publish carries every diagnostic whose worst-case budget was kept or cheap
 // (lsp/analyses.ts INLINE_BUDGETS); the budgets left pending (a document just opened) are then
@@ -136,7 +139,7 @@ export class DiagnosticScheduler {
         return;
       }
       const c0 = cpuMs();
-      const analysis = this.ctx.analyses.get(doc);
+      const analysis = this.ctx.analyses.get(doc, false, syntaxShown ? 0 : undefined);
       // A document's first analysis is a cold one (every block read, every channel swept): not what
       // a keystroke costs, so the first keystroke is checked at once and measures that.
       const costs = this.costs.get(uri) ?? [];
