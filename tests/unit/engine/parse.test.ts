@@ -29,6 +29,16 @@ describe('numbers', () => {
     expect((firstValue('10 µA')[0] as QuantityTerm).unit?.text).toBe('µA');
     expect((firstValue('1.11eV')[0] as QuantityTerm).unit?.text).toBe('eV');
   });
+  it('takes a unit of one quotient (mV/K, ppm/K) but not two slashes or a bare prefix over a unit', () => {
+    expect((firstValue('-2 mV/K')[0] as QuantityTerm).unit?.text).toBe('mV/K');
+    expect((firstValue('50 ppm/K')[0] as QuantityTerm).unit?.text).toBe('ppm/K');
+    for (const bad of ['2 mV/K/s', '2 k/K']) {
+      const r = parse(`adc x {\n  v = ${bad}\n}\n`);
+      const block = r.tree.items[0] as BlockNode | undefined;
+      const first = (block?.fields?.[0] as FieldNode | undefined)?.value?.[0] as QuantityTerm | undefined;
+      expect(r.problems.length > 0 || first?.unit?.text !== bad.slice(2), bad).toBe(true);
+    }
+  });
   it('does not take a following word for a unit', () => {
     const v = firstValue('resistor 10 from 3.3 V');
     expect(v.map((t) => t.kind)).toEqual(['word', 'quantity', 'word', 'quantity']);
