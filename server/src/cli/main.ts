@@ -55,7 +55,13 @@ export function main(argv: string[], io: CliIO): number | 'serving' {
       return runTrimBoards(rest, io);
     case 'serve':
       // Loaded here, not with the CLI: the protocol library costs every other verb about 40 ms to load.
-      void import('../lsp/start').then(({ startServer }) => startServer());
+      import('../lsp/start').then(
+        ({ startServer }) => startServer(),
+        (err: unknown) => {
+          io.err(`thermoscribe: internal error: the language server could not load: ${err instanceof Error ? err.stack ?? err.message : String(err)}\n`);
+          process.exitCode = EXIT.unusable;
+        },
+      );
       return 'serving';
     case '--version':
       io.out(VERSION + '\n');

@@ -1,9 +1,9 @@
-// `thermoscribe serve --stdio`: the language server over stdin/stdout. Returns 0 and keeps serving
+// `thermoscribe serve --stdio`: the language server over stdin/stdout. It keeps serving
 // (the connection holds the process open until the client sends exit).
 import { createConnection, ProposedFeatures } from 'vscode-languageserver/node';
 import { createServer } from './server';
 
-export function startServer(): number {
+export function startServer(): void {
   const connection = createConnection(ProposedFeatures.all, process.stdin, process.stdout);
   // Anything written to stdout would corrupt the protocol stream: route console output to stderr.
   console.log = (...args: unknown[]) => process.stderr.write(args.map(String).join(' ') + '\n');
@@ -11,5 +11,4 @@ export function startServer(): number {
   process.on('unhandledRejection', (err) => connection.console.error(`thermoscribe: unhandled rejection: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`));
   createServer(connection);
   connection.listen();
-  return 0;
 }
