@@ -5,7 +5,7 @@
 import { INT16_MAX, INT16_MIN, clamp } from './arith';
 import { MAX_AVERAGE_LOG2, MAX_RECURSIVE_SHIFT } from '../analysis/dynamics';
 import { GAIN_Q, GAIN_Q_MAX, TWO_POINT_FRAC, applyTrim, trimDesign } from './calibration';
-import { narrowSpans, roundsByShift, type ChannelPlan } from './emit';
+import { narrowSpans, roundsByShift, splitTable, type ChannelPlan } from './emit';
 import { uniqueIdentifiers } from './names';
 import { designPolynomial, polyKernel, type PolyDesign } from './polynomial';
 import { finish, makeIdeal, rounded, withFraction, type Samples } from './samples';
@@ -197,8 +197,8 @@ type Design = TableDesign | PolyDesign;
 export function formOf(d: Design, s: Samples): 'direct' | 'polynomial' | 'split' | 'table16' | 'table32' {
   if (d.kind === 'polynomial') return 'polynomial';
   if (d.shift === 0) return 'direct';
-  if (d.entryBits !== 16 || d.spanMax > 32767) return 'table32';
-  return d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 'split' : 'table16';
+  if (!roundsByShift(d)) return 'table32';
+  return splitTable(d, s.high) ? 'split' : 'table16';
 }
 
 /** What a plan adds that the design alone does not say (fault tests, a 32-bit output, float variant, filter). */
@@ -323,10 +323,9 @@ function cyclesEstimate(d: Design, s: Samples): number {
   if (d.kind === 'polynomial') base = 540;
   else if (d.shift === 0) base = 40;
   else {
-    const narrow = d.entryBits === 16 && d.spanMax <= 32767;
     // A byte-split table whose spans fit a byte takes about 10 cycles fewer (emit.ts SHARED_NARROW);
     // not counted here, as the choice does not chase it (rankBytes).
-    base = narrow && d.shift <= 8 && s.high < 2 ** (8 + d.shift) ? 72 : narrow && d.mulBits === 16 ? 110 : 231;
+    base = splitTable(d, s.high) ? 72 : roundsByShift(d) && d.mulBits === 16 ? 110 : 231;
   }
   const twoPoint = s.trim.mode === 'two-point';
   const rounding = s.frac > 0 && !twoPoint ? roundingCycles(s.frac) : 0;

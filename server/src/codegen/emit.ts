@@ -211,7 +211,7 @@ static inline __attribute__((always_inline)) int16_t thsc_sub_mul8(int16_t a, ui
 
 /** The shared helpers a plan's kernel needs beyond SHARED_IMPL. */
 export function kernelHelpers(p: ChannelPlan): string[] {
-  return splitForm(p) && narrowSpans(p.design) ? [SHARED_NARROW] : [];
+  return splitTable(p.design, p.high) && narrowSpans(p.design) ? [SHARED_NARROW] : [];
 }
 
 /** Every span between neighbouring points fits a byte: the byte-split table reads and multiplies 8 bits. */
@@ -219,9 +219,13 @@ export function narrowSpans(d: TableDesign | PolyDesign): boolean {
   return d.kind === 'table' && d.shift > 0 && d.spanMax <= 255;
 }
 
-function splitForm(p: ChannelPlan): boolean {
-  const d = p.design;
-  return d.kind === 'table' && d.shift > 0 && d.entryBits === 16 && d.spanMax <= 32767 && d.shift <= 8 && p.high < 2 ** (8 + d.shift);
+/**
+ * The byte-split table (an interpolating 16-bit table whose point index fits the high byte of the
+ * code shifted left by 8 - shift): the one test of that form for the emitter and the size and cycle
+ * models (design.ts formOf, cyclesEstimate).
+ */
+export function splitTable(d: TableDesign | PolyDesign, high: number): boolean {
+  return roundsByShift(d) && d.shift <= 8 && high < 2 ** (8 + d.shift);
 }
 
 export const CAUTION_LINES = [
@@ -461,7 +465,7 @@ export function kernelCode(p: ChannelPlan, n: ReturnType<typeof names>, input = 
   }
   const h = 2 ** d.shift;
   const wide = d.entryBits === 32 || d.spanMax > 32767;
-  if (splitForm(p)) {
+  if (splitTable(d, p.high)) {
     // Byte-split form for 8-bit MCUs: w = code << (8 - shift) holds the point index in its high
     // byte and the fraction (scaled to /256) in its low byte, so neither needs a shift of its own;
     // the first point sits at a multiple of 2^shift, so the index offset folds into the address.
