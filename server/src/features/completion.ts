@@ -3,9 +3,10 @@
 // the names, options or forms the field takes; after a number the units of its dimension.
 import type { Analysis } from '../analysis/result';
 import type { BlockNode, Span } from '../syntax/ast';
-import type { BiasDef } from '../model/types';
+import type { BiasDef, SensorDef } from '../model/types';
 import { BIAS_FORMS, blockSpec, fieldSpec, type BlockKind, type FieldSpec } from '../model/schema';
-import { sensorKind } from '../sensors/registry';
+import { kindTakes, sensorKind } from '../sensors/registry';
+import type { SensorKind } from '../sensors/kind';
 import { SUGGESTED_UNITS, type Dimension } from '../model/units';
 import { blockSpecs, blockSnippet, fieldSnippet, needText, USE_DOC } from '../model/language';
 import { blockAt } from './locate';
@@ -65,13 +66,16 @@ function topLevel(replace: Span): CompletionItem[] {
 
 function fieldNames(a: Analysis, kind: BlockKind, block: BlockNode, lineStart: number, replace: Span): CompletionItem[] {
   const spec = blockSpec(kind)!;
+  // A channel whose sensor is known is not offered the fields only other kinds take (the reader
+  // would refuse them: sensors/registry.ts kindTakes).
+  const own = kind === 'channel' ? channelSensor(a, block).kind : undefined;
   const given = new Set<string>();
   for (const fl of block.fields) {
     if (fl.kind !== 'field' || (fl.span.start >= lineStart && fl.span.start <= replace.end)) continue;
     const fs = fieldSpec(spec, fl.key.text);
     if (fs) given.add(fs.name);
   }
-  return spec.fields.filter((fs) => !given.has(fs.name)).map((fs) => {
+  return spec.fields.filter((fs) => !given.has(fs.name) && (!own || kindTakes(own, fs.name))).map((fs) => {
     const met = kind === 'channel' ? metTarget(a, block, fs.name) : null;
     return {
       label: fs.name,
@@ -184,13 +188,18 @@ function biasForms(a: Analysis, block: BlockNode, replace: Span): CompletionItem
     { label: 'currents', kind: 'form', detail: BIAS_FORMS[3], documentation: 'Two currents switched in turn (the two-current method): the channel reads the difference of the two voltages, e.g. `currents 10 uA and 100 uA`.', insertText: 'currents ${1:10 uA} and ${2:100 uA}', snippet: true, replace, probe: 'two' },
     { label: 'resistors', kind: 'form', detail: BIAS_FORMS[4], documentation: 'Two resistors from one supply, switched in turn (the two-current method), e.g. `resistors 330k and 33k from 3.3 V`.', insertText: 'resistors ${1:330k} and ${2:33k} from ${3:3.3 V}', snippet: true, replace, probe: 'two' },
   ];
-  const sensorName = block.fields.find((f) => f.kind === 'field' && f.key.text === 'sensor' && f.value[0]?.kind === 'word');
-  const word = sensorName?.kind === 'field' ? sensorName.value[0] : undefined;
-  const sensor = word?.kind === 'word' ? a.model.sensors.get(word.text) : undefined;
-  const kind = sensor ? sensorKind(sensor.kind) : undefined;
+  const { sensor, kind } = channelSensor(a, block);
   return forms
     .filter((f) => !sensor || !kind || (f.probe === 'two' ? kind.twoCurrent : kind.biasProblem(sensor, f.probe) === null))
     .map(({ probe: _probe, ...item }) => item);
+}
+
+/** The sensor a channel block names, and its kind, when the spec defines that sensor. */
+function channelSensor(a: Analysis, block: BlockNode): { sensor?: SensorDef; kind?: SensorKind } {
+  const field = block.fields.find((f) => f.kind === 'field' && f.key.text === 'sensor' && f.value[0]?.kind === 'word');
+  const word = field?.kind === 'field' ? field.value[0] : undefined;
+  const sensor = word?.kind === 'word' ? a.model.sensors.get(word.text) : undefined;
+  return sensor ? { sensor, kind: sensorKind(sensor.kind) } : {};
 }
 
 /** Dimension of a number being typed in a field, from its place in the value. */

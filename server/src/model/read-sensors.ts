@@ -8,7 +8,7 @@ import type { AdcDef, BiasDef, ChannelDef, SensorDef, WiringDef } from './types'
 import { noExtra, readPart, readQuantityValue, readTolerance, spanOf, formatSI } from './read-value';
 import { kindWithArticle, PART_DOMAINS } from './schema';
 import { closest } from './suggest';
-import { kindOf, kindsInWords, sensorKind, sensorKinds } from '../sensors/registry';
+import { kindOf, kindsInWords, kindsTakingOnly, kindTakes, sensorKind, sensorKinds } from '../sensors/registry';
 import { shown } from '../diagnostics/shown';
 
 /** The channel's `sensor`: a definition of any sensor kind. */
@@ -139,9 +139,9 @@ export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias
     r.sink.report('out-of-domain', file, r.fieldSpans['range'] ?? r.ref.node.name.span, elementMsg);
     r.ok = false;
   }
-  const takes = (field: string) => kind === null || kind.channelFields.includes(field);
+  const takes = (field: string) => kind === null || kindTakes(kind, field);
   const notTaken = (field: string) => {
-    const by = sensorKinds().filter((k) => k.channelFields.includes(field)).map((k) => k.name);
+    const by = kindsTakingOnly(field).map((k) => k.name);
     r.sink.report('bad-value', file, r.fieldSpans[field]!, `${field} applies to ${by.join(' and ')} channels; '${sensor!.name}' is a ${kind!.name}`);
     r.ok = false;
   };

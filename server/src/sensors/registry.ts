@@ -31,6 +31,21 @@ export function kindOf(s: SensorDef): SensorKind {
   return sensorKind(s.kind)!;
 }
 
+/**
+ * The kinds that alone take a channel field (their `channelFields`: gain, offset, wiring, a
+ * thermocouple's cold_junction, ...); empty for a field every channel takes. One rule for the
+ * reader, which refuses the field on a channel of another kind, and for completion, which does not
+ * offer it there.
+ */
+export function kindsTakingOnly(field: string): readonly SensorKind[] {
+  return sensorKinds().filter((k) => k.channelFields.includes(field));
+}
+
+/** Whether a channel of kind `k` takes the channel field (see kindsTakingOnly). */
+export function kindTakes(k: SensorKind, field: string): boolean {
+  return k.channelFields.includes(field) || kindsTakingOnly(field).length === 0;
+}
+
 /** "a junction, thermistor or rtd": the kinds for messages (the first with its article). */
 export function kindsInWords(list: readonly SensorKind[] = sensorKinds(), joiner = 'or'): string {
   const words = list.map((k, i) => (i === 0 ? k.a : k.name));
