@@ -162,12 +162,11 @@ export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias
       r.ok = false;
     } else out.ratiometric = true;
   }
+  // Every field given that only other kinds take (sensors/kind.ts `channelFields`), in one place.
+  if (kind) for (const f of new Set(sensorKinds().flatMap((k) => k.channelFields))) if (r.terms(f) && !takes(f)) notTaken(f);
   const hasAmp = r.terms('gain') !== undefined || r.terms('offset') !== undefined;
   if (hasAmp) {
-    if (!takes('gain') || !takes('offset')) {
-      if (r.terms('gain') && !takes('gain')) notTaken('gain');
-      if (r.terms('offset') && !takes('offset')) notTaken('offset');
-    } else {
+    if (takes('gain') && takes('offset')) {
       const g = r.quantity('gain', 1);
       const o = r.quantity('offset', 0);
       // Domains (schema.ts) are checked as they are read.
@@ -175,12 +174,8 @@ export function readChannelExtras(r: BlockReader, sensor: SensorDef | null, bias
     }
   }
   const wiring = readWiring(r);
-  if (wiring) {
-    if (!takes('wiring')) notTaken('wiring');
-    else out.wiring = wiring;
-  }
-  // The fields only some kinds take (sensors/kind.ts `channelBlockFields`), then the kind's own reading of them.
-  for (const k of sensorKinds()) for (const f of k.channelBlockFields ?? []) if (r.terms(f.name) && !takes(f.name)) notTaken(f.name);
+  if (wiring && takes('wiring')) out.wiring = wiring;
+  // The kind's own reading of the fields only it takes.
   if (sensor && kind!.readChannel) {
     const own = kind!.readChannel(r, { sensor, bias, range: range ?? null, channel });
     if (own) out.kindFields = own;

@@ -44,7 +44,6 @@ export function channelJson(r: ChannelResult) {
       thetaJA: c.thetaJA,
       conversion: c.conversion,
       ...(kindOf(c.sensor).reportInputs?.(c) ?? {}),
-      currentWindow: { lowA: c.windowLowA, highA: c.windowHighA },
     },
     sweep: r.sweep.map((p) => ({
       celsius: round(p.celsius, 9),

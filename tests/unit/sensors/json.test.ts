@@ -34,5 +34,40 @@ channel p {
     expect(p!.inputs.amplifier).toEqual({ gain: 10, offsetVolts: -0.5 });
     expect(p!.inputs.wiring).toEqual({ wires: 3, leadOhms: 0.5 });
     expect(JSON.stringify([n, p])).not.toMatch(/NaN|null,"sweep"/);
+    // The junction's current range is the junction's input alone.
+    expect(n!.inputs).not.toHaveProperty('currentWindow');
+    expect(p!.inputs).not.toHaveProperty('currentWindow');
+  });
+});
+
+describe('the junction\'s current_window (invented parts)', () => {
+  const JUNCTION = `${PARTS}
+junction q {
+  IS = 10 fA
+}
+channel j {
+  sensor = q
+  adc = adc12
+  bias = current 20 uA
+  current_window = 5 uA .. 500 uA
+  range = 0 °C .. 50 °C
+}`;
+
+  it('is reported as an input of a junction channel', () => {
+    const j = channelJson(analyseText(JUNCTION).channels[0]!) as unknown as Record<string, any>;
+    expect(j.inputs.currentWindow).toEqual({ lowA: 5e-6, highA: 5e-4 });
+  });
+
+  it('is refused on another kind\'s channel, naming the kind that takes it', () => {
+    const a = analyseText(`${PARTS}
+channel n {
+  sensor = bead10k
+  adc = adc12
+  bias = divider 10k above from 3.3 V
+  current_window = 5 uA .. 500 uA
+  range = 0 °C .. 50 °C
+}`);
+    expect(a.diagnostics.map((d) => `${d.code}: ${d.message}`)).toEqual([expect.stringMatching(/^bad-value: current_window applies to junction channels; 'bead10k' is a thermistor/)]);
+    expect(a.channels).toHaveLength(0);
   });
 });

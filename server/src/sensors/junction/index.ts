@@ -18,7 +18,8 @@ export const junction: SensorKind<JunctionDef> = {
   block,
   ratedRange: 'junction range',
   read: readJunction,
-  channelFields: [],
+  // The bias current range the junction law holds in (model/schema.ts `current_window`).
+  channelFields: ['current_window'],
   twoCurrent: true,
   biasProblem: junctionBiasProblem,
   sense: senseJunction,
@@ -31,4 +32,5 @@ export const junction: SensorKind<JunctionDef> = {
   hover: junctionHover,
   biasHoverLines: junctionBiasLines,
   summary: junctionSummary,
+  reportInputs: (c) => ({ currentWindow: { lowA: c.windowLowA, highA: c.windowHighA } }),
 };
