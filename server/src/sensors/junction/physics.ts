@@ -184,11 +184,6 @@ export function junctionAtTemperature(p: JunctionParams, kelvin: number): Juncti
   return { kelvin, nVt, satAmps, betaF, isx, dLnIsxDT, seriesOhms: p.RS };
 }
 
-/** Terminal current at intrinsic junction voltage vj: isx * (exp(vj/nVt) - 1), A. */
-export function terminalAmps(j: JunctionAtTemperature, junctionVolts: number): number {
-  return j.isx * Math.expm1(junctionVolts / j.nVt);
-}
-
 /**
  * Current through R + RS + junction from a supply, A. Exact solution of
  *   supply = I*rt + nvt*ln(I/isx + 1)
